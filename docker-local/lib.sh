@@ -1,0 +1,201 @@
+#!/usr/bin/env bash
+# Shared bootstrap for `npm start`, `npm test` and `npm run dev`: everything idempotent, every step printed.
+# Processes we start are recorded by PID in .local/run/ and stopped by stop_started on exit.
+set -euo pipefail
+
+ROOT="$(cd "$(dirname "${BASH_SOURCE[0]}")/.." && pwd)"
+LOCAL="$ROOT/.local"
+RUN="$LOCAL/run"
+mkdir -p "$RUN"
+STARTED=()   # names of services this invocation started (and must stop)
+
+say()  { printf '\033[1;36m[fadeledger]\033[0m %s\n' "$*"; }
+fail() { printf '\033[1;31m[fadeledger] %s\033[0m\n' "$*" >&2; exit 1; }
+
+# load_env PROFILE — defaults, then the profile's overrides, then generated secrets, then the user's .env.
+load_env() {
+  local profile="$1"
+  set -a
+  # shellcheck disable=SC1091
+  . "$ROOT/docker-local/defaults.env"
+  [ "$profile" = test ] && . "$ROOT/docker-local/test.env"
+  ensure_secrets
+  . "$LOCAL/secrets.env"
+  [ "$profile" != test ] && [ -f "$ROOT/.env" ] && . "$ROOT/.env"
+  export NEXT_TELEMETRY_DISABLED=1
+  set +a
+  MARIADB_DIR="$LOCAL/mariadb"
+  MARIADB_SOCK="$RUN/mariadb.sock"
+  MARIADB_PID="$RUN/mariadb.pid"
+}
+
+ensure_secrets() {
+  if [ ! -f "$LOCAL/secrets.env" ]; then
+    say "generating local secrets in .local/secrets.env (git-ignored)"
+    local pw wh
+    pw="$(node -e "process.stdout.write(require('crypto').randomBytes(18).toString('base64url'))")"
+    wh="$(node -e "process.stdout.write(require('crypto').randomBytes(24).toString('hex'))")"
+    printf 'DATABASE_PASSWORD=%s\nSTRIPE_WEBHOOK_SECRET=whsec_%s\n' "$pw" "$wh" > "$LOCAL/secrets.env"
+    chmod 600 "$LOCAL/secrets.env"
+  fi
+}
+
+ensure_node_modules() {
+  cd "$ROOT"
+  if [ ! -d node_modules ] || [ ! -f node_modules/.package-lock.json ] || [ package-lock.json -nt node_modules/.package-lock.json ] || [ package.json -nt node_modules/.package-lock.json ]; then
+    say "installing npm dependencies (npm ci)"
+    PLAYWRIGHT_SKIP_BROWSER_DOWNLOAD=1 npm ci --no-audit --no-fund
+    touch node_modules/.package-lock.json
+  else
+    say "npm dependencies are up to date"
+  fi
+}
+
+# apt_install PACKAGE CHECK_PATH — install a Debian package once, as root; otherwise say how.
+apt_install() {
+  local pkg="$1" check="$2"
+  if [ -x "$check" ]; then return 0; fi
+  if [ "$(id -u)" != 0 ]; then
+    fail "$pkg is not installed and this is not root. Run: sudo apt-get update && sudo DEBIAN_FRONTEND=noninteractive apt-get install -y $pkg   — then run this command again."
+  fi
+  say "installing $pkg from Debian's packages (apt-get)"
+  if [ ! -f "$LOCAL/.apt-updated" ] || [ -n "$(find "$LOCAL/.apt-updated" -mmin +720 2>/dev/null)" ]; then
+    apt-get update -qq && touch "$LOCAL/.apt-updated"
+  fi
+  DEBIAN_FRONTEND=noninteractive apt-get install -y -qq "$pkg" >/dev/null
+  [ -x "$check" ] || fail "$pkg installed but $check is still missing"
+}
+
+db_ping() { mariadb-admin --no-defaults --socket="$MARIADB_SOCK" -uroot ping >/dev/null 2>&1; }
+db_root() { mariadb --no-defaults --socket="$MARIADB_SOCK" -uroot "$@"; }
+
+start_mariadb() {
+  apt_install mariadb-server /usr/sbin/mariadbd
+  if [ ! -d "$MARIADB_DIR/mysql" ]; then
+    say "initialising a private MariaDB data folder in .local/mariadb"
+    mkdir -p "$MARIADB_DIR"
+    mariadb-install-db --no-defaults --user="$(id -un)" --datadir="$MARIADB_DIR" --auth-root-authentication-method=normal --skip-test-db >"$RUN/mariadb-install.log" 2>&1 \
+      || { cat "$RUN/mariadb-install.log"; fail "mariadb-install-db failed"; }
+  fi
+  if db_ping; then
+    say "MariaDB already running on 127.0.0.1:$DATABASE_PORT (reusing it)"
+    return 0
+  fi
+  say "starting MariaDB on 127.0.0.1:$DATABASE_PORT"
+  setsid /usr/sbin/mariadbd --no-defaults --user="$(id -un)" --datadir="$MARIADB_DIR" --socket="$MARIADB_SOCK" \
+    --pid-file="$MARIADB_PID" --bind-address=127.0.0.1 --port="$DATABASE_PORT" --log-error="$RUN/mariadb.err" \
+    --skip-name-resolve --character-set-server=utf8mb4 --collation-server=utf8mb4_unicode_ci </dev/null >/dev/null 2>&1 &
+  for _ in $(seq 1 100); do db_ping && break; sleep 0.2; done
+  db_ping || { tail -20 "$RUN/mariadb.err" || true; fail "MariaDB did not start (log: .local/run/mariadb.err)"; }
+  STARTED+=(mariadb)
+}
+
+stop_mariadb() {
+  if db_ping; then
+    say "stopping MariaDB"
+    mariadb-admin --no-defaults --socket="$MARIADB_SOCK" -uroot shutdown >/dev/null 2>&1 || true
+    local pid; pid="$(cat "$MARIADB_PID" 2>/dev/null || true)"
+    for _ in $(seq 1 50); do [ -n "$pid" ] && kill -0 "$pid" 2>/dev/null || break; sleep 0.2; done
+  fi
+}
+
+# ensure_database [fresh] — the app's database and user; "fresh" drops the database first (tests).
+ensure_database() {
+  if [ "${1:-}" = fresh ]; then
+    say "recreating database $DATABASE_NAME"
+    db_root -e "DROP DATABASE IF EXISTS \`$DATABASE_NAME\`"
+  fi
+  say "ensuring database $DATABASE_NAME and user $DATABASE_USER"
+  db_root <<SQL
+CREATE DATABASE IF NOT EXISTS \`$DATABASE_NAME\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci;
+CREATE USER IF NOT EXISTS '$DATABASE_USER'@'127.0.0.1' IDENTIFIED BY '$DATABASE_PASSWORD';
+ALTER USER '$DATABASE_USER'@'127.0.0.1' IDENTIFIED BY '$DATABASE_PASSWORD';
+GRANT ALL PRIVILEGES ON \`$DATABASE_NAME\`.* TO '$DATABASE_USER'@'127.0.0.1';
+FLUSH PRIVILEGES;
+SQL
+}
+
+migrate_and_seed() {
+  cd "$ROOT"
+  say "running migrations"
+  MIGRATE_QUIET=1 node node_modules/tsx/dist/cli.mjs db/migrate.ts up
+  say "seeding the demo scenario (once)"
+  MIGRATE_QUIET=1 node node_modules/tsx/dist/cli.mjs db/migrate.ts seed
+}
+
+# start_bg NAME CMD... — start a background process in its own group, PID in .local/run/NAME.pid.
+start_bg() {
+  local name="$1"; shift
+  local pidfile="$RUN/$name.pid"
+  if [ -f "$pidfile" ] && kill -0 "$(cat "$pidfile")" 2>/dev/null; then
+    say "$name already running (pid $(cat "$pidfile")), reusing it"
+    return 0
+  fi
+  setsid "$@" >"$RUN/$name.log" 2>&1 </dev/null &
+  echo $! > "$pidfile"
+  STARTED+=("$name")
+}
+
+stop_bg() {
+  local name="$1" pidfile="$RUN/$1.pid"
+  [ -f "$pidfile" ] || return 0
+  local pid; pid="$(cat "$pidfile")"
+  if kill -0 "$pid" 2>/dev/null; then
+    say "stopping $name (pid $pid)"
+    kill -TERM -- "-$pid" 2>/dev/null || kill -TERM "$pid" 2>/dev/null || true
+    for _ in $(seq 1 50); do kill -0 "$pid" 2>/dev/null || break; sleep 0.1; done
+    kill -KILL -- "-$pid" 2>/dev/null || true
+  fi
+  rm -f "$pidfile"
+}
+
+# wait_http URL SECONDS NAME — until the URL answers (any HTTP status).
+wait_http() {
+  local url="$1" secs="$2" name="$3"
+  for _ in $(seq 1 $((secs * 5))); do
+    if curl -s -o /dev/null "$url"; then return 0; fi
+    sleep 0.2
+  done
+  tail -30 "$RUN/$name.log" 2>/dev/null || true
+  fail "$name did not answer at $url within ${secs}s (log: .local/run/$name.log)"
+}
+
+start_mail() {
+  start_bg "mail-$PROFILE" node "$ROOT/node_modules/maildev/dist/bin/maildev.js" --ip 127.0.0.1 --web-ip 127.0.0.1 -s "$SMTP_PORT" -w "$MAIL_WEB_PORT" --silent
+  wait_http "http://127.0.0.1:$MAIL_WEB_PORT/api/email" 20 "mail-$PROFILE"
+  say "mail catcher: smtp 127.0.0.1:$SMTP_PORT, inbox http://127.0.0.1:$MAIL_WEB_PORT/"
+}
+
+start_payments() {
+  STRIPE_FAKE_WEBHOOK_URL="$APP_URL/api/webhooks/stripe" STRIPE_FAKE_PUBLIC_URL="http://127.0.0.1:$STRIPE_FAKE_PORT" \
+    start_bg "payments-$PROFILE" node "$ROOT/node_modules/tsx/dist/cli.mjs" "$ROOT/docker-local/stripe-fake/server.ts"
+  wait_http "http://127.0.0.1:$STRIPE_FAKE_PORT/_fake/health" 30 "payments-$PROFILE"
+  say "payments fake (Stripe-compatible): http://127.0.0.1:$STRIPE_FAKE_PORT"
+}
+
+build_if_needed() {
+  cd "$ROOT"
+  local stamp=".next/BUILD_ID"
+  if [ ! -f "$stamp" ] || [ -n "$(find app components server db public fonts next.config.mjs tailwind.config.ts postcss.config.mjs package.json tsconfig.json instrumentation.ts proxy.ts -newer "$stamp" -type f 2>/dev/null | head -1)" ]; then
+    say "building the app (next build)"
+    node node_modules/next/dist/bin/next build
+  else
+    say "build is up to date"
+  fi
+}
+
+start_app() {
+  start_bg "app-$PROFILE" node "$ROOT/node_modules/next/dist/bin/next" start -p "$APP_PORT"
+  wait_http "http://127.0.0.1:$APP_PORT/api/health" 60 "app-$PROFILE"
+}
+
+stop_started() {
+  local i
+  for (( i=${#STARTED[@]}-1; i>=0; i-- )); do
+    case "${STARTED[$i]}" in
+      mariadb) stop_mariadb ;;
+      *) stop_bg "${STARTED[$i]}" ;;
+    esac
+  done
+  STARTED=()
+}

@@ -1,0 +1,32 @@
+#!/usr/bin/env bash
+# `npm test`: the same bootstrap against a separate test database and ports, then every test:
+# vitest unit + integration (real MariaDB, mail catcher, payments fake) and Playwright in Debian's chromium.
+. "$(dirname "$0")/lib.sh"
+PROFILE=test
+load_env test
+trap 'stop_started' EXIT
+trap 'exit 130' INT TERM
+T0=$(date +%s)
+
+ensure_node_modules
+apt_install chromium /usr/bin/chromium
+start_mariadb
+ensure_database fresh
+migrate_and_seed
+# Integration tests and single-file runs read the test environment from here.
+env | grep -E '^(APP_|DATABASE_|SMTP_|MAIL_|STRIPE_|NODE_ENV|TRUST_PROXY)' | sed 's/^\([^=]*\)=\(.*\)$/\1='"'"'\2'"'"'/' > "$LOCAL/test.env"
+start_mail
+start_payments
+
+results=()
+status=0
+say "vitest: unit and integration tests"
+if node node_modules/vitest/vitest.mjs run; then results+=("vitest: passed"); else results+=("vitest: FAILED"); status=1; fi
+
+build_if_needed
+start_app
+say "playwright: browser tests in /usr/bin/chromium"
+if PLAYWRIGHT_SKIP_BROWSER_DOWNLOAD=1 node node_modules/@playwright/test/cli.js test; then results+=("playwright: passed"); else results+=("playwright: FAILED"); status=1; fi
+
+say "summary: ${results[*]} — $( [ $status = 0 ] && echo ALL TESTS PASSED || echo SOME TESTS FAILED ) in $(( $(date +%s) - T0 ))s"
+exit $status

@@ -1,0 +1,11 @@
+/** @type {import('next').NextConfig} */
+const nextConfig = {
+  // Sequelize loads dialect modules dynamically (pg-hstore…), and argon2 is a native addon:
+  // bundling either breaks the build, so they stay plain Node requires.
+  serverExternalPackages: ['sequelize', 'mariadb', '@node-rs/argon2', 'nodemailer', '@react-pdf/renderer'],
+  poweredByHeader: false,
+  typedRoutes: false,
+  experimental: { serverActions: { bodySizeLimit: '4mb' } },
+};
+
+export default nextConfig;

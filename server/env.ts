@@ -1,0 +1,77 @@
+import { z } from 'zod';
+
+/**
+ * The environment, parsed once with zod. A missing or malformed variable stops start-up with a
+ * message naming it (instrumentation.ts calls getEnv() when the server boots).
+ * Every variable is listed, with a comment, in .env.example.
+ */
+const port = z.coerce.number().int().min(1).max(65535);
+const flag = z
+  .enum(['true', 'false', '1', '0'])
+  .transform((v) => v === 'true' || v === '1');
+
+export const envSchema = z.object({
+  NODE_ENV: z.enum(['development', 'production', 'test']).default('development'),
+  APP_URL: z.url({ message: 'must be an absolute URL such as http://localhost:3000' }),
+
+  DATABASE_HOST: z.string().min(1),
+  DATABASE_PORT: port,
+  DATABASE_NAME: z.string().regex(/^[A-Za-z0-9_]+$/, 'letters, digits and _ only'),
+  DATABASE_USER: z.string().min(1),
+  DATABASE_PASSWORD: z.string().min(1),
+  DATABASE_POOL_MAX: z.coerce.number().int().min(1).max(100).default(10),
+
+  SMTP_HOST: z.string().min(1),
+  SMTP_PORT: port,
+  SMTP_SECURE: flag.default(false),
+  SMTP_USER: z.string().optional(),
+  SMTP_PASSWORD: z.string().optional(),
+  MAIL_FROM: z.string().min(3),
+
+  STRIPE_SECRET_KEY: z.string().regex(/^(sk|rk)_(test|live)_/, 'must start with sk_test_, sk_live_ or rk_…'),
+  STRIPE_WEBHOOK_SECRET: z.string().regex(/^whsec_/, 'must start with whsec_'),
+  // Leave these three unset to talk to api.stripe.com; set them to reach a local Stripe-compatible server.
+  STRIPE_API_HOST: z.string().optional(),
+  STRIPE_API_PORT: port.optional(),
+  STRIPE_API_PROTOCOL: z.enum(['http', 'https']).optional(),
+
+  // Behind a load balancer, trust its X-Forwarded-For for throttling and the audit log.
+  TRUST_PROXY: flag.default(false),
+});
+
+export type Env = z.infer<typeof envSchema>;
+
+export class EnvError extends Error {
+  constructor(public readonly problems: { variable: string; message: string }[]) {
+    super(
+      'FadeLedger cannot start: the environment is incomplete.\n' +
+        problems.map((p) => `  ${p.variable}: ${p.message}`).join('\n') +
+        '\nSee .env.example for every variable and what it means.',
+    );
+    this.name = 'EnvError';
+  }
+}
+
+/** Parses a given environment (tests pass their own); throws EnvError naming each bad variable. */
+export function parseEnv(source: Record<string, string | undefined>): Env {
+  // Empty strings count as missing: a blank line in a .env file should not pass as a value.
+  const cleaned = Object.fromEntries(Object.entries(source).filter(([, v]) => v !== undefined && v !== ''));
+  const result = envSchema.safeParse(cleaned);
+  if (!result.success) {
+    throw new EnvError(
+      result.error.issues.map((issue) => ({
+        variable: String(issue.path[0] ?? '(unknown)'),
+        message: issue.code === 'invalid_type' && issue.input === undefined ? 'is missing' : issue.message,
+      })),
+    );
+  }
+  return result.data;
+}
+
+let cached: Env | undefined;
+
+/** The process environment, parsed on first use and then reused. */
+export function getEnv(): Env {
+  cached ??= parseEnv(process.env);
+  return cached;
+}
