@@ -19,6 +19,7 @@ export default defineConfig({
           include: ['tests/integration/**/*.test.ts'],
           environment: 'node',
           globalSetup: ['tests/integration/global-setup.ts'],
+          setupFiles: ['tests/integration/setup-env.ts'],
           // One MariaDB database shared by every file: run files one after another.
           fileParallelism: false,
           testTimeout: 30_000,

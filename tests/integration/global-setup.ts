@@ -1,0 +1,5 @@
+import { loadTestEnv } from '../support/test-env';
+
+export default function setup(): void {
+  loadTestEnv();
+}
