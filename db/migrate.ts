@@ -11,7 +11,15 @@ import { getSequelize, closeSequelize } from './sequelize';
 function makeUmzug(folder: 'migrations' | 'seeders') {
   const sequelize = getSequelize();
   return new Umzug<QueryInterface>({
-    migrations: { glob: ['*.ts', { cwd: path.join(__dirname, folder), ignore: ['*.d.ts'] }] },
+    migrations: {
+      glob: ['*.ts', { cwd: path.join(__dirname, folder), ignore: ['*.d.ts'] }],
+      // import() rather than umzug's require, so the same files load under tsx and vitest alike.
+      resolve: ({ name, path: file, context }) => ({
+        name,
+        up: async () => (await import(file!)).up({ context }),
+        down: async () => (await import(file!)).down({ context }),
+      }),
+    },
     context: sequelize.getQueryInterface(),
     storage: new SequelizeStorage({ sequelize, tableName: folder === 'migrations' ? 'schema_migrations' : 'schema_seeds' }),
     logger: process.env.MIGRATE_QUIET ? undefined : console,

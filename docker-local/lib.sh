@@ -100,19 +100,20 @@ stop_mariadb() {
 }
 
 # ensure_database [fresh] — the app's database and user; "fresh" drops the database first (tests).
+# The test profile also gets <name>_scratch, where the migrations test runs everything down and up.
 ensure_database() {
+  local names=("$DATABASE_NAME")
+  [ "$PROFILE" = test ] && names+=("${DATABASE_NAME}_scratch")
   if [ "${1:-}" = fresh ]; then
-    say "recreating database $DATABASE_NAME"
-    db_root -e "DROP DATABASE IF EXISTS \`$DATABASE_NAME\`"
+    say "recreating database ${names[*]}"
+    for n in "${names[@]}"; do db_root -e "DROP DATABASE IF EXISTS \`$n\`"; done
   fi
-  say "ensuring database $DATABASE_NAME and user $DATABASE_USER"
-  db_root <<SQL
-CREATE DATABASE IF NOT EXISTS \`$DATABASE_NAME\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci;
-CREATE USER IF NOT EXISTS '$DATABASE_USER'@'127.0.0.1' IDENTIFIED BY '$DATABASE_PASSWORD';
-ALTER USER '$DATABASE_USER'@'127.0.0.1' IDENTIFIED BY '$DATABASE_PASSWORD';
-GRANT ALL PRIVILEGES ON \`$DATABASE_NAME\`.* TO '$DATABASE_USER'@'127.0.0.1';
-FLUSH PRIVILEGES;
-SQL
+  say "ensuring database ${names[*]} and user $DATABASE_USER"
+  db_root -e "CREATE USER IF NOT EXISTS '$DATABASE_USER'@'127.0.0.1' IDENTIFIED BY '$DATABASE_PASSWORD'; ALTER USER '$DATABASE_USER'@'127.0.0.1' IDENTIFIED BY '$DATABASE_PASSWORD';"
+  for n in "${names[@]}"; do
+    db_root -e "CREATE DATABASE IF NOT EXISTS \`$n\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci; GRANT ALL PRIVILEGES ON \`$n\`.* TO '$DATABASE_USER'@'127.0.0.1';"
+  done
+  db_root -e "FLUSH PRIVILEGES;"
 }
 
 migrate_and_seed() {
@@ -152,12 +153,14 @@ stop_bg() {
 # wait_http URL SECONDS NAME — until the URL answers (any HTTP status).
 wait_http() {
   local url="$1" secs="$2" name="$3"
+  local pidfile="$RUN/$name.pid"
   for _ in $(seq 1 $((secs * 5))); do
     if curl -s -o /dev/null "$url"; then return 0; fi
+    if [ -f "$pidfile" ] && ! kill -0 "$(cat "$pidfile")" 2>/dev/null; then break; fi
     sleep 0.2
   done
   tail -30 "$RUN/$name.log" 2>/dev/null || true
-  fail "$name did not answer at $url within ${secs}s (log: .local/run/$name.log)"
+  fail "$name did not answer at $url (exited, or not within ${secs}s) (log: .local/run/$name.log)"
 }
 
 start_mail() {
