@@ -4,9 +4,18 @@ import { Membership, initMembership } from './membership';
 import { Plan, initPlan } from './plan';
 import { Session, initSession } from './session';
 import { User, initUser } from './user';
+// Studies (part A): customers, sites, services, dish catalogue, climate, uploads, studies.
+import { Customer, initCustomer } from './customer';
+import { Site, initSite } from './site';
+import { ServiceProfile, initServiceProfile } from './service-profile';
+import { Dish, initDish } from './dish';
+import { Upload, initUpload } from './upload';
+import { ClimateProfile, initClimateProfile } from './climate-profile';
+import { Study, initStudy } from './study';
 
 export { Company, Membership, Plan, Session, User };
 export type { CompanyRole } from './membership';
+export { Customer, Site, ServiceProfile, Dish, Upload, ClimateProfile, Study };
 export { COMPANY_ROLES } from './membership';
 
 let ready = false;
@@ -30,7 +39,16 @@ export function models() {
     Company.hasMany(Membership, { foreignKey: 'companyId', as: 'memberships' });
     User.hasMany(Membership, { foreignKey: 'userId', as: 'memberships' });
     Session.belongsTo(User, { foreignKey: 'userId', as: 'user' });
+    initCustomer(sequelize);
+    initSite(sequelize);
+    initServiceProfile(sequelize);
+    initDish(sequelize);
+    initUpload(sequelize);
+    initClimateProfile(sequelize);
+    initStudy(sequelize);
+    Site.belongsTo(Customer, { foreignKey: 'customerId', as: 'customer' });
+    Customer.hasMany(Site, { foreignKey: 'customerId', as: 'sites' });
     ready = true;
   }
-  return { sequelize: getSequelize(), Plan, Company, User, Membership, Session };
+  return { sequelize: getSequelize(), Customer, Site, ServiceProfile, Dish, Upload, ClimateProfile, Study, Plan, Company, User, Membership, Session };
 }

@@ -1,0 +1,35 @@
+import { DataTypes, Model, type InferAttributes, type InferCreationAttributes, type CreationOptional, type Sequelize } from 'sequelize';
+
+/** Where a dish goes: a customer's site, with coordinates as exact decimal strings (degrees, N/E positive). */
+export class Site extends Model<InferAttributes<Site>, InferCreationAttributes<Site>> {
+  declare id: CreationOptional<number>;
+  declare companyId: number;
+  declare customerId: number;
+  declare name: string;
+  declare address: string | null;
+  declare latDeg: string;
+  declare lonDeg: string;
+  declare altitudeM: string;
+  declare notes: string | null;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+}
+
+export function initSite(sequelize: Sequelize): void {
+  Site.init(
+    {
+      id: { type: DataTypes.INTEGER, primaryKey: true, autoIncrement: true },
+      companyId: { type: DataTypes.INTEGER, allowNull: false },
+      customerId: { type: DataTypes.INTEGER, allowNull: false },
+      name: { type: DataTypes.STRING(160), allowNull: false },
+      address: { type: DataTypes.STRING(300), allowNull: true },
+      latDeg: { type: DataTypes.DECIMAL(9, 6), allowNull: false },
+      lonDeg: { type: DataTypes.DECIMAL(10, 6), allowNull: false },
+      altitudeM: { type: DataTypes.DECIMAL(7, 1), allowNull: false },
+      notes: { type: DataTypes.TEXT, allowNull: true },
+      createdAt: DataTypes.DATE,
+      updatedAt: DataTypes.DATE,
+    },
+    { sequelize, tableName: 'sites', underscored: true },
+  );
+}
