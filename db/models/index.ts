@@ -4,6 +4,10 @@ import { Membership, initMembership } from './membership';
 import { Plan, initPlan } from './plan';
 import { Session, initSession } from './session';
 import { User, initUser } from './user';
+import { Invitation, initInvitation } from './invitation';
+import { PasswordResetToken, initPasswordResetToken } from './password-reset-token';
+import { SignInAttempt, initSignInAttempt } from './sign-in-attempt';
+import { AuditEvent, initAuditEvent } from './audit-event';
 // Studies (part A): customers, sites, services, dish catalogue, climate, uploads, studies.
 import { Customer, initCustomer } from './customer';
 import { Site, initSite } from './site';
@@ -14,6 +18,7 @@ import { ClimateProfile, initClimateProfile } from './climate-profile';
 import { Study, initStudy } from './study';
 
 export { Company, Membership, Plan, Session, User };
+export { Invitation, PasswordResetToken, SignInAttempt, AuditEvent };
 export type { CompanyRole } from './membership';
 export { Customer, Site, ServiceProfile, Dish, Upload, ClimateProfile, Study };
 export { COMPANY_ROLES } from './membership';
@@ -32,6 +37,10 @@ export function models() {
     initUser(sequelize);
     initMembership(sequelize);
     initSession(sequelize);
+    initInvitation(sequelize);
+    initPasswordResetToken(sequelize);
+    initSignInAttempt(sequelize);
+    initAuditEvent(sequelize);
 
     Company.belongsTo(Plan, { foreignKey: 'planId', as: 'plan' });
     Membership.belongsTo(Company, { foreignKey: 'companyId', as: 'company' });
@@ -39,6 +48,9 @@ export function models() {
     Company.hasMany(Membership, { foreignKey: 'companyId', as: 'memberships' });
     User.hasMany(Membership, { foreignKey: 'userId', as: 'memberships' });
     Session.belongsTo(User, { foreignKey: 'userId', as: 'user' });
+    Invitation.belongsTo(Company, { foreignKey: 'companyId', as: 'company' });
+    Invitation.belongsTo(User, { foreignKey: 'invitedByUserId', as: 'invitedBy' });
+    PasswordResetToken.belongsTo(User, { foreignKey: 'userId', as: 'user' });
     initCustomer(sequelize);
     initSite(sequelize);
     initServiceProfile(sequelize);
@@ -50,5 +62,5 @@ export function models() {
     Customer.hasMany(Site, { foreignKey: 'customerId', as: 'sites' });
     ready = true;
   }
-  return { sequelize: getSequelize(), Customer, Site, ServiceProfile, Dish, Upload, ClimateProfile, Study, Plan, Company, User, Membership, Session };
+  return { sequelize: getSequelize(), Customer, Site, ServiceProfile, Dish, Upload, ClimateProfile, Study, Plan, Company, User, Membership, Session, Invitation, PasswordResetToken, SignInAttempt, AuditEvent };
 }
