@@ -1,0 +1,33 @@
+import { requireNumberInRange } from './validate';
+
+/** ITU-R P.841 global rain parameters Q1 and β (from memory; the tests say so). */
+export const WORST_MONTH_Q1_P841 = 2.85;
+export const WORST_MONTH_BETA_P841 = 0.13;
+/** A month cannot hold more than 12 times the annual share (ITU-R P.841 caps Q at 12, from memory). */
+const MAX_Q_P841 = 12;
+/** Above 3 % of the year P.841 holds Q at its 3 % value (from memory). */
+const Q_FLAT_ABOVE_P_PERCENT_P841 = 3;
+
+/**
+ * Worst-month percentage p_w for an annual percentage p (ITU-R P.841): p_w = Q · p with
+ * Q = Q1 p^(−β), i.e. p_w = Q1 p^(1−β), Q1 = 2.85, β = 0.13 (global rain values, from memory).
+ * Q is capped at 12 (tiny p), held at its 3 % value for p > 3 %, and p_w is capped at 100 %.
+ *
+ * Bad input: p outside 0–100 % or NaN throws EngineInputError('pPercent'). p = 0 gives 0.
+ *
+ * @example
+ * worstMonthPercent({ pPercent: 0.01 }) // => 0.0679… (2.85 × 0.01^0.87)
+ */
+export function worstMonthPercent(options: { pPercent: number }): number {
+  const p = requireNumberInRange(options.pPercent, 'pPercent', 0, 100);
+  return worstMonthPercentUnchecked(p);
+}
+
+/** {@link worstMonthPercent} without validation (hot path). */
+export function worstMonthPercentUnchecked(p: number): number {
+  if (p <= 0) return 0;
+  const q = p > Q_FLAT_ABOVE_P_PERCENT_P841
+    ? WORST_MONTH_Q1_P841 * Q_FLAT_ABOVE_P_PERCENT_P841 ** -WORST_MONTH_BETA_P841
+    : Math.min(MAX_Q_P841, WORST_MONTH_Q1_P841 * p ** -WORST_MONTH_BETA_P841);
+  return Math.min(100, q * p);
+}
