@@ -16,12 +16,18 @@ import { Dish, initDish } from './dish';
 import { Upload, initUpload } from './upload';
 import { ClimateProfile, initClimateProfile } from './climate-profile';
 import { Study, initStudy } from './study';
+// Billing: subscriptions, checkouts opened from the app, webhook events received.
+import { Subscription, initSubscription } from './subscription';
+import { BillingCheckout, initBillingCheckout } from './billing-checkout';
+import { WebhookEvent, initWebhookEvent } from './webhook-event';
 
 export { Company, Membership, Plan, Session, User };
 export { Invitation, PasswordResetToken, SignInAttempt, AuditEvent };
 export type { CompanyRole } from './membership';
 export { Customer, Site, ServiceProfile, Dish, Upload, ClimateProfile, Study };
 export { COMPANY_ROLES } from './membership';
+export { Subscription, BillingCheckout, WebhookEvent };
+export type { SubscriptionStatus } from './subscription';
 
 let ready = false;
 
@@ -60,7 +66,12 @@ export function models() {
     initStudy(sequelize);
     Site.belongsTo(Customer, { foreignKey: 'customerId', as: 'customer' });
     Customer.hasMany(Site, { foreignKey: 'customerId', as: 'sites' });
+    initSubscription(sequelize);
+    initBillingCheckout(sequelize);
+    initWebhookEvent(sequelize);
+    Subscription.belongsTo(Plan, { foreignKey: 'planId', as: 'plan' });
+    Subscription.belongsTo(Company, { foreignKey: 'companyId', as: 'company' });
     ready = true;
   }
-  return { sequelize: getSequelize(), Customer, Site, ServiceProfile, Dish, Upload, ClimateProfile, Study, Plan, Company, User, Membership, Session, Invitation, PasswordResetToken, SignInAttempt, AuditEvent };
+  return { sequelize: getSequelize(), Customer, Site, ServiceProfile, Dish, Upload, ClimateProfile, Study, Plan, Company, User, Membership, Session, Invitation, PasswordResetToken, SignInAttempt, AuditEvent, Subscription, BillingCheckout, WebhookEvent };
 }
