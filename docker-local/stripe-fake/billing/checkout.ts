@@ -12,8 +12,10 @@ export function findOpenSession(ctx: FakeContext, id: string): CheckoutSession {
   const session = ctx.store.checkoutSessions.get(id);
   if (!session) throw noSuch('cs', id);
   if (session.status === 'open' && session.expires_at <= nowSeconds()) {
+    // Expiry is noticed lazily, on the next read, and announced as Stripe does.
     session.status = 'expired';
     session.url = null;
+    ctx.events.emit('checkout.session.expired', session);
   }
   return session;
 }

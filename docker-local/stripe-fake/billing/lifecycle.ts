@@ -114,6 +114,7 @@ export function failRenewal(ctx: FakeContext, subscription: Subscription): Invoi
     subscription.status = 'past_due';
     invoice = issueInvoice(ctx, subscription, 'subscription_cycle', false);
     markFailed(invoice);
+    customerOf(ctx, subscription).delinquent = true;
     ctx.events.emit('invoice.payment_failed', invoice);
   });
   return invoice as Invoice;
@@ -129,6 +130,7 @@ export function payOpenInvoice(ctx: FakeContext, subscription: Subscription): In
   changeSubscription(ctx, subscription, () => {
     markPaid(invoice);
     subscription.status = 'active';
+    customerOf(ctx, subscription).delinquent = false;
     ctx.events.emit('invoice.paid', invoice);
   });
   return invoice;
