@@ -622,6 +622,14 @@ describe('server.ts entry point', () => {
       expect(existsSync(pidFile)).toBe(false);
       expect(await fetch(`${line[1]}/_fake/health`).then(() => 'up', () => 'down')).toBe('down');
     } finally {
+      // On failure, stop the serving process too: killing only tsx would orphan it.
+      if (existsSync(pidFile)) {
+        try {
+          process.kill(Number(readFileSync(pidFile, 'utf8').trim()), 'SIGKILL');
+        } catch {
+          // Already gone.
+        }
+      }
       if (child.exitCode === null) child.kill('SIGKILL');
     }
   }, 20_000);
