@@ -79,7 +79,8 @@ export function measuredRainCurve(options: { points: readonly MeasuredRainPoint[
       const a = points[j];
       const b = points[j + 1];
       if (p === a.pPercent) return a.rainRateMmH;
-      if (p >= b.pPercent) {
+      if (p === b.pPercent) return b.rainRateMmH;
+      if (p > b.pPercent) {
         const t = Math.log(p / a.pPercent) / Math.log(b.pPercent / a.pPercent);
         return Math.exp(Math.log(a.rainRateMmH) + t * Math.log(b.rainRateMmH / a.rainRateMmH));
       }

@@ -2,8 +2,8 @@
  * Complementary error function and the standard-normal tail Q(z), to about 1e-14 relative —
  * JavaScript has no Math.erfc, and ITU-R P.837-7 Annex 1 step 4 needs Q(z) deep in the tail.
  *
- * Method (textbook, no ITU source): for |x| < 2.5 the everywhere-positive series
- * erf x = (2/√π) e^{−x²} Σ 2ⁿ x^{2n+1} / (1·3·…·(2n+1)), then erfc = 1 − erf; for x ≥ 2.5 the
+ * Method (textbook, no ITU source): for |x| < 1.2 the everywhere-positive series
+ * erf x = (2/√π) e^{−x²} Σ 2ⁿ x^{2n+1} / (1·3·…·(2n+1)), then erfc = 1 − erf; for x ≥ 1.2 the
  * Laplace continued fraction erfc x = (e^{−x²}/√π) · 1/(x + ½/(x + 1/(x + (3/2)/(x + …)))),
  * evaluated by the modified Lentz algorithm. erfc(−x) = 2 − erfc(x).
  *
@@ -26,8 +26,8 @@ export function normalTail(z: number): number {
   return 0.5 * erfc(z * Math.SQRT1_2);
 }
 
-/** Switch point between series and continued fraction (both are accurate to ~1e-14 here). */
-const SERIES_LIMIT = 2.5;
+/** Switch point between series and continued fraction (both are accurate to ~1e-15 here). */
+const SERIES_LIMIT = 1.2;
 const TWO_OVER_SQRT_PI = 1.1283791670955126;
 const ONE_OVER_SQRT_PI = 0.5641895835477563;
 

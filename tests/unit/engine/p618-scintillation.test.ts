@@ -1,0 +1,62 @@
+import { describe, expect, it } from 'vitest';
+import { EngineInputError, scintillationFade } from '@/server/engine';
+import { expectRelative, num, readReferenceCsv } from './reference-csv';
+
+// Source: ITU-R Study Group 3 validation examples for Rec. ITU-R P.618-14 §2.4.1 scintillation,
+// with the site's N_wet (ITU-R P.453); file itu-p618-scintillation.csv.
+const SOURCE = 'ITU-R SG 3 validation examples, Rec. ITU-R P.618-14 scintillation';
+const rows = readReferenceCsv('itu-p618-scintillation.csv');
+
+const BASE = { frequencyGHz: 14.25, elevationDeg: 31.076991235657, diameterM: 1, efficiency: 0.65, nWet: 50.38926222, pPercent: 1 };
+
+describe(`scintillationFade against ${SOURCE}`, () => {
+  it('reads all 24 reference rows', () => {
+    expect(rows).toHaveLength(24);
+  });
+
+  it.each(rows.map((r) => [r.site, r.frequency_ghz, r.p_percent, r] as const))('site %s, %s GHz, p = %s %%: A_s matches to 1e-4', (_s, _f, _p, row) => {
+    const a = scintillationFade({
+      frequencyGHz: num(row, 'frequency_ghz'),
+      elevationDeg: num(row, 'elevation_deg'),
+      diameterM: num(row, 'diameter_m'),
+      efficiency: num(row, 'efficiency'),
+      nWet: num(row, 'n_wet'),
+      pPercent: num(row, 'p_percent'),
+    });
+    expectRelative(a, num(row, 'scintillation_db'), 1e-4, `A_s (${SOURCE})`);
+  });
+});
+
+describe('scintillation behaviour (ITU-R P.618-14 §2.4.1)', () => {
+  it('a larger aperture averages out more scintillation (step 6, g(x) falls with x)', () => {
+    expect(scintillationFade({ ...BASE, diameterM: 2.4 })).toBeLessThan(scintillationFade({ ...BASE, diameterM: 0.6 }));
+  });
+  it('smaller p gives a deeper fade (step 8)', () => {
+    expect(scintillationFade({ ...BASE, pPercent: 0.01 })).toBeGreaterThan(scintillationFade({ ...BASE, pPercent: 10 }));
+  });
+});
+
+describe('edge cases', () => {
+  it('a huge aperture drives g(x) to zero rather than NaN (step 6: negative root argument → 0)', () => {
+    expect(scintillationFade({ ...BASE, diameterM: 200, frequencyGHz: 50 })).toBe(0);
+  });
+
+  it.each([
+    [{ pPercent: 0.005 }, 'pPercent'],
+    [{ pPercent: 60 }, 'pPercent'],
+    [{ elevationDeg: 4.9 }, 'elevationDeg'],
+    [{ diameterM: -1 }, 'diameterM'],
+    [{ diameterM: 0 }, 'diameterM'],
+    [{ efficiency: 1.2 }, 'efficiency'],
+    [{ nWet: Number.NaN }, 'nWet'],
+    [{ frequencyGHz: 70 }, 'frequencyGHz'],
+  ])('%o throws EngineInputError naming %s', (patch, field) => {
+    try {
+      scintillationFade({ ...BASE, ...patch });
+      expect.unreachable('should have thrown');
+    } catch (e) {
+      expect(e).toBeInstanceOf(EngineInputError);
+      expect((e as EngineInputError).field).toBe(field);
+    }
+  });
+});
