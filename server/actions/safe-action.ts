@@ -1,0 +1,85 @@
+import 'server-only';
+import { z } from 'zod';
+import { unstable_rethrow } from 'next/navigation';
+import { AppError, InvalidInputError } from '@/server/errors';
+import { resolveAccess, type Access, type ContextForAccess } from '@/server/auth/access';
+
+/**
+ * What every server action returns to its form (React's useActionState). Failures carry a
+ * message for the status line, an error code (e.g. 'forbidden', 'plan_limit'), field errors,
+ * and the non-secret values typed so the form can be refilled — never a password or token.
+ */
+export type ActionState<T = unknown> =
+  | { ok: true; data?: T; message?: string }
+  | { ok: false; error: string; code?: string; fieldErrors?: Record<string, string[]>; values?: Record<string, string> };
+
+export type ActionInput = FormData | Record<string, unknown>;
+
+/** A wrapped action: `(previousState, formData | plainObject) => ActionState`. */
+export type SafeAction<T> = (prev: ActionState<T> | null, input: ActionInput) => Promise<ActionState<T>>;
+
+export type ActionResult<T> = { data?: T; message?: string } | void;
+
+const SECRET_FIELD = /pass|token|secret|code/i;
+
+/** FormData to a plain object: repeated names become arrays; Next's internal fields are dropped. */
+export function formDataToObject(form: FormData): Record<string, unknown> {
+  const out: Record<string, unknown> = {};
+  for (const key of new Set(form.keys())) {
+    if (key.startsWith('$ACTION')) continue;
+    const all = form.getAll(key);
+    out[key] = all.length === 1 ? all[0] : all;
+  }
+  return out;
+}
+
+function echoValues(raw: Record<string, unknown>): Record<string, string> {
+  const values: Record<string, string> = {};
+  for (const [k, v] of Object.entries(raw)) if (typeof v === 'string' && !SECRET_FIELD.test(k)) values[k] = v.slice(0, 2000);
+  return values;
+}
+
+/** zod issues as { field: [messages] }, keyed by the dotted path ("" for the whole form). */
+export function fieldErrorsFrom(error: z.ZodError): Record<string, string[]> {
+  const out: Record<string, string[]> = {};
+  for (const issue of error.issues) {
+    const key = issue.path.map(String).join('.');
+    (out[key] ??= []).push(issue.message);
+  }
+  return out;
+}
+
+/**
+ * The one wrapper for server actions: authorise (session, role, company) FIRST, then validate
+ * with the shared zod schema, then run. AppErrors become `{ ok: false, error, code }`; redirects
+ * and notFound pass through; anything else is logged and reported without detail.
+ *
+ * @example
+ *   export const inviteMember = safeAction({ schema: inviteSchema, permission: 'team.manage' },
+ *     async (input, ctx) => { …; return { message: 'Invitation sent.' }; });
+ */
+export function safeAction<S extends z.ZodType, A extends Access, T = unknown>(
+  opts: { schema: S; permission: A },
+  fn: (input: z.output<S>, ctx: ContextForAccess<A>) => Promise<ActionResult<T>>,
+): SafeAction<T> {
+  return async (_prev, input) => {
+    const raw = input instanceof FormData ? formDataToObject(input) : { ...(input ?? {}) };
+    try {
+      const ctx = await resolveAccess(opts.permission);
+      const parsed = opts.schema.safeParse(raw);
+      if (!parsed.success) {
+        return { ok: false, error: 'Please check the highlighted fields.', code: 'invalid_input', fieldErrors: fieldErrorsFrom(parsed.error), values: echoValues(raw) };
+      }
+      const result = await fn(parsed.data, ctx);
+      return { ok: true, ...(result ?? {}) };
+    } catch (error) {
+      unstable_rethrow(error);
+      if (error instanceof InvalidInputError) {
+        return { ok: false, error: error.message, code: error.code, fieldErrors: error.fieldErrors, values: echoValues(raw) };
+      }
+      if (error instanceof AppError) return { ok: false, error: error.message, code: error.code, values: echoValues(raw) };
+      console.error('action failed:', error);
+      return { ok: false, error: 'Something went wrong on our side. Nothing was changed; please try again.', code: 'internal', values: echoValues(raw) };
+    }
+  };
+}
