@@ -1,0 +1,23 @@
+import type { TradeoffScenario } from '@/server/engine';
+
+/**
+ * Invented demo scenario (no real site, satellite or price): a Ku-band DTH-like carrier at a
+ * mid-latitude site, eight dish sizes. Numbers are plausible, not from any product.
+ */
+export function demoScenario(patch: Partial<TradeoffScenario> = {}): TradeoffScenario {
+  return {
+    site: { latDeg: 41.9, lonDeg: 12.49, altitudeKm: 0.05 },
+    satellite: { longitudeDeg: 13 },
+    downlink: { frequencyGHz: 11.7, tiltDeg: 0, eirpDbw: 50, symbolRateMsps: 27.5, requiredEsN0Db: 7.91, implementationMarginDb: 1 },
+    receiver: { lnbNoiseTempK: 60, antennaNoiseTempK: 35 },
+    rain: { r001MmH: 33.9, rainHeightKm: 3.05 },
+    dishes: [0.45, 0.6, 0.75, 0.9, 1.0, 1.2, 1.5, 1.8].map((d, i) => ({
+      diameterM: d,
+      efficiency: 0.65,
+      priceUsd: (79.9 + 60 * i).toFixed(2),
+      labourUsd: '120.00',
+    })),
+    targetAvailabilityPercent: 99.9,
+    ...patch,
+  };
+}
