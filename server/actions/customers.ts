@@ -1,0 +1,27 @@
+'use server';
+
+import { revalidatePath } from 'next/cache';
+import { safeAction } from './safe-action';
+import { customerIdSchema, customerSchema, customerUpdateSchema } from '@/server/validation/customer';
+import * as customers from '@/db/queries/customers';
+import { ConflictError, NotFoundError } from '@/server/errors';
+
+export const createCustomer = safeAction({ schema: customerSchema, permission: 'customer.write' }, async (input, ctx) => {
+  const row = await customers.createCustomer(ctx.companyId, input);
+  revalidatePath('/customers');
+  return { data: { id: row.id }, message: `Customer ${row.name} added.` };
+});
+
+export const updateCustomer = safeAction({ schema: customerUpdateSchema, permission: 'customer.write' }, async (input, ctx) => {
+  if (!(await customers.updateCustomer(ctx.companyId, input.id, input))) throw new NotFoundError('That customer');
+  revalidatePath('/customers');
+  return { data: { id: input.id }, message: `Customer ${input.name} saved.` };
+});
+
+export const deleteCustomer = safeAction({ schema: customerIdSchema, permission: 'customer.write' }, async (input, ctx) => {
+  const outcome = await customers.deleteCustomer(ctx.companyId, input.id);
+  if (outcome === 'missing') throw new NotFoundError('That customer');
+  if (outcome === 'has-sites') throw new ConflictError('This customer still has sites. Move or delete the sites first.');
+  revalidatePath('/customers');
+  return { message: 'Customer deleted.' };
+});

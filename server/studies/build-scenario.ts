@@ -1,0 +1,88 @@
+import { geoLookAngles } from '@/server/engine';
+import type { TradeoffScenario } from '@/server/engine/tradeoff-types';
+import type { RainClimateInput } from '@/server/engine/rain-climate-source';
+import type { ClimateZone } from '@/server/engine/p837-1-climate-zones';
+import type { ClimateSnapshot, DishSnapshot, ServiceSnapshot, SiteSnapshot } from './snapshot';
+
+/** ITU-R P.838-3: τ = 45° for circular polarization. */
+const CIRCULAR_TILT_DEG = 45;
+
+/**
+ * Polarization tilt τ of ITU-R P.838-3 (angle of the E-field to the local horizontal) for a linear
+ * carrier: the satellite's H or V plane turned by the skew at this site (engine geoLookAngles),
+ * plus any tilt the operator states for the carrier. P.838 only uses cos 2τ, so τ is folded into 0–90°.
+ *
+ * @example downlinkTiltDeg('linear-horizontal', 0, 12) // => 12
+ */
+export function downlinkTiltDeg(polarization: ServiceSnapshot['polarization'], offsetDeg: number, skewDeg: number): number {
+  if (polarization === 'circular') return CIRCULAR_TILT_DEG;
+  const base = polarization === 'linear-vertical' ? 90 : 0;
+  const t = (((base + skewDeg + offsetDeg) % 180) + 180) % 180;
+  return Math.round((t > 90 ? 180 - t : t) * 1e6) / 1e6;
+}
+
+/** The study's climate profile as the engine's rain input (engine.md §1), with its rain height. */
+export function rainInputOf(climate: ClimateSnapshot): RainClimateInput {
+  const height = climate.zeroIsothermKm === null ? {} : { zeroIsothermHeightKm: climate.zeroIsothermKm };
+  const data = climate.data as Record<string, unknown>;
+  switch (climate.kind) {
+    case 'known-r001':
+      return { r001MmH: data.r001MmH as number, ...height };
+    case 'monthly-normals':
+      return { monthlyRainfallMm: data.monthlyRainfallMm as number[], monthlyTemperatureC: data.monthlyTemperatureC as number[], ...height };
+    case 'measured-curve':
+      return { measuredCurve: data.points as { pPercent: number; rainRateMmH: number }[], ...height };
+    case 'climate-zone':
+      return { climateZone: data.zone as ClimateZone, ...height };
+  }
+}
+
+/**
+ * Site + service + climate + the chosen dishes → the engine scenario of dishTradeoff (issue 3).
+ * Dishes go in ascending diameter so the table reads small to large and the baseline is the smallest.
+ */
+export function buildScenario(o: {
+  site: SiteSnapshot;
+  service: ServiceSnapshot;
+  climate: ClimateSnapshot;
+  dishes: DishSnapshot[];
+  targetAvailabilityPercent: number;
+}): { scenario: TradeoffScenario; downlinkTiltDeg: number; dishes: DishSnapshot[] } {
+  const site = { latDeg: o.site.latDeg, lonDeg: o.site.lonDeg, altitudeKm: o.site.altitudeM / 1000 };
+  const look = geoLookAngles({ ...site, satelliteLongitudeDeg: o.service.satelliteLongitudeDeg });
+  const tilt = downlinkTiltDeg(o.service.polarization, o.service.polarizationTiltDeg, look.polarizationSkewDeg);
+  const dishes = [...o.dishes].sort((a, b) => a.diameterM - b.diameterM || a.name.localeCompare(b.name));
+  const s = o.service;
+  const scenario: TradeoffScenario = {
+    site,
+    satellite: { longitudeDeg: s.satelliteLongitudeDeg },
+    downlink: {
+      frequencyGHz: s.downlinkFrequencyGHz,
+      tiltDeg: tilt,
+      eirpDbw: s.eirpDbw,
+      symbolRateMsps: s.symbolRateMsps,
+      requiredEsN0Db: s.requiredEsN0Db,
+      implementationMarginDb: s.implementationMarginDb,
+      otherLossesDb: s.otherLossesDb,
+    },
+    receiver: { lnbNoiseTempK: s.lnbNoiseTempK, antennaNoiseTempK: s.antennaNoiseTempK },
+    rain: rainInputOf(o.climate),
+    dishes: dishes.map((d) => ({ diameterM: d.diameterM, efficiency: d.efficiency, priceUsd: d.hardwarePrice, labourUsd: d.labourPrice })),
+    targetAvailabilityPercent: o.targetAvailabilityPercent,
+  };
+  if (s.uplink) {
+    scenario.uplink = {
+      frequencyGHz: s.uplink.frequencyGHz,
+      // Return carriers of two-way terminals use the orthogonal linear polarization of the
+      // forward carrier (common practice, no source); circular stays at 45°.
+      tiltDeg: s.polarization === 'circular' ? CIRCULAR_TILT_DEG : 90 - tilt,
+      terminalEirpDbw: s.uplink.terminalEirpDbw,
+      satelliteGOverTDbK: s.uplink.satelliteGOverTDbK,
+      symbolRateMsps: s.uplink.symbolRateMsps,
+      requiredEsN0Db: s.uplink.requiredEsN0Db,
+      implementationMarginDb: s.uplink.implementationMarginDb,
+    };
+  }
+  if (s.acmModcods && s.acmModcods.length) scenario.acm = { modcods: s.acmModcods };
+  return { scenario, downlinkTiltDeg: tilt, dishes };
+}

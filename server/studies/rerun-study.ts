@@ -1,0 +1,78 @@
+import 'server-only';
+import { models } from '@/db/models';
+import { getCustomer } from '@/db/queries/customers';
+import { getSite } from '@/db/queries/sites';
+import { getServiceProfile } from '@/db/queries/service-profiles';
+import { getClimateProfile } from '@/db/queries/climate-profiles';
+import { getDishesByIds } from '@/db/queries/dishes';
+import { getStudy, insertStudy, nextRevision } from '@/db/queries/studies';
+import { ConflictError, NotFoundError } from '@/server/errors';
+import { computeStudy } from './compute-study';
+import { recommendedDiameterOf, type StudyActor } from './create-study';
+import { toStudyInputError } from './engine-errors';
+import { assertStudyWithinPlan } from './plan-limit';
+import { climateSnapshotOf, dishSnapshotOf, serviceSnapshotOf, siteSnapshotOf } from './snapshot-of';
+
+/**
+ * Re-run a study with today's site, service, climate and catalogue rows and today's engine, as
+ * a new revision of the same chain. The old study is left exactly as it was: quotes made from it
+ * keep their figures.
+ */
+export async function rerunStudy(actor: StudyActor, studyId: number): Promise<{ id: number; revision: number }> {
+  const { sequelize } = models();
+  const { companyId } = actor;
+  return sequelize.transaction(async (t) => {
+    const old = await getStudy(companyId, studyId, t);
+    if (!old) throw new NotFoundError('That study');
+    await assertStudyWithinPlan(companyId, t);
+
+    const gone = (what: string) => new ConflictError(`The ${what} of this study has been deleted; start a new study instead.`);
+    const site = old.siteId ? await getSite(companyId, old.siteId, t) : null;
+    if (!site) throw gone('site');
+    const customer = await getCustomer(companyId, site.customerId, t);
+    if (!customer) throw gone('customer');
+    const service = old.serviceProfileId ? await getServiceProfile(companyId, old.serviceProfileId, t) : null;
+    if (!service) throw gone('service profile');
+    const climate = old.climateProfileId ? await getClimateProfile(companyId, old.climateProfileId, t) : null;
+    if (!climate) throw gone('climate profile');
+    const ids = old.inputs.dishes.map((d) => d.dishId).filter((id): id is number => id !== null);
+    const dishes = await getDishesByIds(companyId, ids, t);
+    if (dishes.length === 0) throw gone('dish selection');
+
+    let computed;
+    try {
+      computed = computeStudy({
+        site: siteSnapshotOf(site, customer.name),
+        service: serviceSnapshotOf(service),
+        climate: climateSnapshotOf(climate),
+        dishes: dishes.map(dishSnapshotOf),
+        targetAvailabilityPercent: old.targetAvailabilityPercent,
+      });
+    } catch (e) {
+      toStudyInputError(e);
+    }
+    const rootId = old.revisionOfStudyId ?? old.id;
+    const revision = await nextRevision(companyId, rootId, t);
+    const id = await insertStudy(
+      companyId,
+      {
+        customerId: customer.id,
+        siteId: site.id,
+        serviceProfileId: service.id,
+        climateProfileId: climate.id,
+        revisionOfStudyId: rootId,
+        revision,
+        title: old.title,
+        customerName: customer.name,
+        siteName: site.name,
+        serviceName: service.name,
+        recommendedDiameterM: recommendedDiameterOf(computed.result),
+        inputs: computed.inputs,
+        result: computed.result,
+        createdByUserId: actor.userId,
+      },
+      t,
+    );
+    return { id, revision };
+  });
+}

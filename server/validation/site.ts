@@ -1,0 +1,21 @@
+import { z } from 'zod';
+import { coordinateField, idField, numberIn, optionalText, requiredText } from './fields';
+
+/** Site altitude above mean sea level, m: from the Dead Sea shore to high plateaus. */
+export const SITE_ALTITUDE_M = { min: -450, max: 6000 } as const;
+
+/** Fields of a site; latitude and longitude accept decimal degrees or DMS (server/validation/coordinates.ts). */
+export const siteFields = {
+  name: requiredText('Site name', 160),
+  address: optionalText('Address', 300),
+  latDeg: coordinateField('lat'),
+  lonDeg: coordinateField('lon'),
+  altitudeM: z.preprocess((v) => (v === undefined || v === null || (typeof v === 'string' && v.trim() === '') ? 0 : v), numberIn('Altitude', SITE_ALTITUDE_M.min, SITE_ALTITUDE_M.max, 'm')),
+  notes: optionalText('Notes', 2000),
+};
+
+export const siteSchema = z.object({ customerId: idField('customer'), ...siteFields });
+export type SiteInput = z.infer<typeof siteSchema>;
+
+export const siteUpdateSchema = siteSchema.extend({ id: idField('site') });
+export const siteIdSchema = z.object({ id: idField('site') });

@@ -1,0 +1,78 @@
+import { z } from 'zod';
+import { parseCoordinate } from './coordinates';
+import { idField, idListField, numberIn, optionalText } from './fields';
+import { SITE_ALTITUDE_M } from './site';
+
+/** Availability targets a study may aim at, %: below 90 % nobody sells a service; P.618 ends at 99.999 %. */
+export const TARGET_AVAILABILITY_PERCENT = { min: 90, max: 99.999, default: 99.9 } as const;
+/** Dishes compared in one study (a table that still reads on a phone). */
+export const STUDY_DISHES = { min: 1, max: 12 } as const;
+
+const optionalIdField = (label: string) =>
+  z.preprocess((v) => (v === undefined || v === null || v === '' ? undefined : v), idField(label).optional());
+
+/**
+ * The new-study form. The customer and the site are either picked (`customerId`, `siteId`) or
+ * typed in (`newCustomerName`; `siteName` + coordinates in decimal degrees or DMS + altitude),
+ * chosen by `customerMode` / `siteMode`. The same schema runs in the browser and in the action.
+ */
+export const newStudySchema = z
+  .object({
+    title: optionalText('Title', 200),
+    customerMode: z.enum(['existing', 'new']).default('existing'),
+    customerId: optionalIdField('customer'),
+    newCustomerName: optionalText('Customer name', 160),
+    siteMode: z.enum(['existing', 'new']).default('existing'),
+    siteId: optionalIdField('site'),
+    siteName: optionalText('Site name', 160),
+    latDeg: z.union([z.string(), z.number()]).optional(),
+    lonDeg: z.union([z.string(), z.number()]).optional(),
+    altitudeM: z.union([z.string(), z.number()]).optional(),
+    serviceProfileId: idField('service profile'),
+    climateProfileId: idField('climate profile'),
+    dishIds: idListField('dishes', STUDY_DISHES.min, STUDY_DISHES.max),
+    targetAvailabilityPercent: z.preprocess(
+      (v) => (v === undefined || v === null || v === '' ? TARGET_AVAILABILITY_PERCENT.default : v),
+      numberIn('Target availability', TARGET_AVAILABILITY_PERCENT.min, TARGET_AVAILABILITY_PERCENT.max, '%'),
+    ),
+  })
+  .transform((v, ctx) => {
+    let customer: { id: number } | { name: string } | null = null;
+    if (v.customerMode === 'new') {
+      if (!v.newCustomerName) ctx.addIssue({ code: 'custom', path: ['newCustomerName'], message: 'Customer name is required.' });
+      else customer = { name: v.newCustomerName };
+    } else if (v.customerId === undefined) {
+      ctx.addIssue({ code: 'custom', path: ['customerId'], message: 'Choose a customer.' });
+    } else customer = { id: v.customerId };
+
+    let site: { id: number } | { name: string; latDeg: number; lonDeg: number; altitudeM: number } | null = null;
+    if (v.siteMode === 'new' || v.customerMode === 'new') {
+      if (!v.siteName) ctx.addIssue({ code: 'custom', path: ['siteName'], message: 'Site name is required.' });
+      const lat = parseCoordinate(String(v.latDeg ?? ''), 'lat');
+      const lon = parseCoordinate(String(v.lonDeg ?? ''), 'lon');
+      if (!lat.ok) ctx.addIssue({ code: 'custom', path: ['latDeg'], message: lat.error });
+      if (!lon.ok) ctx.addIssue({ code: 'custom', path: ['lonDeg'], message: lon.error });
+      const altText = v.altitudeM === undefined || String(v.altitudeM).trim() === '' ? '0' : String(v.altitudeM).trim();
+      const alt = /^[+-]?\d+(\.\d+)?$/.test(altText) ? Number(altText) : Number.NaN;
+      if (!(alt >= SITE_ALTITUDE_M.min && alt <= SITE_ALTITUDE_M.max)) {
+        ctx.addIssue({ code: 'custom', path: ['altitudeM'], message: `Altitude must be between ${SITE_ALTITUDE_M.min} and ${SITE_ALTITUDE_M.max} m.` });
+      }
+      if (v.siteName && lat.ok && lon.ok && Number.isFinite(alt)) site = { name: v.siteName, latDeg: lat.value, lonDeg: lon.value, altitudeM: alt };
+    } else if (v.siteId === undefined) {
+      ctx.addIssue({ code: 'custom', path: ['siteId'], message: 'Choose a site.' });
+    } else site = { id: v.siteId };
+
+    if (!customer || !site) return z.NEVER;
+    return {
+      title: v.title,
+      customer,
+      site,
+      serviceProfileId: v.serviceProfileId,
+      climateProfileId: v.climateProfileId,
+      dishIds: v.dishIds,
+      targetAvailabilityPercent: v.targetAvailabilityPercent,
+    };
+  });
+export type NewStudyInput = z.infer<typeof newStudySchema>;
+
+export const studyIdSchema = z.object({ id: idField('study') });
