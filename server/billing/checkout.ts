@@ -1,0 +1,105 @@
+import 'server-only';
+import { findLiveSubscription, getCompanyBilling, getPlanById, insertCheckout, setPendingPlan } from '@/db/queries/billing';
+import { getEnv } from '@/server/env';
+import { AppError, ConflictError, NotFoundError } from '@/server/errors';
+import { ensureProviderCustomer } from './customer';
+import { ensureSellablePrice } from './plan-sync';
+import { OVERDUE_STATUSES } from './policy';
+import { getStripe, providerMessage } from './stripe';
+
+export type BillingActor = { companyId: number; userId: string; email: string };
+
+function appUrl(path: string): string {
+  return new URL(path, getEnv().APP_URL).toString();
+}
+
+async function sellablePlan(planId: number) {
+  const plan = await getPlanById(planId);
+  // Non-public plans are sold by staff arrangement only, not from the picker.
+  if (!plan || plan.kind !== 'paid' || !plan.isPublic) throw new NotFoundError('That plan');
+  return plan;
+}
+
+function providerFailure(error: unknown): never {
+  if (error instanceof AppError) throw error;
+  throw new AppError(providerMessage(error), 502, 'provider_error');
+}
+
+/**
+ * Opens a hosted checkout for a paid plan and returns its URL. The plan becomes active only when
+ * the provider's webhook says the subscription is paid; the return page waits for that.
+ */
+export async function startCheckout(actor: BillingActor, planId: number): Promise<{ url: string; sessionId: string }> {
+  const plan = await sellablePlan(planId);
+  const live = await findLiveSubscription(actor.companyId);
+  if (live) throw new ConflictError('Your company already has a subscription: change its plan instead of starting a new checkout.');
+  try {
+    const price = await ensureSellablePrice(plan);
+    const customer = await ensureProviderCustomer(actor.companyId, actor.email);
+    const metadata = { fadeledger_company_id: String(actor.companyId), fadeledger_plan_id: String(plan.id) };
+    const session = await getStripe().checkout.sessions.create({
+      mode: 'subscription',
+      customer,
+      line_items: [{ price, quantity: 1 }],
+      success_url: `${appUrl('/settings/billing/return')}?session_id={CHECKOUT_SESSION_ID}`,
+      cancel_url: appUrl('/settings/billing?checkout=canceled'),
+      client_reference_id: String(actor.companyId),
+      metadata,
+      subscription_data: { metadata },
+    });
+    if (!session.url) throw new AppError('The payment provider returned no checkout page.', 502, 'provider_error');
+    await insertCheckout({
+      companyId: actor.companyId,
+      planId: plan.id,
+      providerSessionId: session.id,
+      createdByUserId: actor.userId,
+      expiresAt: new Date((session.expires_at ?? Math.floor(Date.now() / 1000) + 86_400) * 1000),
+    });
+    return { url: session.url, sessionId: session.id };
+  } catch (error) {
+    providerFailure(error);
+  }
+}
+
+/**
+ * Moves the live subscription to another paid plan at the provider (prorated). The company's plan
+ * changes when the provider's `customer.subscription.updated` arrives; until then it is pending.
+ */
+export async function changePlan(actor: BillingActor, planId: number): Promise<{ planName: string }> {
+  const plan = await sellablePlan(planId);
+  const live = await findLiveSubscription(actor.companyId);
+  if (!live) throw new ConflictError('There is no subscription to change yet: choose a plan to check out.');
+  if ((OVERDUE_STATUSES as readonly string[]).includes(live.status)) {
+    throw new ConflictError('A payment is overdue: pay the open invoice in the billing portal before changing plan.');
+  }
+  if (live.planId === plan.id) throw new ConflictError(`You are already on ${plan.name}.`);
+  try {
+    const price = await ensureSellablePrice(plan);
+    const stripe = getStripe();
+    const current = await stripe.subscriptions.retrieve(live.providerSubscriptionId);
+    const item = current.items.data[0];
+    if (!item) throw new AppError('The subscription has no item to change at the payment provider.', 502, 'provider_error');
+    await stripe.subscriptions.update(live.providerSubscriptionId, {
+      items: [{ id: item.id, price }],
+      proration_behavior: 'create_prorations',
+      metadata: { fadeledger_company_id: String(actor.companyId), fadeledger_plan_id: String(plan.id) },
+    });
+    await setPendingPlan(actor.companyId, live.id, plan.id);
+    return { planName: plan.name };
+  } catch (error) {
+    providerFailure(error);
+  }
+}
+
+/** A short-lived link to the provider's billing portal (card, invoices, plan change, cancel). */
+export async function openBillingPortal(actor: BillingActor): Promise<string> {
+  const company = await getCompanyBilling(actor.companyId);
+  if (!company?.stripeCustomerId) throw new ConflictError('There is no billing account yet: choose a paid plan first.');
+  try {
+    const customer = await ensureProviderCustomer(actor.companyId, actor.email);
+    const session = await getStripe().billingPortal.sessions.create({ customer, return_url: appUrl('/settings/billing') });
+    return session.url;
+  } catch (error) {
+    providerFailure(error);
+  }
+}
