@@ -20,6 +20,10 @@ import { Study, initStudy } from './study';
 import { Subscription, initSubscription } from './subscription';
 import { BillingCheckout, initBillingCheckout } from './billing-checkout';
 import { WebhookEvent, initWebhookEvent } from './webhook-event';
+// Quotes (part B): quotes, their status history, comparison links.
+import { Quote, initQuote } from './quote';
+import { QuoteEvent, initQuoteEvent } from './quote-event';
+import { ShareLink, initShareLink } from './share-link';
 
 export { Company, Membership, Plan, Session, User };
 export { Invitation, PasswordResetToken, SignInAttempt, AuditEvent };
@@ -28,6 +32,7 @@ export { Customer, Site, ServiceProfile, Dish, Upload, ClimateProfile, Study };
 export { COMPANY_ROLES } from './membership';
 export { Subscription, BillingCheckout, WebhookEvent };
 export type { SubscriptionStatus } from './subscription';
+export { Quote, QuoteEvent, ShareLink };
 
 let ready = false;
 
@@ -71,7 +76,10 @@ export function models() {
     initWebhookEvent(sequelize);
     Subscription.belongsTo(Plan, { foreignKey: 'planId', as: 'plan' });
     Subscription.belongsTo(Company, { foreignKey: 'companyId', as: 'company' });
+    initQuote(sequelize);
+    initQuoteEvent(sequelize);
+    initShareLink(sequelize);
     ready = true;
   }
-  return { sequelize: getSequelize(), Customer, Site, ServiceProfile, Dish, Upload, ClimateProfile, Study, Plan, Company, User, Membership, Session, Invitation, PasswordResetToken, SignInAttempt, AuditEvent, Subscription, BillingCheckout, WebhookEvent };
+  return { sequelize: getSequelize(), Customer, Site, ServiceProfile, Dish, Upload, ClimateProfile, Study, Plan, Company, User, Membership, Session, Invitation, PasswordResetToken, SignInAttempt, AuditEvent, Subscription, BillingCheckout, WebhookEvent, Quote, QuoteEvent, ShareLink };
 }

@@ -1,0 +1,79 @@
+import type { ExceedanceBound } from '@/server/engine/p618-rain-path';
+
+/**
+ * What a quote keeps of its study, frozen at creation: the customer is shown exactly these
+ * figures for as long as the quote lives, whatever happens to the study, the catalogue or the
+ * engine later. Plain JSON: numbers as numbers, money as decimal strings.
+ */
+
+export const QUOTE_STATUSES = ['draft', 'sent', 'viewed', 'accepted', 'declined', 'expired'] as const;
+export type QuoteStatus = (typeof QUOTE_STATUSES)[number];
+
+/** Statuses in which the customer may still decide. */
+export const OPEN_STATUSES: readonly QuoteStatus[] = ['sent', 'viewed'];
+/** Statuses after which nothing changes any more. */
+export const FINAL_STATUSES: readonly QuoteStatus[] = ['accepted', 'declined', 'expired'];
+
+/** Outage of one option on the study's basis (downlink alone, or two-way for VSAT terminals). */
+export interface QuoteOutage {
+  outagePercent: number;
+  /** 'below-model-range': the figures are upper bounds; 'above-model-range': lower bounds (ITU-R P.618-14 range 0.001–5 %). */
+  outageBound: ExceedanceBound;
+  availabilityPercent: number;
+  outageMinutesPerYear: number;
+  worstMonthOutageMinutes: number;
+  /** Two-way outage is p_up + p_down, an upper bound on the true figure (engine.md §4). */
+  isUpperBound: boolean;
+}
+
+/** One option as the customer sees it. */
+export interface QuoteOptionSnapshot {
+  /** Index of the option in the study's trade-off (input order, ascending diameter). */
+  index: number;
+  dishName: string;
+  diameterM: number;
+  gainDbi: number;
+  gOverTDbK: number;
+  /** Clear-sky margin, dB; ≤ 0 means the dish does not receive the service at all. */
+  marginDb: number;
+  closes: boolean;
+  fadeThresholdDb: number | null;
+  outage: QuoteOutage;
+  meetsTarget: boolean | null;
+  minutesSavedPerYear: number;
+  /** Catalogue prices of the study (exact decimal strings), before extras, discount and tax. */
+  hardwarePrice: string;
+  labourPrice: string;
+  cataloguePrice: string;
+  mountNotes: string | null;
+  /** The engine's pick: smallest dish meeting the target availability. */
+  smallestMeetingTarget: boolean;
+  /** The engine's pick: lowest price per minute saved. */
+  bestValue: boolean;
+}
+
+export interface QuoteStudySnapshot {
+  schemaVersion: 1;
+  studyId: number;
+  studyTitle: string;
+  studyRevision: number;
+  engineVersion: string;
+  computedAt: string;
+  site: { name: string; customerName: string; latDeg: number; lonDeg: number; altitudeM: number };
+  service: {
+    name: string;
+    satelliteName: string;
+    satelliteLongitudeDeg: number;
+    downlinkFrequencyGHz: number;
+    polarization: string;
+    modcod: string | null;
+    /** A terminal that also transmits (VSAT return link): RF exposure caution applies. */
+    transmits: boolean;
+  };
+  climate: { name: string; sourceNote: string };
+  pointing: { azimuthDeg: number; elevationDeg: number; polarizationSkewDeg: number };
+  targetAvailabilityPercent: number | null;
+  basis: 'downlink' | 'two-way';
+  /** Engine warnings as written for people. */
+  warnings: { code: string; message: string; optionIndex?: number }[];
+}
