@@ -52,7 +52,7 @@ export function readCsvTable(text: string, spec: { required: readonly string[]; 
   Papa.parse<string[]>(body, {
     header: false,
     skipEmptyLines: false,
-    delimitersToGuess: [',', ';', '\t'],
+    delimiter: guessDelimiter(body),
     step: (result) => {
       const end = result.meta.cursor;
       // Line of this record = 1 + newlines before its first character (quoted cells may span lines).
@@ -102,6 +102,15 @@ export function readCsvTable(text: string, spec: { required: readonly string[]; 
     rows.push({ line: record.line, values });
   }
   return { columns, rows, problems, ignoredColumns: columns.filter((c) => c !== '' && !known.has(c)) };
+}
+
+/** The separator of the header line: whichever of , ; tab appears most outside quotes (comma on a tie). */
+function guessDelimiter(text: string): string {
+  const firstLine = text.split(/\r?\n/).find((l) => l.trim() !== '') ?? '';
+  const unquoted = firstLine.replace(/"[^"]*"/g, '');
+  const counts = [',', ';', '\t'].map((d) => ({ d, n: unquoted.split(d).length - 1 }));
+  const best = counts.reduce((a, b) => (b.n > a.n ? b : a));
+  return best.n > 0 ? best.d : ',';
 }
 
 function countNewlines(s: string, from: number, to: number): number {

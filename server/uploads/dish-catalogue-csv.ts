@@ -54,6 +54,11 @@ export function parseDishCatalogueCsv(text: string, meta: { filename: string; si
     const v = row.values;
     // Numbers are checked as spreadsheet cells first ("12,5" or "abc" is wrong on this line), then by the shared dish schema.
     const cellProblems: CsvProblem[] = [];
+    // Names are registered before any other check, so a duplicate is reported even when the first row has other faults.
+    const key = v.name.trim().toLowerCase();
+    const first = key ? names.get(key) : undefined;
+    if (first !== undefined) cellProblems.push({ line: row.line, column: 'name', message: `Line ${row.line}, name: "${v.name.trim()}" is already on line ${first}; each dish name once.` });
+    else if (key) names.set(key, row.line);
     for (const col of ['diameter_m', 'efficiency'] as const) {
       if (v[col] === '') cellProblems.push({ line: row.line, column: col, message: `Line ${row.line}, ${col}: a value is required.` });
       else if (parseDecimalCell(v[col]) === null) cellProblems.push({ line: row.line, column: col, message: `Line ${row.line}, ${col}: "${v[col]}" is not a number (use a decimal point, e.g. 0.65).` });
@@ -79,13 +84,6 @@ export function parseDishCatalogueCsv(text: string, meta: { filename: string; si
       }
       continue;
     }
-    const key = parsed.data.name.toLowerCase();
-    const first = names.get(key);
-    if (first !== undefined) {
-      problems.push({ line: row.line, column: 'name', message: `Line ${row.line}, name: "${parsed.data.name}" is already on line ${first}; each dish name once.` });
-      continue;
-    }
-    names.set(key, row.line);
     rows.push({ line: row.line, ...parsed.data, active: active as boolean });
   }
   const report = buildReport({
