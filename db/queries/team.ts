@@ -1,5 +1,5 @@
 import 'server-only';
-import { Op, type Transaction } from 'sequelize';
+import { Op, QueryTypes, type Transaction } from 'sequelize';
 import { models } from '@/db/models';
 import type { CompanyRole } from '@/db/models';
 
@@ -64,9 +64,16 @@ export async function isMemberByEmail(companyId: number, email: string, t?: Tran
   return n > 0;
 }
 
+/** Inside a transaction a locking read, so it sees what a concurrent change just committed. */
 export async function countAdmins(companyId: number, t?: Transaction): Promise<number> {
-  const { Membership } = models();
-  return Membership.count({ where: { companyId, role: 'admin' }, transaction: t });
+  const { Membership, sequelize } = models();
+  if (!t) return Membership.count({ where: { companyId, role: 'admin' } });
+  const [row] = await sequelize.query<{ n: number }>("SELECT COUNT(*) AS n FROM memberships WHERE company_id = :companyId AND role = 'admin' LOCK IN SHARE MODE", {
+    replacements: { companyId },
+    type: QueryTypes.SELECT,
+    transaction: t,
+  });
+  return Number(row.n);
 }
 
 export async function countMembers(companyId: number, t?: Transaction): Promise<number> {

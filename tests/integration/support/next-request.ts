@@ -12,17 +12,38 @@ import type { ActionState } from '@/server/actions/safe-action';
  *   asUser(token)            the cookie jar holds that session token
  *   asSignedOut()            no cookie
  *   setRequestHeaders({...}) e.g. { 'x-forwarded-for': '203.0.113.7', 'user-agent': 'test' }
+ *   inRequest(token, fn)     fn runs as its own request (concurrent requests as different people)
  *   callAction(action, input) → { state } | { redirect } | { notFound: status }
  */
 type StoredCookie = { name: string; value: string; [attribute: string]: unknown };
 
-const request = vi.hoisted(() => ({
-  cookies: new Map<string, { name: string; value: string; [attribute: string]: unknown }>(),
-  headers: new Headers({ 'user-agent': 'vitest integration' }),
-  revalidated: [] as string[],
-}));
+type RequestState = { cookies: Map<string, { name: string; value: string; [attribute: string]: unknown }>; headers: Headers; revalidated: string[] };
+
+const shared = vi.hoisted(() => {
+  // eslint-disable-next-line @typescript-eslint/no-require-imports
+  const { AsyncLocalStorage } = require('node:async_hooks') as typeof import('node:async_hooks');
+  const global: RequestState = { cookies: new Map(), headers: new Headers({ 'user-agent': 'vitest integration' }), revalidated: [] };
+  // Concurrent requests each get their own jar through inRequest(); everything else uses the global one.
+  const scoped = new AsyncLocalStorage<RequestState>();
+  return { global, scoped, current: (): RequestState => scoped.getStore() ?? global };
+});
+const request = {
+  get cookies() {
+    return shared.current().cookies;
+  },
+  get headers() {
+    return shared.current().headers;
+  },
+  set headers(h: Headers) {
+    shared.current().headers = h;
+  },
+  get revalidated() {
+    return shared.current().revalidated;
+  },
+};
 
 vi.mock('next/headers', () => {
+  const request = { get cookies() { return shared.current().cookies; }, get headers() { return shared.current().headers; } };
   const store = {
     get: (name: string) => {
       const c = request.cookies.get(name);
@@ -50,13 +71,13 @@ vi.mock('next/headers', () => {
 
 vi.mock('next/cache', () => ({
   revalidatePath: (path: string) => {
-    request.revalidated.push(path);
+    shared.current().revalidated.push(path);
   },
   revalidateTag: (tag: string) => {
-    request.revalidated.push(`tag:${tag}`);
+    shared.current().revalidated.push(`tag:${tag}`);
   },
   updateTag: (tag: string) => {
-    request.revalidated.push(`tag:${tag}`);
+    shared.current().revalidated.push(`tag:${tag}`);
   },
   refresh: () => {},
   unstable_noStore: () => {},
@@ -72,6 +93,16 @@ export function asUser(sessionToken: string): void {
 
 export function asSignedOut(): void {
   request.cookies.clear();
+}
+
+/**
+ * Runs fn as its own request with its own cookie jar, so several requests can be in flight at
+ * once (each as a different person): `await Promise.all([inRequest(a, () => …), inRequest(b, () => …)])`.
+ */
+export function inRequest<T>(sessionToken: string | null, fn: () => Promise<T>, headers: Record<string, string> = {}): Promise<T> {
+  const state: RequestState = { cookies: new Map(), headers: new Headers({ 'user-agent': 'vitest integration', ...headers }), revalidated: [] };
+  if (sessionToken) state.cookies.set(SESSION_COOKIE, { name: SESSION_COOKIE, value: sessionToken });
+  return shared.scoped.run(state, fn);
 }
 
 export function setRequestHeaders(values: Record<string, string>): void {
