@@ -284,6 +284,11 @@ export async function countUploadsThisMonth(companyId: number, t?: Transaction, 
   return countRows('SELECT COUNT(*) AS n FROM uploads WHERE company_id = :companyId AND created_at >= :since', { companyId, since: monthStartUtc(now) }, t);
 }
 
+/** Comparison links that a customer could open now: not revoked and not expired. */
+export async function countActiveLinks(companyId: number, t?: Transaction, now = new Date()): Promise<number> {
+  return countRows('SELECT COUNT(*) AS n FROM share_links WHERE company_id = :companyId AND revoked_at IS NULL AND expires_at > :now', { companyId, now }, t);
+}
+
 // ---- staff: accounts ----------------------------------------------------------------------------
 
 export type AccountRow = {
