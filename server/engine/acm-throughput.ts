@@ -62,9 +62,11 @@ export function acmEnvelope(modcods: readonly Modcod[]): Modcod[] {
  * does not close in clear sky simply gets no share.
  *
  * @example
- * acmThroughput({ envelope, clearSkyEsN0Db: 12, symbolRateMsps: 30, implementationMarginDb: 1,
- *   rainPath, lnbNoiseTempK: 50, antennaNoiseTempK: 30, mediumTempK: 275 }).expectedThroughputMbps
- * // => ≈ 77 (mostly 8PSK 5/6 at 74.4 Mbit/s… and 16APSK 4/5 … depending on the path)
+ * // envelope of QPSK 3/4, 8PSK 3/4, 16APSK 3/4; rainPath = prepareRainPath(site V8 at 14.25 GHz)
+ * acmThroughput({ envelope, clearSkyEsN0Db: 14, symbolRateMsps: 30, implementationMarginDb: 1,
+ *   rainPath, lnbNoiseTempK: 50, antennaNoiseTempK: 30, mediumTempK: 275 })
+ * // => { expectedThroughputMbps: 88.86…, clearSkyModcod: '16APSK 3/4', clearSkyThroughputMbps: 89.00…,
+ * //      shares: [outage 0.0276 %, QPSK 3/4 0.100 %, 8PSK 3/4 0.316 %, 16APSK 3/4 99.556 %], modelRangeLimited: false }
  */
 export function acmThroughput(o: {
   envelope: readonly Modcod[];

@@ -10,7 +10,7 @@ import { requireNumberInRange, requirePositive } from './validate';
  * 0.1–1000 GHz or NaN throws EngineInputError naming the field.
  *
  * @example
- * dishGain({ diameterM: 1.2, efficiency: 0.65, frequencyGHz: 12 }) // => 41.69… dBi
+ * dishGain({ diameterM: 1.2, efficiency: 0.65, frequencyGHz: 12 }) // => 41.70… dBi
  */
 export function dishGain(options: { diameterM: number; efficiency: number; frequencyGHz: number }): number {
   const d = requirePositive(options.diameterM, 'diameterM');

@@ -81,7 +81,9 @@ const MAX_POINTING_ERROR_SHARE_OF_BEAMWIDTH = 0.5;
  *   dishes: [{ diameterM: 0.6, efficiency: 0.65, priceUsd: '120' }, { diameterM: 0.8, efficiency: 0.65, priceUsd: '160' }],
  *   targetAvailabilityPercent: 99.9,
  * })
- * result.options[1].outageMinutesPerYear // => a few hundred minutes fewer than options[0]
+ * result.options.map((o) => Math.round(o.outageMinutesPerYear)) // => [259, 93]
+ * result.options[1].costPerMinuteSavedUsd                      // => '0.2402'
+ * result.recommendation // => { basis: 'downlink', smallestMeetingTargetIndex: 0, bestValueIndex: 1, diminishingReturnsIndex: 1, … }
  */
 export function dishTradeoff(scenario: TradeoffScenario): TradeoffResult {
   if (!scenario || typeof scenario !== 'object') throw new EngineInputError('scenario', 'a scenario object is required', scenario);

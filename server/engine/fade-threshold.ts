@@ -13,7 +13,7 @@ import { requireFinite } from './validate';
  * returns `null`, never a negative number. NaN or bad temperatures throw EngineInputError.
  *
  * @example
- * fadeThreshold({ marginDb: 7.63, lnbNoiseTempK: 50, antennaNoiseTempK: 30 }) // => 3.00… dB
+ * fadeThreshold({ marginDb: 7.0271076884711565, lnbNoiseTempK: 50, antennaNoiseTempK: 30 }) // => 3.000… dB
  */
 export function fadeThreshold(options: SystemNoiseOptions & { marginDb: number; noiseIncrease?: boolean }): number | null {
   const m = requireFinite(options.marginDb, 'marginDb');

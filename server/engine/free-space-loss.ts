@@ -7,7 +7,7 @@ import { requireNumberInRange, requirePositive } from './validate';
  * Bad input: distance ≤ 0, frequency outside 0.1–1000 GHz or NaN throws EngineInputError.
  *
  * @example
- * freeSpaceLoss({ rangeKm: 38000, frequencyGHz: 12 }) // => 205.62… dB
+ * freeSpaceLoss({ rangeKm: 38000, frequencyGHz: 12 }) // => 205.627… dB
  */
 export function freeSpaceLoss(options: { rangeKm: number; frequencyGHz: number }): number {
   const d = requirePositive(options.rangeKm, 'rangeKm');

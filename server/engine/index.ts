@@ -10,7 +10,7 @@ export { rainCoefficients } from './p838-rain-coefficients';
 export { rainSpecificAttenuation } from './p838-specific-attenuation';
 export { rainAttenuation } from './p618-rain-attenuation';
 export { rainExceedance } from './p618-rain-exceedance';
-export { monthlyRainClimate } from './p837-monthly-climate';
+export { monthlyRainClimate } from './p837-7-monthly-climate';
 export { scintillationFade } from './p618-scintillation';
 export { geoLookAngles } from './geo-look-angles';
 export { dishTradeoff } from './dish-tradeoff';
@@ -25,7 +25,7 @@ export {
   climateZoneRainRate,
   isClimateZone,
 } from './p837-1-climate-zones';
-export { DAYS_PER_MONTH_P837_7 } from './p837-monthly-climate';
+export { DAYS_PER_MONTH_P837_7 } from './p837-7-monthly-climate';
 export { measuredRainCurve } from './measured-rain-curve';
 export { resolveRainClimate } from './rain-climate-source';
 export { DVB_S2_MODCODS, findModcod } from './dvb-s2-modcods';
@@ -63,7 +63,7 @@ export type { RainSpecificAttenuationOptions } from './p838-specific-attenuation
 export type { RainAttenuationOptions } from './p618-rain-attenuation';
 export type { RainExceedanceOptions } from './p618-rain-exceedance';
 export type { ExceedanceBound, RainExceedance, RainPath, RainPathOptions } from './p618-rain-path';
-export type { MonthlyRainClimate, MonthlyRainClimateOptions } from './p837-monthly-climate';
+export type { MonthlyRainClimate, MonthlyRainClimateOptions } from './p837-7-monthly-climate';
 export type { ScintillationFadeOptions } from './p618-scintillation';
 export type { GeoLookAngles, GeoLookAnglesOptions } from './geo-look-angles';
 export type { ClimateZone } from './p837-1-climate-zones';

@@ -39,7 +39,7 @@ export interface LinkBudget {
  *
  * @example
  * linkBudget({ eirpDbw: 52, freeSpaceLossDb: 205.6, gOverTDbK: 19.1, symbolRateMsps: 30, requiredEsN0Db: 7.91, implementationMarginDb: 1 })
- * // => { cOverN0DbHz: 94.1, esN0Db: 19.32…, marginDb: 10.41… }
+ * // => { cOverN0DbHz: 94.1, esN0Db: 19.328…, marginDb: 10.418… }
  */
 export function linkBudget(options: LinkBudgetOptions): LinkBudget {
   const eirp = requireFinite(options.eirpDbw, 'eirpDbw');

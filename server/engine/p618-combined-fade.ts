@@ -18,8 +18,9 @@ const LN_P_MAX = Math.log(MAX_P_PERCENT_P618_14);
  * 'above-model-range'.
  *
  * @example
- * combinedFadeExceedance({ rainPath, scintillationSigmaDb: 0.087, attenuationDb: 6.9 })
- * // => { pPercent: ≈0.0098, bound: 'none' } (a little above the rain-only 0.01 % at V8, 14.25 GHz)
+ * // rainPath = prepareRainPath(site V8 at 14.25 GHz), σ of a 1 m dish with N_wet 50.39
+ * combinedFadeExceedance({ rainPath, scintillationSigmaDb: 0.0873106, attenuationDb: 6.798072267 })
+ * // => { pPercent: 0.010103…, bound: 'none' } (rain alone: 0.01 %)
  */
 export function combinedFadeExceedance(o: { rainPath: RainPath; scintillationSigmaDb: number; attenuationDb: number }): RainExceedance {
   const total = (lp: number): number => {

@@ -49,7 +49,7 @@ export function isClimateZone(zone: unknown): zone is ClimateZone {
  *
  * @example
  * climateZoneRainRate({ zone: 'K', pPercent: 0.01 }) // => 42
- * climateZoneRainRate({ zone: 'K', pPercent: 0.02 }) // => 30.7…  (between 42 @ 0.01 % and 23 @ 0.03 %)
+ * climateZoneRainRate({ zone: 'K', pPercent: 0.02 }) // => 28.72… (between 42 @ 0.01 % and 23 @ 0.03 %)
  */
 export function climateZoneRainRate(options: { zone: ClimateZone; pPercent: number; field?: string }): number {
   const field = options.field ?? 'climateZone';

@@ -16,7 +16,7 @@ const Q_FLAT_ABOVE_P_PERCENT_P841 = 3;
  * Bad input: p outside 0–100 % or NaN throws EngineInputError('pPercent'). p = 0 gives 0.
  *
  * @example
- * worstMonthPercent({ pPercent: 0.01 }) // => 0.0679… (2.85 × 0.01^0.87)
+ * worstMonthPercent({ pPercent: 0.01 }) // => 0.05186… (2.85 × 0.01^0.87)
  */
 export function worstMonthPercent(options: { pPercent: number }): number {
   const p = requireNumberInRange(options.pPercent, 'pPercent', 0, 100);

@@ -1,3 +1,10 @@
+/**
+ * Physical and calendar constants of the link budget (engine.md §4), each named with its unit.
+ *
+ * @example
+ * (0.01 / 100) * MINUTES_PER_YEAR // => 52.596 minutes: 0.01 % of an average year
+ */
+
 /** Speed of light in vacuum, m/s (SI definition, exact). */
 export const SPEED_OF_LIGHT_M_S = 299_792_458;
 /** −10 log10 of Boltzmann's constant (1.380649e-23 J/K), dBW/(K·Hz): 228.6 as used in link budgets (engine.md §4). */

@@ -1,7 +1,7 @@
 import { EngineInputError } from './errors';
 import { measuredRainCurve, type MeasuredRainPoint } from './measured-rain-curve';
 import { climateZoneRainRate, isClimateZone, type ClimateZone } from './p837-1-climate-zones';
-import { monthlyRainClimate } from './p837-monthly-climate';
+import { monthlyRainClimate } from './p837-7-monthly-climate';
 import { requireNumberInRange } from './validate';
 
 /** Rain height inputs shared by every climate source (ITU-R P.839-4). */

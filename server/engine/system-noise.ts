@@ -20,7 +20,7 @@ export interface SystemNoiseOptions {
  * Bad input: T_rx ≤ 0, negative T_ant/T_m/A or NaN throws EngineInputError naming the field.
  *
  * @example
- * systemNoiseTemperature({ lnbNoiseTempK: 50, antennaNoiseTempK: 30, attenuationDb: 3 }) // => 232.8… K
+ * systemNoiseTemperature({ lnbNoiseTempK: 50, antennaNoiseTempK: 30, attenuationDb: 3 }) // => 202.2… K
  */
 export function systemNoiseTemperature(options: SystemNoiseOptions & { attenuationDb: number }): number {
   const t = checkSystemNoise(options);
@@ -35,7 +35,7 @@ export function systemNoiseTemperature(options: SystemNoiseOptions & { attenuati
  * Bad input: as {@link systemNoiseTemperature}.
  *
  * @example
- * downlinkDegradation({ lnbNoiseTempK: 50, antennaNoiseTempK: 30, attenuationDb: 3 }) // => 7.63… dB
+ * downlinkDegradation({ lnbNoiseTempK: 50, antennaNoiseTempK: 30, attenuationDb: 3 }) // => 7.027… dB
  */
 export function downlinkDegradation(options: SystemNoiseOptions & { attenuationDb: number }): number {
   const t = checkSystemNoise(options);

@@ -31,8 +31,11 @@ export function meetsTargetAvailability(figures: OutageFigures, targetPercent: n
  * Bad input: callers pass engine-made figures; nothing is validated here.
  *
  * @example
- * tradeoffRecommendation({ basis: 'downlink', diametersM: [0.6, 0.9, 1.2], figures, prices, costPerMinute, minutesSaved: [0, 300, 320], target: 99.9 })
- * // => { baselineIndex: 0, diminishingReturnsIndex: 1, … }
+ * tradeoffRecommendation({ basis: 'downlink', diametersM: [0.6, 0.9, 1.2], baselineIndex: 0, target: 99.9,
+ *   figures: [0.3, 0.05, 0.004].map((p) => outageFigures(p, 'none')), minutesSaved: [0, 1450, 1557],
+ *   prices: [d(200), d(260), d(400)], costPerMinute: [null, d(0.0456), d(0.1285)] })
+ * // => { basis: 'downlink', targetAvailabilityPercent: 99.9, baselineIndex: 0,
+ * //      smallestMeetingTargetIndex: 1, bestValueIndex: 1, diminishingReturnsIndex: 1 }
  */
 export function tradeoffRecommendation(o: {
   basis: 'downlink' | 'two-way';

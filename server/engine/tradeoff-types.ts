@@ -5,6 +5,15 @@ import type { ExceedanceBound } from './p618-rain-path';
 import type { RainHeightSource } from './p839-rain-height';
 import type { ClimateSource, RainClimateInput } from './rain-climate-source';
 
+/**
+ * Input and result types of the dish trade-off (engine.md §4–§5). Conventions for bounds and
+ * "does not close" are on {@link OutageFigures} and {@link TradeoffOption}.
+ *
+ * @example
+ * const row: TradeoffOption = dishTradeoff(scenario).options[0];
+ * row.closes ? `${row.outageMinutesPerYear.toFixed(0)} min/year` : 'does not close' // => '259 min/year'
+ */
+
 /** Money input: a decimal string ("1249.90") or a number; kept exact with decimal.js. */
 export type MoneyInput = string | number;
 

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { EngineInputError, scintillationFade } from '@/server/engine';
+import { EngineInputError, combinedFadeExceedance, prepareRainPath, rainAttenuation, scintillationFade } from '@/server/engine';
 import { expectRelative, num, readReferenceCsv } from './reference-csv';
 
 // Source: ITU-R Study Group 3 validation examples for Rec. ITU-R P.618-14 §2.4.1 scintillation,
@@ -36,7 +36,33 @@ describe('scintillation behaviour (ITU-R P.618-14 §2.4.1)', () => {
   });
 });
 
+describe('rain + scintillation combined, ITU-R P.618-14 §2.5 without gases and clouds', () => {
+  const V8 = { latDeg: 51.5, stationHeightKm: 0.031382984, frequencyGHz: 14.25, elevationDeg: 31.07699124, tiltDeg: 0, r001MmH: 26.48052, rainHeightKm: 2.45273333 };
+  const path = prepareRainPath(V8);
+  it('with σ = 0 it is the rain-only inverse', () => {
+    for (const a of [0.6, 2, 6.8, 14]) {
+      expect(combinedFadeExceedance({ rainPath: path, scintillationSigmaDb: 0, attenuationDb: a }).pPercent).toBeCloseTo(path.exceedanceOf(a).pPercent, 10);
+    }
+  });
+  it('the p it returns satisfies √(A_R(p)² + A_S(p)²) = A*', () => {
+    const sigma = scintillationFade({ ...BASE, pPercent: 1 }) / 3; // a(1 %) = 3 (step 8)
+    for (const a of [1, 3, 7]) {
+      const { pPercent, bound } = combinedFadeExceedance({ rainPath: path, scintillationSigmaDb: sigma, attenuationDb: a });
+      expect(bound).toBe('none');
+      const as = scintillationFade({ ...BASE, pPercent: Math.max(0.01, pPercent) });
+      const ar = rainAttenuation({ ...V8, pPercent });
+      expect(Math.sqrt(ar * ar + as * as)).toBeCloseTo(a, 9);
+    }
+  });
+});
+
 describe('edge cases', () => {
+  it('combined inverse outside the model range reports bounds', () => {
+    const path = prepareRainPath({ latDeg: 51.5, stationHeightKm: 0, frequencyGHz: 14.25, elevationDeg: 31, tiltDeg: 0, r001MmH: 26, rainHeightKm: 2.45 });
+    expect(combinedFadeExceedance({ rainPath: path, scintillationSigmaDb: 0.09, attenuationDb: 100 })).toEqual({ pPercent: 0.001, bound: 'below-model-range' });
+    expect(combinedFadeExceedance({ rainPath: path, scintillationSigmaDb: 0.09, attenuationDb: 0.01 })).toEqual({ pPercent: 5, bound: 'above-model-range' });
+  });
+
   it('a huge aperture drives g(x) to zero rather than NaN (step 6: negative root argument → 0)', () => {
     expect(scintillationFade({ ...BASE, diameterM: 200, frequencyGHz: 50 })).toBe(0);
   });
