@@ -1,4 +1,5 @@
 import { DataTypes, Model, type InferAttributes, type InferCreationAttributes, type CreationOptional, type Sequelize } from 'sequelize';
+import { decimalAttribute } from './decimal-column';
 
 export const CLIMATE_KINDS = ['monthly-normals', 'measured-curve', 'known-r001', 'climate-zone'] as const;
 export type ClimateKind = (typeof CLIMATE_KINDS)[number];
@@ -32,7 +33,7 @@ export function initClimateProfile(sequelize: Sequelize): void {
       name: { type: DataTypes.STRING(120), allowNull: false },
       kind: { type: DataTypes.ENUM(...CLIMATE_KINDS), allowNull: false },
       data: { type: DataTypes.JSON, allowNull: false },
-      zeroIsothermKm: { type: DataTypes.DECIMAL(5, 3), allowNull: true },
+      zeroIsothermKm: decimalAttribute('zeroIsothermKm', 5, 3, { allowNull: true }),
       sourceNote: { type: DataTypes.STRING(500), allowNull: false },
       uploadId: { type: DataTypes.INTEGER, allowNull: true },
       createdAt: DataTypes.DATE,

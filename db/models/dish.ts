@@ -1,4 +1,5 @@
 import { DataTypes, Model, type InferAttributes, type InferCreationAttributes, type CreationOptional, type Sequelize } from 'sequelize';
+import { decimalAttribute } from './decimal-column';
 
 /** One entry of a company's dish catalogue and price list; money as exact decimal strings. */
 export class Dish extends Model<InferAttributes<Dish>, InferCreationAttributes<Dish>> {
@@ -21,10 +22,10 @@ export function initDish(sequelize: Sequelize): void {
       id: { type: DataTypes.INTEGER, primaryKey: true, autoIncrement: true },
       companyId: { type: DataTypes.INTEGER, allowNull: false },
       name: { type: DataTypes.STRING(120), allowNull: false },
-      diameterM: { type: DataTypes.DECIMAL(5, 3), allowNull: false },
-      efficiency: { type: DataTypes.DECIMAL(4, 3), allowNull: false },
-      hardwarePrice: { type: DataTypes.DECIMAL(10, 2), allowNull: false },
-      labourPrice: { type: DataTypes.DECIMAL(10, 2), allowNull: false },
+      diameterM: decimalAttribute('diameterM', 5, 3, { allowNull: false }),
+      efficiency: decimalAttribute('efficiency', 4, 3, { allowNull: false }),
+      hardwarePrice: decimalAttribute('hardwarePrice', 10, 2, { allowNull: false }),
+      labourPrice: decimalAttribute('labourPrice', 10, 2, { allowNull: false }),
       mountNotes: { type: DataTypes.TEXT, allowNull: true },
       active: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: true },
       createdAt: DataTypes.DATE,

@@ -1,4 +1,5 @@
 import { DataTypes, Model, type InferAttributes, type InferCreationAttributes, type CreationOptional, type Sequelize } from 'sequelize';
+import { decimalAttribute } from './decimal-column';
 
 export const POLARIZATIONS = ['linear-horizontal', 'linear-vertical', 'circular'] as const;
 export type Polarization = (typeof POLARIZATIONS)[number];
@@ -45,18 +46,18 @@ export function initServiceProfile(sequelize: Sequelize): void {
       companyId: { type: DataTypes.INTEGER, allowNull: false },
       name: { type: DataTypes.STRING(120), allowNull: false },
       satelliteName: { type: DataTypes.STRING(120), allowNull: false },
-      satelliteLongitudeDeg: { type: DataTypes.DECIMAL(6, 2), allowNull: false },
-      downlinkFrequencyGhz: { type: DataTypes.DECIMAL(8, 4), allowNull: false },
+      satelliteLongitudeDeg: decimalAttribute('satelliteLongitudeDeg', 6, 2, { allowNull: false }),
+      downlinkFrequencyGhz: decimalAttribute('downlinkFrequencyGhz', 8, 4, { allowNull: false }),
       polarization: { type: DataTypes.ENUM(...POLARIZATIONS), allowNull: false },
-      polarizationTiltDeg: { type: DataTypes.DECIMAL(5, 2), allowNull: false, defaultValue: '0.00' },
-      eirpDbw: { type: DataTypes.DECIMAL(5, 2), allowNull: false },
-      symbolRateMsps: { type: DataTypes.DECIMAL(9, 4), allowNull: false },
+      polarizationTiltDeg: decimalAttribute('polarizationTiltDeg', 5, 2, { allowNull: false, defaultValue: '0.00' }),
+      eirpDbw: decimalAttribute('eirpDbw', 5, 2, { allowNull: false }),
+      symbolRateMsps: decimalAttribute('symbolRateMsps', 9, 4, { allowNull: false }),
       modcod: { type: DataTypes.STRING(20), allowNull: true },
-      requiredEsN0Db: { type: DataTypes.DECIMAL(5, 2), allowNull: false },
-      implementationMarginDb: { type: DataTypes.DECIMAL(4, 2), allowNull: false, defaultValue: '0.00' },
-      otherLossesDb: { type: DataTypes.DECIMAL(4, 2), allowNull: false, defaultValue: '0.00' },
-      lnbNoiseTempK: { type: DataTypes.DECIMAL(6, 1), allowNull: false },
-      antennaNoiseTempK: { type: DataTypes.DECIMAL(6, 1), allowNull: false },
+      requiredEsN0Db: decimalAttribute('requiredEsN0Db', 5, 2, { allowNull: false }),
+      implementationMarginDb: decimalAttribute('implementationMarginDb', 4, 2, { allowNull: false, defaultValue: '0.00' }),
+      otherLossesDb: decimalAttribute('otherLossesDb', 4, 2, { allowNull: false, defaultValue: '0.00' }),
+      lnbNoiseTempK: decimalAttribute('lnbNoiseTempK', 6, 1, { allowNull: false }),
+      antennaNoiseTempK: decimalAttribute('antennaNoiseTempK', 6, 1, { allowNull: false }),
       uplink: { type: DataTypes.JSON, allowNull: true },
       acmModcods: { type: DataTypes.JSON, allowNull: true },
       notes: { type: DataTypes.TEXT, allowNull: true },

@@ -1,4 +1,5 @@
 import { DataTypes, Model, type InferAttributes, type InferCreationAttributes, type CreationOptional, type Sequelize } from 'sequelize';
+import { decimalAttribute } from './decimal-column';
 
 /** Where a dish goes: a customer's site, with coordinates as exact decimal strings (degrees, N/E positive). */
 export class Site extends Model<InferAttributes<Site>, InferCreationAttributes<Site>> {
@@ -23,9 +24,9 @@ export function initSite(sequelize: Sequelize): void {
       customerId: { type: DataTypes.INTEGER, allowNull: false },
       name: { type: DataTypes.STRING(160), allowNull: false },
       address: { type: DataTypes.STRING(300), allowNull: true },
-      latDeg: { type: DataTypes.DECIMAL(9, 6), allowNull: false },
-      lonDeg: { type: DataTypes.DECIMAL(10, 6), allowNull: false },
-      altitudeM: { type: DataTypes.DECIMAL(7, 1), allowNull: false },
+      latDeg: decimalAttribute('latDeg', 9, 6, { allowNull: false }),
+      lonDeg: decimalAttribute('lonDeg', 10, 6, { allowNull: false }),
+      altitudeM: decimalAttribute('altitudeM', 7, 1, { allowNull: false }),
       notes: { type: DataTypes.TEXT, allowNull: true },
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,

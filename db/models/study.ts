@@ -1,4 +1,5 @@
 import { DataTypes, Model, type InferAttributes, type InferCreationAttributes, type CreationOptional, type Sequelize } from 'sequelize';
+import { decimalAttribute } from './decimal-column';
 
 export const STUDY_STATUSES = ['ready', 'archived'] as const;
 export type StudyStatus = (typeof STUDY_STATUSES)[number];
@@ -48,9 +49,9 @@ export function initStudy(sequelize: Sequelize): void {
       customerName: { type: DataTypes.STRING(160), allowNull: false },
       siteName: { type: DataTypes.STRING(160), allowNull: false },
       serviceName: { type: DataTypes.STRING(120), allowNull: false },
-      recommendedDiameterM: { type: DataTypes.DECIMAL(5, 3), allowNull: true },
+      recommendedDiameterM: decimalAttribute('recommendedDiameterM', 5, 3, { allowNull: true }),
       dishCount: { type: DataTypes.INTEGER, allowNull: false },
-      targetAvailabilityPercent: { type: DataTypes.DECIMAL(7, 4), allowNull: false },
+      targetAvailabilityPercent: decimalAttribute('targetAvailabilityPercent', 7, 4, { allowNull: false }),
       inputs: { type: DataTypes.JSON, allowNull: false },
       result: { type: DataTypes.JSON, allowNull: false },
       engineVersion: { type: DataTypes.STRING(20), allowNull: false },
