@@ -1,0 +1,179 @@
+import { afterAll, describe, expect, it } from 'vitest';
+import type Stripe from 'stripe';
+import { models } from '@/db/models';
+import { closeSequelize } from '@/db/sequelize';
+import { POST as webhook } from '@/app/api/webhooks/stripe/route';
+import { changePlan, openBillingPortal, startCheckout, type BillingActor } from '@/server/billing/checkout';
+import { getPlanLimits } from '@/server/billing/limits';
+import { syncPlanToProvider } from '@/server/billing/plan-sync';
+import { getStripe } from '@/server/billing/stripe';
+import { isHandledEventType } from '@/server/billing/webhook';
+import { createUserWithRole } from './support/factories';
+import { companyPlanId, createBillingCompany, eventOf, planIdByCode, rand, subscriptionRow, webhookRequest } from './billing-fixtures';
+
+/**
+ * The whole subscription flow through the official SDK against the local Stripe-compatible
+ * service (the same calls would go to Stripe's test mode): plan sync, checkout paid on the hosted
+ * page, plan change, a failed renewal and its recovery, cancellation in the portal. The events the
+ * provider sent are then delivered to our webhook route in a chosen order.
+ */
+afterAll(closeSequelize);
+
+const fakeBase = () => `${process.env.STRIPE_API_PROTOCOL ?? 'http'}://${process.env.STRIPE_API_HOST}:${process.env.STRIPE_API_PORT}`;
+
+async function newPaidPlan(price: string, seats = 3) {
+  const { Plan } = models();
+  const code = `bc-${rand()}`;
+  const plan = await Plan.create({
+    code, name: `Checkout test ${code}`, description: 'Invented plan for a billing test.', monthlyPriceUsd: price, seatLimit: seats, studiesPerMonth: 40,
+    activeLinksLimit: 8, uploadsPerMonth: 4, apiAccess: false, quoteBranding: true, kind: 'paid', trialDays: null, isPublic: true, sortOrder: 95,
+    stripeProductId: null, stripePriceId: null,
+  });
+  return plan;
+}
+
+async function actorFor(companyId: number): Promise<BillingActor> {
+  const admin = await createUserWithRole(companyId, 'admin');
+  return { companyId, userId: admin.id, email: admin.email };
+}
+
+/** Events the provider sent about these objects, oldest first (the API lists newest first). */
+async function eventsAbout(ids: string[], types?: string[]): Promise<Stripe.Event[]> {
+  const all: Stripe.Event[] = [];
+  for await (const e of getStripe().events.list({ limit: 100 })) {
+    const obj = e.data.object as { id?: string; customer?: string; subscription?: string; parent?: { subscription_details?: { subscription?: string } } };
+    const related = [obj.id, obj.customer, obj.subscription, obj.parent?.subscription_details?.subscription].some((v) => v && ids.includes(v));
+    if (related && (!types || types.includes(e.type))) all.push(e);
+    if (all.length > 200) break;
+  }
+  return all.reverse();
+}
+
+async function deliver(event: object) {
+  const res = await webhook(webhookRequest(event));
+  return { status: res.status, outcome: ((await res.json()) as { outcome?: string }).outcome };
+}
+
+async function fakeHook(path: string) {
+  const res = await fetch(`${fakeBase()}${path}`, { method: 'POST' });
+  expect(res.status, `${path} → ${res.status}`).toBe(200);
+}
+
+describe('plan sync to the provider', () => {
+  it('creates product and monthly price; the same amount keeps the price; a new amount makes a new price and archives the old', async () => {
+    const plan = await newPaidPlan('19.00');
+    const first = await syncPlanToProvider(plan.id);
+    expect(first.productId).toMatch(/^prod_/);
+    expect(first.createdPrice).toBe(true);
+    const stripe = getStripe();
+    const price = await stripe.prices.retrieve(first.priceId!);
+    expect(price).toMatchObject({ unit_amount: 1900, currency: 'usd', active: true, product: first.productId, recurring: { interval: 'month' } });
+    expect((await stripe.products.retrieve(first.productId!)).name).toBe(plan.name);
+
+    const again = await syncPlanToProvider(plan.id);
+    expect(again).toMatchObject({ productId: first.productId, priceId: first.priceId, createdPrice: false });
+
+    await plan.update({ monthlyPriceUsd: '24.50', name: `${plan.name} renamed` });
+    const changed = await syncPlanToProvider(plan.id);
+    expect(changed.priceId).not.toBe(first.priceId);
+    expect(changed.archivedPriceId).toBe(first.priceId);
+    expect((await stripe.prices.retrieve(changed.priceId!)).unit_amount).toBe(2450);
+    expect((await stripe.prices.retrieve(first.priceId!)).active).toBe(false);
+    const product = await stripe.products.retrieve(first.productId!);
+    expect(product.name).toBe(`${plan.name}`);
+    expect(product.default_price).toBe(changed.priceId);
+    await plan.reload();
+    expect(plan.stripePriceId).toBe(changed.priceId);
+  });
+
+  it('recreates product and price when the stored ids are unknown to the provider (other account or mode)', async () => {
+    const plan = await newPaidPlan('9.00');
+    await plan.update({ stripeProductId: `prod_gone_${rand()}`, stripePriceId: `price_gone_${rand()}` });
+    const synced = await syncPlanToProvider(plan.id);
+    expect(synced.productId).not.toMatch(/gone/);
+    expect((await getStripe().prices.retrieve(synced.priceId!)).unit_amount).toBe(900);
+  });
+});
+
+describe('checkout → webhooks → active plan → change → failed renewal → cancel', () => {
+  it('runs the whole subscription through the provider and ends on the free tier', async () => {
+    const crewLike = await newPaidPlan('49.00', 5);
+    const fleetLike = await newPaidPlan('149.00', 25);
+    const benchId = await planIdByCode('bench');
+    const company = await createBillingCompany({ planCode: 'bench', customerId: null });
+    const actor = await actorFor(company.id);
+
+    // 1. Checkout: a session on the provider, a row we can wait on.
+    const { url, sessionId } = await startCheckout(actor, crewLike.id);
+    expect(url).toContain(`/checkout/${sessionId}`);
+    const checkoutRow = await models().BillingCheckout.findOne({ where: { providerSessionId: sessionId } });
+    expect(checkoutRow).toMatchObject({ companyId: company.id, planId: crewLike.id, status: 'open' });
+    const session = await getStripe().checkout.sessions.retrieve(sessionId);
+    expect(session.client_reference_id).toBe(String(company.id));
+    expect(session.customer).toMatch(/^cus_/);
+
+    // 2. Pay on the hosted test page, as the browser would.
+    const paid = await fetch(`${url}/pay`, { method: 'POST', redirect: 'manual', headers: { 'content-type': 'application/x-www-form-urlencoded' }, body: '' });
+    expect(paid.status).toBe(303);
+    expect(paid.headers.get('location')).toBe(`${process.env.APP_URL}/settings/billing/return?session_id=${sessionId}`);
+    const subId = (await getStripe().checkout.sessions.retrieve(sessionId)).subscription as string;
+    expect(subId).toMatch(/^sub_/);
+
+    // 3. Deliver the provider's events with checkout.session.completed FIRST: the return page
+    //    must not depend on the subscription event arriving before it.
+    const events = await eventsAbout([sessionId, subId, session.customer as string]);
+    const completed = events.find((e) => e.type === 'checkout.session.completed')!;
+    expect(completed).toBeDefined();
+    expect((await deliver(completed)).status).toBe(200);
+    expect(await companyPlanId(company.id)).toBe(crewLike.id);
+    expect(await models().BillingCheckout.findOne({ where: { providerSessionId: sessionId } })).toMatchObject({ status: 'completed', providerSubscriptionId: subId });
+    for (const e of events.filter((x) => x !== completed)) expect((await deliver(e)).status).toBe(200);
+    expect(await subscriptionRow(subId)).toMatchObject({ status: 'active', planId: crewLike.id, cancelAtPeriodEnd: false });
+    expect((await getPlanLimits(company.id)).seats).toBe(5);
+    await expect(startCheckout(actor, fleetLike.id)).rejects.toMatchObject({ code: 'conflict' });
+
+    // 4. Change plan: pending until the provider's update arrives.
+    await changePlan(actor, fleetLike.id);
+    expect((await subscriptionRow(subId))?.pendingPlanId).toBe(fleetLike.id);
+    const [changed] = await eventsAbout([subId], ['customer.subscription.updated']).then((l) => l.slice(-1));
+    expect((await deliver(changed)).outcome).toBe('applied');
+    expect(await companyPlanId(company.id)).toBe(fleetLike.id);
+    expect((await subscriptionRow(subId))?.pendingPlanId).toBeNull();
+
+    // 5. Same-second tie: an event carrying the old plan, stamped with the same `created` as the
+    //    newest applied one, cannot be ordered — the provider's current state is fetched instead.
+    const oldPayload = structuredClone(changed.data.object) as Stripe.Subscription;
+    oldPayload.items.data[0].price = { ...oldPayload.items.data[0].price, id: crewLike.stripePriceId ?? 'price_x', product: (await crewLike.reload()).stripeProductId! };
+    const tie = eventOf('customer.subscription.updated', oldPayload, changed.created);
+    expect((await deliver(tie)).outcome).toBe('applied');
+    expect(await companyPlanId(company.id)).toBe(fleetLike.id);
+
+    // 6. The renewal fails: past due with a grace period; then the invoice is paid.
+    await fakeHook(`/_fake/subscriptions/${subId}/fail_payment`);
+    for (const e of await eventsAbout([subId], ['invoice.payment_failed', 'customer.subscription.updated'])) await deliver(e);
+    const pastDue = await subscriptionRow(subId);
+    expect(pastDue).toMatchObject({ status: 'past_due' });
+    expect(pastDue?.graceEndsAt).toBeInstanceOf(Date);
+    expect(pastDue?.lastPaymentFailedAt).toBeInstanceOf(Date);
+    expect((await getPlanLimits(company.id)).basis.kind).toBe('past_due_grace');
+    await fakeHook(`/_fake/subscriptions/${subId}/recover_payment`);
+    for (const e of await eventsAbout([subId], ['invoice.paid', 'customer.subscription.updated'])) await deliver(e);
+    expect(await subscriptionRow(subId)).toMatchObject({ status: 'active', graceEndsAt: null, lastPaymentFailedAt: null });
+
+    // 7. Cancel at period end in the portal, then the period ends: back to the free tier.
+    const portalUrl = await openBillingPortal(actor);
+    const cancel = await fetch(`${portalUrl}/subscriptions/${subId}/cancel`, { method: 'POST', redirect: 'manual' });
+    expect(cancel.status).toBe(303);
+    for (const e of await eventsAbout([subId], ['customer.subscription.updated'])) await deliver(e);
+    expect(await subscriptionRow(subId)).toMatchObject({ status: 'active', cancelAtPeriodEnd: true });
+    expect(await companyPlanId(company.id)).toBe(fleetLike.id);
+    await fakeHook(`/_fake/subscriptions/${subId}/advance`);
+    for (const e of await eventsAbout([subId], ['customer.subscription.deleted'])) await deliver(e);
+    expect(await subscriptionRow(subId)).toMatchObject({ status: 'canceled' });
+    expect(await companyPlanId(company.id)).toBe(benchId);
+    // Every event of this subscription was stored once, however often it was delivered.
+    const { WebhookEvent } = models();
+    const ids = (await eventsAbout([sessionId, subId])).filter((e) => isHandledEventType(e.type)).map((e) => e.id);
+    expect(await WebhookEvent.count({ where: { providerEventId: ids } })).toBe(new Set(ids).size);
+  });
+});
