@@ -188,7 +188,8 @@ export async function nextRevision(companyId: number, rootStudyId: number, t: Tr
     transaction: t,
   });
   const [{ max }] = await sequelize.query<{ max: number | null }>(
-    'SELECT MAX(revision) AS max FROM studies WHERE company_id = :companyId AND (id = :rootStudyId OR revision_of_study_id = :rootStudyId)',
+    // A locking read sees the latest committed revisions, not this transaction's earlier snapshot (REPEATABLE READ).
+    'SELECT MAX(revision) AS max FROM studies WHERE company_id = :companyId AND (id = :rootStudyId OR revision_of_study_id = :rootStudyId) FOR UPDATE',
     { replacements: { companyId, rootStudyId }, type: QueryTypes.SELECT, transaction: t },
   );
   return Number(max ?? 1) + 1;

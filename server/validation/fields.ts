@@ -54,7 +54,7 @@ export function numberIn(label: string, min: number, max: number, unit = '') {
     z
       .number({ error: (issue) => (issue.input === undefined ? `${label} is required.` : `${label} must be a number.`) })
       .refine(Number.isFinite, `${label} must be a number.`)
-      .refine((n) => n >= min && n <= max, `${label} must be between ${min} and ${max}${u}.`),
+      .refine((n) => !Number.isFinite(n) || (n >= min && n <= max), `${label} must be between ${min} and ${max}${u}.`),
   );
 }
 
@@ -94,7 +94,8 @@ export function moneyField(label: string, max = '99999999.99') {
       .string({ error: `${label} is required.` })
       .min(1, `${label} is required.`)
       .regex(/^\d+(\.\d{1,2})?$/, `${label} must be an amount like 1249.00 (at most 2 decimals).`)
-      .refine((s) => new Decimal(s).lte(max), `${label} must be at most ${max}.`)
+      // Refinements run even after the regex failed: only compare amounts that parsed.
+      .refine((s) => !/^\d+(\.\d{1,2})?$/.test(s) || new Decimal(s).lte(max), `${label} must be at most ${max}.`)
       .transform((s) => new Decimal(s).toFixed(2)),
   );
 }
