@@ -2,33 +2,45 @@
 
 import { revalidatePath } from 'next/cache';
 import { safeAction } from './safe-action';
-import { uploadConfirmSchema, uploadPreviewSchema } from '@/server/validation/upload';
-import { confirmUpload as confirm, previewUpload as preview } from '@/server/uploads/confirm-upload';
-import { can, type Permission } from '@/server/auth/permissions';
+import { catalogueConfirmSchema, cataloguePreviewSchema, climateConfirmSchema, climatePreviewSchema } from '@/server/validation/upload';
+import { confirmUpload, previewUpload } from '@/server/uploads/confirm-upload';
+import { can, type Role } from '@/server/auth/permissions';
 import { ForbiddenError } from '@/server/errors';
 
-/** The catalogue belongs to 'catalogue.write', climate files to 'climate.write', on top of 'upload.create'. */
-const KIND_PERMISSION: Record<string, Permission> = {
-  'dish-catalogue': 'catalogue.write',
-  'rain-curve': 'climate.write',
-  'climate-normals': 'climate.write',
-};
+/**
+ * CSV uploads: the dish catalogue belongs to 'catalogue.write', climate files to 'climate.write';
+ * either also needs 'upload.create'. Preview parses and reports (the report comes back even when
+ * it lists problems) and saves nothing; confirm parses the same file again and saves file + rows
+ * in one transaction, only when every row is valid.
+ */
+function requireUploads(role: Role): void {
+  if (!can(role, 'upload.create')) throw new ForbiddenError();
+}
 
-/** Parse and report; nothing is saved. The report comes back even when it lists problems. */
-export const previewUpload = safeAction({ schema: uploadPreviewSchema, permission: 'upload.create' }, async (input, ctx) => {
-  if (!can(ctx.role, KIND_PERMISSION[input.kind])) throw new ForbiddenError();
-  const report = await preview(input.kind, input.file);
+export const previewCatalogueUpload = safeAction({ schema: cataloguePreviewSchema, permission: 'catalogue.write' }, async (input, ctx) => {
+  requireUploads(ctx.role);
+  const report = await previewUpload('dish-catalogue', input.file);
   return { data: report, message: report.summary };
 });
 
-/** Parse again and save file + rows in one transaction, only when every row is valid. */
-export const confirmUpload = safeAction({ schema: uploadConfirmSchema, permission: 'upload.create' }, async (input, ctx) => {
-  if (!can(ctx.role, KIND_PERMISSION[input.kind])) throw new ForbiddenError();
-  const outcome = await confirm({ companyId: ctx.companyId, userId: ctx.user.id }, input);
-  if (outcome.kind === 'dish-catalogue') {
-    revalidatePath('/dishes');
-    return { data: outcome, message: `Catalogue saved: ${outcome.added} added, ${outcome.updated} updated. The file is kept with its report.` };
-  }
+export const confirmCatalogueUpload = safeAction({ schema: catalogueConfirmSchema, permission: 'catalogue.write' }, async (input, ctx) => {
+  requireUploads(ctx.role);
+  const outcome = await confirmUpload({ companyId: ctx.companyId, userId: ctx.user.id }, { ...input, name: null, sourceNote: null, zeroIsothermKm: undefined });
+  revalidatePath('/dishes');
+  const added = outcome.kind === 'dish-catalogue' ? outcome.added : 0;
+  const updated = outcome.kind === 'dish-catalogue' ? outcome.updated : 0;
+  return { data: outcome, message: `Catalogue saved: ${added} added, ${updated} updated. The file is kept with its report.` };
+});
+
+export const previewClimateUpload = safeAction({ schema: climatePreviewSchema, permission: 'climate.write' }, async (input, ctx) => {
+  requireUploads(ctx.role);
+  const report = await previewUpload(input.kind, input.file);
+  return { data: report, message: report.summary };
+});
+
+export const confirmClimateUpload = safeAction({ schema: climateConfirmSchema, permission: 'climate.write' }, async (input, ctx) => {
+  requireUploads(ctx.role);
+  const outcome = await confirmUpload({ companyId: ctx.companyId, userId: ctx.user.id }, input);
   revalidatePath('/climate');
   return { data: outcome, message: `Climate profile ${input.name} saved from ${input.file.name}. The file is kept with its report.` };
 });

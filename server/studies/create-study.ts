@@ -37,8 +37,6 @@ export async function createStudy(actor: StudyActor, input: NewStudyInput): Prom
   const { sequelize } = models();
   const { companyId } = actor;
   return sequelize.transaction(async (t) => {
-    await assertStudyWithinPlan(companyId, t);
-
     const service = await getServiceProfile(companyId, input.serviceProfileId, t);
     if (!service) throw new NotFoundError('That service profile');
     const climate = await getClimateProfile(companyId, input.climateProfileId, t);
@@ -65,6 +63,8 @@ export async function createStudy(actor: StudyActor, input: NewStudyInput): Prom
       site = await createSite(companyId, customer.id, { name: input.site.name, latDeg: input.site.latDeg, lonDeg: input.site.lonDeg, altitudeM: input.site.altitudeM }, t);
     }
 
+    // After the references are known to be ours (404 first), before anything is written.
+    await assertStudyWithinPlan(companyId, t);
     let computed;
     try {
       computed = computeStudy({

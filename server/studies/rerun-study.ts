@@ -24,7 +24,6 @@ export async function rerunStudy(actor: StudyActor, studyId: number): Promise<{ 
   return sequelize.transaction(async (t) => {
     const old = await getStudy(companyId, studyId, t);
     if (!old) throw new NotFoundError('That study');
-    await assertStudyWithinPlan(companyId, t);
 
     const gone = (what: string) => new ConflictError(`The ${what} of this study has been deleted; start a new study instead.`);
     const site = old.siteId ? await getSite(companyId, old.siteId, t) : null;
@@ -39,6 +38,7 @@ export async function rerunStudy(actor: StudyActor, studyId: number): Promise<{ 
     const dishes = await getDishesByIds(companyId, ids, t);
     if (dishes.length === 0) throw gone('dish selection');
 
+    await assertStudyWithinPlan(companyId, t);
     let computed;
     try {
       computed = computeStudy({

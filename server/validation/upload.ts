@@ -17,6 +17,8 @@ export const uploadKindField = z.enum(['dish-catalogue', 'rain-curve', 'climate-
 
 /** Preview: the file and what it holds; nothing else is needed and nothing is saved. */
 export const uploadPreviewSchema = z.object({ kind: uploadKindField, file: fileField });
+export const cataloguePreviewSchema = z.object({ kind: z.literal('dish-catalogue').default('dish-catalogue'), file: fileField });
+export const climatePreviewSchema = z.object({ kind: z.enum(['rain-curve', 'climate-normals'], { error: 'Choose a measured curve or monthly normals.' }), file: fileField });
 
 /**
  * Confirm: the same file again (it is parsed again on the server: a preview is never trusted),
@@ -36,3 +38,6 @@ export const uploadConfirmSchema = z
     if (!v.sourceNote) ctx.addIssue({ code: 'custom', path: ['sourceNote'], message: 'Say where the figures come from (weather service, station, years).' });
   });
 export type UploadConfirmInput = z.infer<typeof uploadConfirmSchema>;
+
+export const catalogueConfirmSchema = z.object({ kind: z.literal('dish-catalogue').default('dish-catalogue'), file: fileField });
+export const climateConfirmSchema = uploadConfirmSchema.refine((v) => v.kind !== 'dish-catalogue', { path: ['kind'], message: 'Choose a measured curve or monthly normals.' });

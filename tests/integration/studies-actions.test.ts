@@ -59,8 +59,9 @@ const CASES: Case[] = [
   { name: 'updateDish', allowed: ['admin'], run: () => callAction(catalogueActions.updateDish, { id: String(world.dishIds[0]), name: `Renamed ${Math.random()}`, diameterM: '0.6', efficiency: '0.65', hardwarePrice: '89', labourPrice: '95', active: 'on' }) },
   { name: 'createClimateProfile', allowed: ['admin'], run: () => callAction(climateActions.createClimateProfile, { name: 'Zone K', kind: 'climate-zone', zone: 'K', sourceNote: 'ITU-R P.837-1 map' }) },
   { name: 'createStudy', allowed: ['admin', 'installer'], run: () => callAction(studyActions.createStudy, newStudy()) },
-  { name: 'previewUpload (dishes)', allowed: ['admin'], run: () => callAction(uploadActions.previewUpload, { kind: 'dish-catalogue', file: csvFile(DISH_CSV) }) },
-  { name: 'confirmUpload (dishes)', allowed: ['admin'], run: () => callAction(uploadActions.confirmUpload, { kind: 'dish-catalogue', file: csvFile(DISH_CSV) }) },
+  { name: 'previewCatalogueUpload', allowed: ['admin'], run: () => callAction(uploadActions.previewCatalogueUpload, { file: csvFile(DISH_CSV) }) },
+  { name: 'confirmCatalogueUpload', allowed: ['admin'], run: () => callAction(uploadActions.confirmCatalogueUpload, { file: csvFile(DISH_CSV) }) },
+  { name: 'previewClimateUpload', allowed: ['admin'], run: () => callAction(uploadActions.previewClimateUpload, { kind: 'rain-curve', file: csvFile('p_percent,rain_rate_mm_h\n1,2\n0.001,80\n') }) },
 ];
 
 describe('part-A actions × roles', () => {

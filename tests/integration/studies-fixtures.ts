@@ -6,6 +6,10 @@ import { createClimateProfile } from '@/db/queries/climate-profiles';
 import { createDish } from '@/db/queries/dishes';
 import { serviceProfileSchema } from '@/server/validation/service-profile';
 import { suffix } from './support/factories';
+import { computeStudy } from '@/server/studies/compute-study';
+import { climateSnapshotOf, dishSnapshotOf, serviceSnapshotOf, siteSnapshotOf } from '@/server/studies/snapshot-of';
+import { insertStudy } from '@/db/queries/studies';
+import { recommendedDiameterOf } from '@/server/studies/create-study';
 
 /**
  * A small invented world for study tests: one customer with one site, one service on an invented
@@ -43,4 +47,33 @@ export async function countRows(table: string, companyId: number): Promise<numbe
   const { sequelize } = models();
   const [rows] = (await sequelize.query(`SELECT COUNT(*) AS n FROM \`${table}\` WHERE company_id = ?`, { replacements: [companyId] })) as [{ n: number }[], unknown];
   return Number(rows[0].n);
+}
+
+/**
+ * A study stored directly (computed by the real engine, written by the named query) without the
+ * plan's monthly study limit: for tests that need a study to exist, not to test creating one.
+ */
+export async function insertTestStudy(companyId: number, userId: string | null, w: StudyWorld, title = `Test study ${suffix()}`): Promise<number> {
+  const { Customer, Site, ServiceProfile, ClimateProfile, Dish, sequelize } = models();
+  const [customer, site, service, climate, dishes] = await Promise.all([
+    Customer.findByPk(w.customerId),
+    Site.findByPk(w.siteId),
+    ServiceProfile.findByPk(w.serviceId),
+    ClimateProfile.findByPk(w.climateId),
+    Dish.findAll({ where: { id: w.dishIds } }),
+  ]);
+  const { inputs, result } = computeStudy({
+    site: siteSnapshotOf(site!, customer!.name),
+    service: serviceSnapshotOf(service!),
+    climate: climateSnapshotOf(climate!),
+    dishes: dishes.map(dishSnapshotOf),
+    targetAvailabilityPercent: 99.9,
+  });
+  return sequelize.transaction((t) =>
+    insertStudy(companyId, {
+      customerId: customer!.id, siteId: site!.id, serviceProfileId: service!.id, climateProfileId: climate!.id, revisionOfStudyId: null, revision: 1,
+      title, customerName: customer!.name, siteName: site!.name, serviceName: service!.name, recommendedDiameterM: recommendedDiameterOf(result),
+      inputs, result, createdByUserId: userId,
+    }, t),
+  );
 }

@@ -5,7 +5,7 @@ import { models } from '@/db/models';
 import { createStudy, rerunStudy } from '@/server/actions/studies';
 import { updateDish, deleteDish } from '@/server/actions/catalogue';
 import { updateServiceProfile } from '@/server/actions/services';
-import { confirmUpload } from '@/server/actions/uploads';
+import { confirmCatalogueUpload as confirmUpload } from '@/server/actions/uploads';
 import { getStudy } from '@/db/queries/studies';
 import { createCompany, createUserWithRole, signInAs, type TestCompany } from './support/factories';
 import { createStudyWorld, TEST_SERVICE_FORM, type StudyWorld } from './studies-fixtures';

@@ -1,8 +1,15 @@
 import { asUser, callAction } from './support/next-request';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { closeSequelize } from '@/db/sequelize';
+import type { ActionState } from '@/server/actions/safe-action';
 import { models } from '@/db/models';
-import { confirmUpload, previewUpload } from '@/server/actions/uploads';
+import { confirmCatalogueUpload, confirmClimateUpload, previewCatalogueUpload, previewClimateUpload } from '@/server/actions/uploads';
+
+type Input = FormData | Record<string, unknown>;
+const isCatalogue = (input: Input) => !(input instanceof FormData) && (input.kind === 'dish-catalogue' || input.kind === undefined);
+// The catalogue and the climate files have their own actions (own permissions); these pick by kind.
+const previewUpload = (_prev: unknown, input: Input) => (isCatalogue(input) ? previewCatalogueUpload(null, input) : previewClimateUpload(null, input)) as Promise<ActionState<unknown>>;
+const confirmUpload = (_prev: unknown, input: Input) => (isCatalogue(input) ? confirmCatalogueUpload(null, input) : confirmClimateUpload(null, input)) as Promise<ActionState<unknown>>;
 import { MAX_UPLOAD_BYTES } from '@/server/uploads/upload-limits';
 import { createCompany, createUserWithRole, signInAs, type TestCompany } from './support/factories';
 import { countRows } from './studies-fixtures';
@@ -22,7 +29,7 @@ beforeAll(async () => {
   adminToken = await signInAs(await createUserWithRole(company.id, 'admin'));
 });
 
-const file = (text: string | Uint8Array, name = 'upload.csv') => new File([text], name, { type: 'text/csv' });
+const file = (text: string | Uint8Array, name = 'upload.csv') => new File([text as BlobPart], name, { type: 'text/csv' });
 const HEADER = 'name,diameter_m,efficiency,hardware_price,labour_price,mount_notes,active';
 // Invented catalogue (demo data).
 const GOOD = [HEADER, 'Heath 60,0.60,0.64,79.00,110.00,Wall bracket,yes', 'Heath 80,0.80,0.66,139.00,130.00,,yes', 'Heath 100,1.00,0.67,219.00,180.00,"Pole, 76 mm",no'].join('\n') + '\n';
