@@ -1,0 +1,127 @@
+import type { Metadata } from 'next';
+import { requirePermission } from '@/server/auth/guards';
+import { getBillingOverview, type BillingOverview } from '@/server/billing/overview';
+import { listPublicPlans, type PlanRow } from '@/db/queries/billing';
+import { LIVE_STATUSES } from '@/server/billing/policy';
+import { PlanPicker, type PickablePlan } from '@/components/billing/plan-picker';
+import { PortalButton } from '@/components/billing/portal-button';
+import { StatusBadge } from '@/components/billing/status-badge';
+import { UsageTable } from '@/components/billing/usage-table';
+import { RefreshWhilePending } from '@/components/billing/refresh-while-pending';
+import { billingDate, usd } from '@/components/billing/format';
+
+export const metadata: Metadata = { title: 'Billing' };
+export const dynamic = 'force-dynamic';
+
+function choiceFor(plan: PlanRow, o: BillingOverview): PickablePlan['choice'] {
+  const sub = o.subscription && (LIVE_STATUSES as readonly string[]).includes(o.subscription.status) ? o.subscription : null;
+  const own = o.limits.companyPlan;
+  if (sub) {
+    if (plan.id === own.id) return 'current';
+    if (sub.pendingPlan?.id === plan.id) return 'pending';
+    return plan.kind === 'free' ? 'via-portal' : 'change';
+  }
+  if (plan.id === own.id) return 'current';
+  return plan.kind === 'paid' ? 'checkout' : 'none';
+}
+
+function pickable(plans: PlanRow[], o: BillingOverview): PickablePlan[] {
+  return plans.map((p) => ({
+    id: p.id,
+    name: p.name,
+    description: p.description,
+    priceLabel: p.kind === 'paid' ? `${usd(p.monthlyPriceUsd)} / month` : 'Free',
+    kind: p.kind === 'paid' ? 'paid' : 'free',
+    seats: p.seatLimit,
+    studiesPerMonth: p.studiesPerMonth,
+    activeLinks: p.activeLinksLimit,
+    uploadsPerMonth: p.uploadsPerMonth,
+    apiAccess: p.apiAccess,
+    quoteBranding: p.quoteBranding,
+    choice: choiceFor(p, o),
+  }));
+}
+
+function CurrentPlan({ o }: { o: BillingOverview }) {
+  const { limits, subscription: sub } = o;
+  const b = limits.basis;
+  const facts: [string, string][] = [];
+  if (sub?.currentPeriodEnd) facts.push([sub.cancelAtPeriodEnd ? 'Ends on' : 'Renews on', billingDate(sub.currentPeriodEnd)]);
+  if (b.kind === 'trial' && b.endsAt) facts.push(['Trial ends on', billingDate(b.endsAt)]);
+  if (b.kind === 'past_due_grace') facts.push(['Grace period until', billingDate(b.graceEndsAt)]);
+  if (sub?.lastPaymentFailedAt) facts.push(['Last payment attempt failed', billingDate(sub.lastPaymentFailedAt)]);
+  const fallback = limits.planId !== limits.companyPlan.id;
+  return (
+    <section aria-labelledby="current-plan" className="rounded border border-stone-200 bg-white p-5">
+      <div className="flex flex-wrap items-center gap-3">
+        <h2 id="current-plan" className="text-lg font-semibold text-stone-900">{limits.companyPlan.name}</h2>
+        {sub ? (
+          <StatusBadge status={sub.cancelAtPeriodEnd && sub.status === 'active' ? 'canceled' : sub.status} label={sub.cancelAtPeriodEnd && sub.status === 'active' ? 'Active · cancels at period end' : undefined} />
+        ) : (
+          <StatusBadge status={b.kind === 'trial_ended' ? 'canceled' : 'active'} label={limits.companyPlan.kind === 'trial' ? (b.kind === 'trial_ended' ? 'Trial ended' : 'Trial') : limits.companyPlan.kind === 'free' ? 'Free' : 'Active'} />
+        )}
+      </div>
+      {facts.length > 0 && (
+        <dl className="mt-3 grid max-w-md grid-cols-[auto_1fr] gap-x-4 gap-y-1 text-sm">
+          {facts.map(([k, v]) => (
+            <div key={k} className="contents"><dt className="text-stone-600">{k}</dt><dd className="font-mono text-stone-900">{v}</dd></div>
+          ))}
+        </dl>
+      )}
+      {sub?.pendingPlan && (
+        <div className="mt-3 space-y-1 rounded border border-stone-200 bg-stone-50 p-3 text-sm">
+          <p>Change to <strong>{sub.pendingPlan.name}</strong> is waiting for the payment provider&apos;s confirmation.</p>
+          <RefreshWhilePending everySeconds={3} giveUpAfterSeconds={90} />
+        </div>
+      )}
+      {fallback && (
+        <p className="mt-3 rounded border border-amber-300 bg-amber-50 p-3 text-sm text-amber-950">
+          The <strong>{limits.planName}</strong> limits apply now
+          {b.kind === 'trial_ended' ? ' because the field trial has ended' : b.kind === 'past_due_expired' ? ' because a payment is overdue and the grace period is over' : b.kind === 'paused' ? ' because the subscription is paused' : ''}.
+          Nothing has been deleted; anything over a limit stays, and new items wait until the limit allows them.
+        </p>
+      )}
+      {o.hasBillingAccount && (
+        <div className="mt-4">
+          <PortalButton label={sub?.status === 'past_due' || sub?.status === 'unpaid' ? 'Pay the open invoice' : 'Manage payment, invoices or cancel'} />
+        </div>
+      )}
+    </section>
+  );
+}
+
+export default async function BillingPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
+  const ctx = await requirePermission('billing.manage');
+  const params = await searchParams;
+  const [overview, plans] = await Promise.all([getBillingOverview(ctx.companyId), listPublicPlans()]);
+  return (
+    <div className="mx-auto max-w-6xl space-y-8 px-4 py-6 sm:px-6">
+      <header>
+        <h1 className="text-2xl font-semibold tracking-tight text-stone-900">Billing</h1>
+        <p className="mt-1 text-sm text-stone-600">Plan, limits and payment for {ctx.company.name}.</p>
+      </header>
+
+      {params.checkout === 'canceled' && (
+        <p role="status" className="rounded border border-stone-300 bg-white p-3 text-sm text-stone-700">Checkout was cancelled. Nothing was charged and your plan is unchanged.</p>
+      )}
+
+      <CurrentPlan o={overview} />
+
+      <section aria-labelledby="limits">
+        <h2 id="limits" className="text-lg font-semibold text-stone-900">Limits and usage</h2>
+        <p className="mt-1 text-sm text-stone-600">What the <strong>{overview.limits.planName}</strong> plan allows, and what your team has used.</p>
+        <div className="mt-3 overflow-x-auto rounded border border-stone-200 bg-white px-4">
+          <UsageTable limits={overview.limits} usage={overview.usage} />
+        </div>
+      </section>
+
+      <section aria-labelledby="plans">
+        <h2 id="plans" className="text-lg font-semibold text-stone-900">Plans</h2>
+        <p className="mb-3 mt-1 text-sm text-stone-600">
+          Prices in US dollars per month. Paying happens on our payment provider&apos;s secure page; a change between paid plans is prorated.
+        </p>
+        <PlanPicker plans={pickable(plans, overview)} />
+      </section>
+    </div>
+  );
+}
