@@ -1,0 +1,17 @@
+import type { ReactNode } from 'react';
+import { AppShell } from '@/components/app-shell/app-shell';
+import { requireCompanyUser } from '@/server/auth/guards';
+import { listMembershipsOfUser } from '@/db/queries/team';
+
+export const dynamic = 'force-dynamic';
+
+/** Every company page: signed in (else sign-in), a member of a company (staff go to /staff). */
+export default async function AppLayout({ children }: { children: ReactNode }) {
+  const ctx = await requireCompanyUser();
+  const companies = await listMembershipsOfUser(ctx.user.id);
+  return (
+    <AppShell user={{ name: ctx.user.name, email: ctx.user.email, role: ctx.role, companyName: ctx.company.name, companyId: ctx.companyId, companies }}>
+      {children}
+    </AppShell>
+  );
+}
