@@ -1,0 +1,31 @@
+'use server';
+
+import { z } from 'zod';
+import { revalidatePath } from 'next/cache';
+import { safeAction } from './safe-action';
+import { removeLogo as remove, uploadLogo as upload } from '@/server/quotes/branding';
+import { LOGO_MAX_BYTES } from '@/server/quotes/logo-image';
+
+const BRANDING_PAGE = '/settings/branding';
+
+const logoSchema = z.object({
+  logo: z
+    .custom<Blob>((v) => typeof Blob !== 'undefined' && v instanceof Blob, 'Choose a PNG or JPEG file.')
+    .refine((f) => f.size > 0, 'Choose a PNG or JPEG file.')
+    // Checked again on the bytes; this stops a huge upload before it is read into memory.
+    .refine((f) => f.size <= LOGO_MAX_BYTES, `The logo must be at most ${LOGO_MAX_BYTES / 1024} KiB.`),
+});
+
+// Branding is an admin matter (product.md); the permission map has no branding entry, so the
+// admin-only billing permission stands for it (see the report to the lead).
+export const uploadLogo = safeAction({ schema: logoSchema, permission: 'billing.manage' }, async (input, ctx) => {
+  const image = await upload(ctx.companyId, Buffer.from(await input.logo.arrayBuffer()));
+  revalidatePath(BRANDING_PAGE);
+  return { message: `Logo saved (${image.width} × ${image.height} px). It appears on quote PDFs and customer pages.` };
+});
+
+export const removeLogo = safeAction({ schema: z.object({}), permission: 'billing.manage' }, async (_input, ctx) => {
+  await remove(ctx.companyId);
+  revalidatePath(BRANDING_PAGE);
+  return { message: 'Logo removed.' };
+});

@@ -1,0 +1,91 @@
+import type { StudyInputsSnapshot, StudyResultSnapshot } from '@/server/studies/snapshot';
+import type { TradeoffOption } from '@/server/engine/tradeoff-types';
+import type { QuoteOptionSnapshot, QuoteOutage, QuoteStudySnapshot } from './snapshot';
+import { sumAmounts } from './totals';
+
+/** The parts of a stored study a quote copies. */
+export interface StudyForQuote {
+  id: number;
+  title: string;
+  revision: number;
+  inputs: StudyInputsSnapshot;
+  result: StudyResultSnapshot;
+}
+
+function outageOf(option: TradeoffOption, basis: 'downlink' | 'two-way'): QuoteOutage {
+  // The study's recommendation basis decides which outage the customer is told about: a
+  // two-way terminal is only useful when both directions work (engine.md §4).
+  const f = basis === 'two-way' && option.twoWay ? option.twoWay : option;
+  return {
+    outagePercent: f.outagePercent,
+    outageBound: f.outageBound,
+    availabilityPercent: f.availabilityPercent,
+    outageMinutesPerYear: f.outageMinutesPerYear,
+    worstMonthOutageMinutes: f.worstMonthOutageMinutes,
+    isUpperBound: basis === 'two-way' && option.twoWay !== null,
+  };
+}
+
+/** Every option of the study as a customer-facing snapshot, in the study's order. */
+export function quoteOptionsOf(study: StudyForQuote): QuoteOptionSnapshot[] {
+  const { tradeoff } = study.result;
+  const rec = tradeoff.recommendation;
+  return tradeoff.options.map((o, i) => {
+    const dish = study.inputs.dishes[i];
+    const closes = o.closes && (rec.basis !== 'two-way' || (o.uplink?.closes ?? true));
+    return {
+      index: o.index ?? i,
+      dishName: dish?.name ?? `${Math.round(o.diameterM * 100)} cm dish`,
+      diameterM: o.diameterM,
+      gainDbi: o.gainDbi,
+      gOverTDbK: o.gOverTDbK,
+      marginDb: o.marginDb,
+      closes,
+      fadeThresholdDb: o.fadeThresholdDb,
+      outage: outageOf(o, rec.basis),
+      meetsTarget: o.meetsTarget,
+      minutesSavedPerYear: o.minutesSavedPerYear,
+      hardwarePrice: dish ? sumAmounts(dish.hardwarePrice) : '0.00',
+      labourPrice: dish ? sumAmounts(dish.labourPrice) : '0.00',
+      cataloguePrice: dish ? sumAmounts(dish.hardwarePrice, dish.labourPrice) : '0.00',
+      mountNotes: dish?.mountNotes ?? null,
+      smallestMeetingTarget: rec.smallestMeetingTargetIndex === i,
+      bestValue: rec.bestValueIndex === i,
+    };
+  });
+}
+
+/** Site, service, climate, pointing and warnings of the study, for the quote's own record. */
+export function quoteStudySnapshotOf(study: StudyForQuote): QuoteStudySnapshot {
+  const { inputs, result } = study;
+  const t = result.tradeoff;
+  return {
+    schemaVersion: 1,
+    studyId: study.id,
+    studyTitle: study.title,
+    studyRevision: study.revision,
+    engineVersion: result.engineVersion,
+    computedAt: result.computedAt,
+    site: {
+      name: inputs.site.name,
+      customerName: inputs.site.customerName,
+      latDeg: inputs.site.latDeg,
+      lonDeg: inputs.site.lonDeg,
+      altitudeM: inputs.site.altitudeM,
+    },
+    service: {
+      name: inputs.service.name,
+      satelliteName: inputs.service.satelliteName,
+      satelliteLongitudeDeg: inputs.service.satelliteLongitudeDeg,
+      downlinkFrequencyGHz: inputs.service.downlinkFrequencyGHz,
+      polarization: inputs.service.polarization,
+      modcod: inputs.service.modcod,
+      transmits: inputs.service.uplink !== null,
+    },
+    climate: { name: inputs.climate.name, sourceNote: inputs.climate.sourceNote },
+    pointing: { azimuthDeg: t.azimuthDeg, elevationDeg: t.elevationDeg, polarizationSkewDeg: t.polarizationSkewDeg },
+    targetAvailabilityPercent: t.recommendation.targetAvailabilityPercent,
+    basis: t.recommendation.basis,
+    warnings: t.warnings.map((w) => ({ code: w.code, message: w.message, ...(w.optionIndex !== undefined ? { optionIndex: w.optionIndex } : {}) })),
+  };
+}

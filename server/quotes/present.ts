@@ -1,0 +1,58 @@
+import type { QuoteOptionSnapshot, QuoteStudySnapshot } from './snapshot';
+import { describeOutage, diameterInWords, savingInWords, type OutageInWords } from './plain-words';
+
+/**
+ * Turns a quote's snapshots into what the customer's page and the PDF print: one place for the
+ * words, so both say the same. Pure.
+ */
+
+const COMPASS_16 = ['north', 'north-northeast', 'northeast', 'east-northeast', 'east', 'east-southeast', 'southeast', 'south-southeast', 'south', 'south-southwest', 'southwest', 'west-southwest', 'west', 'west-northwest', 'northwest', 'north-northwest'];
+
+/** 16-point compass word for an azimuth (degrees clockwise from true north). */
+export function compassWord(azimuthDeg: number): string {
+  const i = Math.round((((azimuthDeg % 360) + 360) % 360) / 22.5) % 16;
+  return COMPASS_16[i];
+}
+
+/** Orbital position as people write it: "19.2° E". */
+export function orbitalPosition(longitudeDeg: number): string {
+  const abs = Math.abs(longitudeDeg);
+  return `${abs.toFixed(1)}° ${longitudeDeg < 0 ? 'W' : 'E'}`;
+}
+
+export interface PresentedOption {
+  option: QuoteOptionSnapshot;
+  label: string;
+  diameter: string;
+  words: OutageInWords;
+  saving: string | null;
+  quoted: boolean;
+}
+
+/** The options in the order shown, each with its plain words; the smallest shown dish is the comparison baseline. */
+export function presentOptions(options: QuoteOptionSnapshot[], chosenIndex: number): PresentedOption[] {
+  const sorted = [...options].sort((a, b) => a.diameterM - b.diameterM || a.index - b.index);
+  const baseline = sorted.find((o) => o.closes) ?? sorted[0];
+  return sorted.map((o) => {
+    const saved = baseline && o.closes && baseline.closes ? baseline.outage.outageMinutesPerYear - o.outage.outageMinutesPerYear : 0;
+    // Only plain figures on both sides make a saving we can state; bounds would make it a guess.
+    const comparable = o.outage.outageBound === 'none' && baseline?.outage.outageBound === 'none';
+    return {
+      option: o,
+      label: o.dishName,
+      diameter: diameterInWords(o.diameterM),
+      words: describeOutage({ closes: o.closes, ...o.outage }),
+      saving: o !== baseline && comparable ? savingInWords(saved, diameterInWords(baseline.diameterM).split(' (')[0]) : null,
+      quoted: o.index === chosenIndex,
+    };
+  });
+}
+
+/** Two or three sentences about the site and the service, without jargon. */
+export function siteAndServiceInWords(s: QuoteStudySnapshot): { site: string; service: string; pointing: string } {
+  const site = `${s.site.name}, for ${s.site.customerName}.`;
+  const service = `${s.service.name}, from the ${s.service.satelliteName} satellite at ${orbitalPosition(s.service.satelliteLongitudeDeg)}${s.service.transmits ? ', sending as well as receiving' : ''}.`;
+  const p = s.pointing;
+  const pointing = `From this site the dish looks ${compassWord(p.azimuthDeg)} (${p.azimuthDeg.toFixed(1)}° from true north), ${p.elevationDeg.toFixed(1)}° above the horizon; the view in that direction must be clear of trees and buildings.`;
+  return { site, service, pointing };
+}

@@ -1,0 +1,57 @@
+import type { QuoteStatus } from './snapshot';
+
+/** Status words shown to the team (the customer sees sentences of their own). */
+export const QUOTE_STATUS_LABELS: Record<QuoteStatus, string> = {
+  draft: 'Draft',
+  sent: 'Sent',
+  viewed: 'Viewed',
+  accepted: 'Accepted',
+  declined: 'Declined',
+  expired: 'Expired',
+};
+
+/** Today's date in UTC as YYYY-MM-DD: validity dates are whole UTC days. */
+export function utcDay(now: Date = new Date()): string {
+  return now.toISOString().slice(0, 10);
+}
+
+/** A quote is valid through the whole of its valid_until day (UTC) and expired from the next. */
+export function isPastValidity(validUntil: string, now: Date = new Date()): boolean {
+  return utcDay(now) > validUntil;
+}
+
+/** The end of a validity day: the last instant the quote can be accepted. */
+export function endOfValidity(validUntil: string): Date {
+  return new Date(`${validUntil}T23:59:59.000Z`);
+}
+
+/**
+ * The status to show: a sent or viewed quote past its validity is expired even before anything
+ * wrote that down (expireOverdueQuotes records it on the next read).
+ */
+export function effectiveStatus(status: QuoteStatus, validUntil: string, now: Date = new Date()): QuoteStatus {
+  if ((status === 'sent' || status === 'viewed') && isPastValidity(validUntil, now)) return 'expired';
+  return status;
+}
+
+/** Only drafts may be edited or deleted: once a customer may have seen a quote, it stays as sent. */
+export function isEditable(status: QuoteStatus): boolean {
+  return status === 'draft';
+}
+
+/** Links may be made and e-mails sent until the customer decides or the quote expires. */
+export function isShareable(status: QuoteStatus): boolean {
+  return status === 'draft' || status === 'sent' || status === 'viewed';
+}
+
+/** Quote number as people say it: Q-0042. */
+export function quoteReference(number: number): string {
+  return `Q-${String(number).padStart(4, '0')}`;
+}
+
+/** YYYY-MM-DD + n days (UTC). */
+export function addDays(day: string, n: number): string {
+  const d = new Date(`${day}T00:00:00.000Z`);
+  d.setUTCDate(d.getUTCDate() + n);
+  return utcDay(d);
+}
