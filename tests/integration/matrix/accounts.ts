@@ -14,7 +14,7 @@ const SIGNED_IN = ['admin', 'installer', 'sales', 'staff'] as const;
 const ADMIN = ['admin'] as const;
 
 /** The account layer's rows. */
-export const cases: MatrixCase<never>[] = [
+export const cases: MatrixCase[] = [
   actionCase({ file: 'auth', exportName: 'signUp', action: signUp, access: 'public', allow: EVERYONE, input: () => ({ name: 'Matrix Founder', companyName: 'Matrix Trial Co', email: uniqueEmail('matrix-signup'), password: 'matrix-password-1' }) }),
   actionCase({
     file: 'auth',
@@ -62,10 +62,10 @@ export const cases: MatrixCase<never>[] = [
   routeCase({ method: 'GET', path: '/api/v1/me', handler: getMe, access: 'signed-in', allow: SIGNED_IN, request: () => ({ url: '/api/v1/me' }) }),
   routeCase({ method: 'GET', path: '/api/v1/team', handler: getTeam, access: 'team.read', allow: ADMIN, request: () => ({ url: '/api/v1/team' }) }),
   routeCase({ method: 'GET', path: '/api/health', handler: getHealth as never, access: 'public', allow: EVERYONE, request: () => ({ url: '/api/health' }) }),
-] as MatrixCase<never>[];
+];
 
 /** Company A's admin naming company B's rows by id: always 404, and B's rows stay as they were. */
-export const crossCompany: CrossCompanyCase<never>[] = [
+export const crossCompany: CrossCompanyCase[] = [
   {
     name: 'team#changeMemberRole on another company’s member',
     prepare: (w) => w.member('installer', w.otherCompany),
@@ -105,7 +105,7 @@ export const crossCompany: CrossCompanyCase<never>[] = [
       if (!(await models().Session.findByPk(p.digest))) throw new Error('the other person’s session was deleted');
     },
   },
-] as CrossCompanyCase<never>[];
+];
 
 import { callAction } from '../support/next-request';
 const callRow = (action: Parameters<typeof callAction>[0], input: Record<string, unknown>) => callAction(action, input);

@@ -42,27 +42,29 @@ export type MatrixWorld = {
 
 export type CellResult = ActionOutcome | Response;
 
-export type MatrixCase<P = unknown> = {
+// Method syntax on purpose: rows with different `prepared` types sit in one array (parameters
+// of methods are compared bivariantly), so an area file needs no casts.
+export interface MatrixCase<P = unknown> {
   /** Unique; actions as 'action <file>#<export>', routes as '<METHOD> <path pattern>' (used by the completeness check). */
   name: string;
   kind: 'action' | 'route';
   access: Access;
   /** The roles expected to pass the guard. Checked against PERMISSIONS[access] too. */
   allow: readonly MatrixRole[];
-  prepare?: (world: MatrixWorld, role: MatrixRole) => Promise<P>;
-  run: (world: MatrixWorld, prepared: P, role: MatrixRole) => Promise<CellResult>;
-};
+  prepare?(world: MatrixWorld, role: MatrixRole): Promise<unknown>;
+  run(world: MatrixWorld, prepared: P, role: MatrixRole): Promise<CellResult>;
+}
 
 /** A foreign row by id must answer 404 (never the row, never 403 that confirms it exists). */
-export type CrossCompanyCase<P = unknown> = {
+export interface CrossCompanyCase<P = unknown> {
   name: string;
   /** Which member of company A tries it (default admin: the widest rights). */
   as?: 'admin' | 'installer' | 'sales';
-  prepare?: (world: MatrixWorld) => Promise<P>;
-  run: (world: MatrixWorld, prepared: P) => Promise<CellResult>;
+  prepare?(world: MatrixWorld): Promise<unknown>;
+  run(world: MatrixWorld, prepared: P): Promise<CellResult>;
   /** Optional: assert the foreign row is unchanged afterwards. */
-  unchanged?: (world: MatrixWorld, prepared: P) => Promise<void>;
-};
+  unchanged?(world: MatrixWorld, prepared: P): Promise<void>;
+}
 
 type AnyAction = (prev: ActionState<never> | null, input: FormData | Record<string, unknown>) => Promise<ActionState<unknown>>;
 
