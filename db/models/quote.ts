@@ -1,3 +1,4 @@
+import Decimal from 'decimal.js';
 import { DataTypes, Model, type InferAttributes, type InferCreationAttributes, type CreationOptional, type Sequelize } from 'sequelize';
 import { QUOTE_STATUSES, type QuoteOptionSnapshot, type QuoteStatus, type QuoteStudySnapshot } from '@/server/quotes/snapshot';
 
@@ -47,7 +48,21 @@ export class Quote extends Model<InferAttributes<Quote>, InferCreationAttributes
   declare updatedAt: CreationOptional<Date>;
 }
 
-const money = () => ({ type: DataTypes.DECIMAL(12, 2), allowNull: false, defaultValue: '0.00' });
+/**
+ * The mariadb connector (with Sequelize's supportBigNumbers) hands back a DECIMAL whose fraction
+ * is zero as a JS number (189) and others as strings ('189.50'); these getters always give the
+ * canonical decimal string, so money never leaves the model as a float.
+ */
+type DecimalAttribute = 'hardwarePrice' | 'labourPrice' | 'extrasPrice' | 'discountAmount' | 'taxRatePercent' | 'subtotal' | 'taxAmount' | 'total';
+
+function decimalGetter(name: DecimalAttribute, places: number) {
+  return function (this: Quote): string {
+    const v = this.getDataValue(name) as unknown;
+    return v === null || v === undefined ? (v as unknown as string) : new Decimal(String(v)).toFixed(places);
+  };
+}
+
+const money = (name: DecimalAttribute) => ({ type: DataTypes.DECIMAL(12, 2), allowNull: false, defaultValue: '0.00', get: decimalGetter(name, 2) });
 
 export function initQuote(sequelize: Sequelize): void {
   Quote.init(
@@ -68,15 +83,15 @@ export function initQuote(sequelize: Sequelize): void {
       options: { type: DataTypes.JSON, allowNull: false },
       studySnapshot: { type: DataTypes.JSON, allowNull: false },
       currency: { type: DataTypes.CHAR(3), allowNull: false, defaultValue: 'USD' },
-      hardwarePrice: money(),
-      labourPrice: money(),
+      hardwarePrice: money('hardwarePrice'),
+      labourPrice: money('labourPrice'),
       extrasLabel: { type: DataTypes.STRING(120), allowNull: true },
-      extrasPrice: money(),
-      discountAmount: money(),
-      taxRatePercent: { type: DataTypes.DECIMAL(6, 3), allowNull: false, defaultValue: '0.000' },
-      subtotal: money(),
-      taxAmount: money(),
-      total: money(),
+      extrasPrice: money('extrasPrice'),
+      discountAmount: money('discountAmount'),
+      taxRatePercent: { type: DataTypes.DECIMAL(6, 3), allowNull: false, defaultValue: '0.000', get: decimalGetter('taxRatePercent', 3) },
+      subtotal: money('subtotal'),
+      taxAmount: money('taxAmount'),
+      total: money('total'),
       validUntil: { type: DataTypes.DATEONLY, allowNull: false },
       notes: { type: DataTypes.TEXT, allowNull: true },
       sentAt: { type: DataTypes.DATE, allowNull: true },

@@ -1,4 +1,5 @@
 import 'server-only';
+import Decimal from 'decimal.js';
 import { QueryTypes, type Transaction } from 'sequelize';
 import { models } from '../models';
 import type { QuoteEventKind } from '../models/quote-event';
@@ -41,7 +42,7 @@ type ListRow = {
   site_name: string;
   service_name: string;
   chosen_dish_name: string | null;
-  total: string;
+  total: string | number;
   currency: string;
   valid_until: string | Date;
   study_id: number | null;
@@ -52,6 +53,9 @@ type ListRow = {
   created_at: Date;
   updated_at: Date;
 };
+
+/** DECIMAL as read (the connector gives 189 for 189.00, '189.50' otherwise) → exact decimal string. */
+const dec = (v: unknown, places = 2): string => new Decimal(String(v ?? 0)).toFixed(places);
 
 const day = (v: string | Date) => (typeof v === 'string' ? v.slice(0, 10) : v.toISOString().slice(0, 10));
 
@@ -66,7 +70,7 @@ function toListItem(r: ListRow): QuoteListItem {
     siteName: r.site_name,
     serviceName: r.service_name,
     chosenDishName: r.chosen_dish_name ?? '',
-    total: String(r.total),
+    total: dec(r.total),
     currency: r.currency,
     validUntil: day(r.valid_until),
     studyId: r.study_id,
@@ -192,14 +196,14 @@ function toDetail(r: DetailRow): QuoteDetail {
     chosenOption: json<QuoteOptionSnapshot>(r.chosen_option),
     options: json<QuoteOptionSnapshot[]>(r.options),
     studySnapshot: json<QuoteStudySnapshot>(r.study_snapshot),
-    hardwarePrice: String(r.hardware_price),
-    labourPrice: String(r.labour_price),
+    hardwarePrice: dec(r.hardware_price),
+    labourPrice: dec(r.labour_price),
     extrasLabel: r.extras_label,
-    extrasPrice: String(r.extras_price),
-    discountAmount: String(r.discount_amount),
-    taxRatePercent: String(r.tax_rate_percent),
-    subtotal: String(r.subtotal),
-    taxAmount: String(r.tax_amount),
+    extrasPrice: dec(r.extras_price),
+    discountAmount: dec(r.discount_amount),
+    taxRatePercent: dec(r.tax_rate_percent, 3),
+    subtotal: dec(r.subtotal),
+    taxAmount: dec(r.tax_amount),
     notes: r.notes,
     sentAt: iso(r.sent_at),
     firstViewedAt: iso(r.first_viewed_at),

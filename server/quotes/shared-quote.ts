@@ -142,3 +142,27 @@ async function tellTheTeam(companyId: number, quote: QuoteDetail, decision: 'acc
     await sendMail({ to: email, ...mail });
   }
 }
+
+/** Link unfurlers and mail scanners that fetch a URL without a person behind it (common practice, no source). */
+const PREVIEW_AGENTS = /bot\b|crawler|spider|slurp|facebookexternalhit|embedly|preview|unfurl|whatsapp|skypeuripreview|outlook-ios-linkpreview|googleimageproxy/i;
+
+/**
+ * Whether this request is a person opening the page: not a server action re-render (the accept
+ * form), not a router prefetch or refresh, not a link-preview robot.
+ */
+export function countsAsView(h: Headers): boolean {
+  if (h.get('next-action') || h.get('next-router-prefetch') || h.get('rsc') === '1') return false;
+  const purpose = h.get('purpose') ?? h.get('sec-purpose') ?? '';
+  if (/prefetch|prerender/i.test(purpose)) return false;
+  return !PREVIEW_AGENTS.test(h.get('user-agent') ?? '');
+}
+
+/** The customer's page: the quote for the token (null → 404), counting the view when a person opened it. */
+export async function openSharedPage(token: string, h: Headers, meta: RequestMeta, now: Date = new Date()): Promise<SharedQuote | null> {
+  const shared = await loadSharedQuote(token, now);
+  if (!shared) return null;
+  if (!countsAsView(h)) return shared;
+  await recordShareView(shared.linkId, shared.companyId, shared.quote.id, meta, now);
+  const status = shared.quote.status === 'sent' ? 'viewed' : shared.quote.status;
+  return { ...shared, quote: { ...shared.quote, status } };
+}
