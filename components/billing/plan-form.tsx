@@ -1,8 +1,9 @@
 'use client';
 
 import { useActionState } from 'react';
-import { useFormStatus } from 'react-dom';
 import type { ActionState } from '@/server/actions/safe-action';
+import { SubmitButton } from '@/components/ui/submit-button';
+import { FormStatus } from '@/components/ui/form-status';
 import { createPlanAction, updatePlanAction } from '@/server/actions/plans';
 
 export type PlanFormValues = {
@@ -22,15 +23,6 @@ export type PlanFormValues = {
   sortOrder: number;
   trialDays: number | null;
 };
-
-function Submit({ label }: { label: string }) {
-  const { pending } = useFormStatus();
-  return (
-    <button type="submit" disabled={pending} className="rounded bg-ledger-700 px-4 py-2 text-sm font-medium text-white hover:bg-ledger-800 disabled:opacity-60">
-      {pending ? 'Saving and syncing…' : label}
-    </button>
-  );
-}
 
 function Field({ name, label, hint, errors, children }: { name: string; label: string; hint?: string; errors?: string[]; children: React.ReactNode }) {
   return (
@@ -111,8 +103,8 @@ export function PlanForm({ initial }: { initial: PlanFormValues }) {
         </Field>
       </div>
       <div className="flex flex-wrap items-center gap-4">
-        <Submit label={editing ? 'Save and sync' : 'Create and sync'} />
-        <p aria-live="polite" className={`text-sm ${state && !state.ok ? 'text-red-700' : 'text-ledger-800'}`}>{state ? (state.ok ? state.message : state.error) : ''}</p>
+        <SubmitButton pendingLabel="Saving and syncing…">{editing ? 'Save and sync' : 'Create and sync'}</SubmitButton>
+        <FormStatus state={state} />
       </div>
     </form>
   );

@@ -1,8 +1,9 @@
 'use client';
 
 import { useActionState } from 'react';
-import { useFormStatus } from 'react-dom';
 import type { ActionState } from '@/server/actions/safe-action';
+import { SubmitButton } from '@/components/ui/submit-button';
+import { FormStatus } from '@/components/ui/form-status';
 import { changePlanAction, startCheckoutAction } from '@/server/actions/billing';
 
 export type PickablePlan = {
@@ -20,15 +21,6 @@ export type PickablePlan = {
   /** What choosing it does now. */
   choice: 'current' | 'checkout' | 'change' | 'pending' | 'via-portal' | 'none';
 };
-
-function Submit({ label }: { label: string }) {
-  const { pending } = useFormStatus();
-  return (
-    <button type="submit" disabled={pending} className="w-full rounded bg-ledger-700 px-3 py-2 text-sm font-medium text-white hover:bg-ledger-800 disabled:opacity-60">
-      {pending ? 'Working…' : label}
-    </button>
-  );
-}
 
 function PlanChoice({ plan }: { plan: PickablePlan }) {
   const action = plan.choice === 'change' ? changePlanAction : startCheckoutAction;
@@ -51,12 +43,14 @@ function PlanChoice({ plan }: { plan: PickablePlan }) {
       control = (
         <form action={formAction}>
           <input type="hidden" name="planId" value={plan.id} />
-          <Submit label={plan.choice === 'change' ? `Switch to ${plan.name}` : `Choose ${plan.name}`} />
+          <SubmitButton className="w-full" pendingLabel={plan.choice === 'change' ? 'Sending…' : 'Opening checkout…'}>
+            {plan.choice === 'change' ? `Switch to ${plan.name}` : `Choose ${plan.name}`}
+          </SubmitButton>
         </form>
       );
   }
   return (
-    <li className={`flex flex-col rounded border bg-white p-4 ${plan.choice === 'current' ? 'border-ledger-500 ring-1 ring-ledger-500' : 'border-stone-200'}`} aria-label={`${plan.name} plan`}>
+    <li className={`flex flex-col rounded-md border bg-white p-4 ${plan.choice === 'current' ? 'border-ledger-500 ring-1 ring-ledger-500' : 'border-stone-200'}`} aria-label={`${plan.name} plan`}>
       <h3 className="text-base font-semibold text-stone-900">{plan.name}</h3>
       <p className="mt-1 font-mono text-lg text-stone-900">{plan.priceLabel}</p>
       {plan.description && <p className="mt-1 text-sm text-stone-600">{plan.description}</p>}
@@ -69,9 +63,7 @@ function PlanChoice({ plan }: { plan: PickablePlan }) {
         <dt className="text-stone-600">Quote branding</dt><dd className="text-right">{plan.quoteBranding ? 'Yes' : '—'}</dd>
       </dl>
       <div className="mt-auto pt-4">{control}</div>
-      <p aria-live="polite" className={`mt-2 text-sm ${state && !state.ok ? 'text-red-700' : 'text-ledger-800'}`}>
-        {state ? (state.ok ? state.message : state.error) : ''}
-      </p>
+      <FormStatus state={state} className="mt-2" />
     </li>
   );
 }

@@ -39,7 +39,7 @@ export function UsageTable({ limits, usage }: { limits: PlanLimits; usage: PlanU
                 <span className="block text-xs font-normal text-stone-500">{r.note}</span>
               </th>
               <td className={`num py-2 pr-3 ${full ? 'font-semibold text-amber-800' : ''}`}>{r.used === null ? '' : count(r.used)}</td>
-              <td className="num py-2 pr-3">{numeric ? count(r.limit as number) : r.limit ? 'Included' : 'Not included'}</td>
+              <td className="num py-2 pr-3">{numeric ? count(r.limit as number) : r.limit ? 'Yes' : <><span aria-hidden="true">—</span><span className="sr-only">Not included</span></>}</td>
               <td className="hidden py-3 sm:table-cell">
                 {share !== null && (
                   <div className="h-1.5 w-full rounded bg-stone-200" aria-hidden="true">

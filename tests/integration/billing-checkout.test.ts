@@ -17,7 +17,12 @@ import { companyPlanId, createBillingCompany, eventOf, planIdByCode, rand, subsc
  * page, plan change, a failed renewal and its recovery, cancellation in the portal. The events the
  * provider sent are then delivered to our webhook route in a chosen order.
  */
-afterAll(closeSequelize);
+const madePlans: number[] = [];
+afterAll(async () => {
+  // Keep the shared test database's plan picker clean for the browser tests.
+  if (madePlans.length) await models().Plan.update({ isPublic: false }, { where: { id: madePlans } });
+  await closeSequelize();
+});
 
 const fakeBase = () => `${process.env.STRIPE_API_PROTOCOL ?? 'http'}://${process.env.STRIPE_API_HOST}:${process.env.STRIPE_API_PORT}`;
 
@@ -29,6 +34,7 @@ async function newPaidPlan(price: string, seats = 3) {
     activeLinksLimit: 8, uploadsPerMonth: 4, apiAccess: false, quoteBranding: true, kind: 'paid', trialDays: null, isPublic: true, sortOrder: 95,
     stripeProductId: null, stripePriceId: null,
   });
+  madePlans.push(plan.id);
   return plan;
 }
 

@@ -19,7 +19,7 @@ export default async function AccountsPage({ searchParams }: { searchParams: Pro
   const pages = Math.max(1, Math.ceil(total / PAGE_SIZE));
   const now = Date.now();
   return (
-    <div className="mx-auto max-w-6xl space-y-5 px-4 py-6 sm:px-6">
+    <div className="space-y-5">
       <header className="flex flex-wrap items-end justify-between gap-3">
         <div>
           <h1 className="text-2xl font-semibold tracking-tight text-stone-900">Accounts</h1>

@@ -14,7 +14,7 @@ export default async function PlansPage() {
   const plans = await listAllPlans();
   const [sync, companies] = await Promise.all([getPlanProviderSync(plans.map((p) => p.id)), Promise.all(plans.map((p) => countCompaniesOnPlan(p.id)))]);
   return (
-    <div className="mx-auto max-w-6xl space-y-5 px-4 py-6 sm:px-6">
+    <div className="space-y-5">
       <header className="flex flex-wrap items-end justify-between gap-3">
         <div>
           <h1 className="text-2xl font-semibold tracking-tight text-stone-900">Plan catalogue</h1>

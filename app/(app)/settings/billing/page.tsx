@@ -9,6 +9,8 @@ import { StatusBadge } from '@/components/billing/status-badge';
 import { UsageTable } from '@/components/billing/usage-table';
 import { RefreshWhilePending } from '@/components/billing/refresh-while-pending';
 import { billingDate, usd } from '@/components/billing/format';
+import { PageHeader } from '@/components/ui/page-header';
+import { Notice } from '@/components/ui/notice';
 
 export const metadata: Metadata = { title: 'Billing' };
 export const dynamic = 'force-dynamic';
@@ -42,6 +44,25 @@ function pickable(plans: PlanRow[], o: BillingOverview): PickablePlan[] {
   }));
 }
 
+function summaryLine(o: BillingOverview): string {
+  const { limits, subscription: sub } = o;
+  if (sub) {
+    if (sub.status === 'past_due' || sub.status === 'unpaid') return 'The last payment did not go through. Pay the open invoice to keep this plan.';
+    if (sub.cancelAtPeriodEnd) return 'Cancelled: the plan stays until the end of the paid period, then the free tier applies. You can undo this in the portal.';
+    return 'Billed monthly by our payment provider.';
+  }
+  switch (limits.companyPlan.kind) {
+    case 'trial':
+      return limits.basis.kind === 'trial_ended'
+        ? 'Your field trial has ended. Choose a plan below to lift the free-tier limits.'
+        : 'Field trial: choose a plan before it ends to keep room for your team; otherwise the free tier applies.';
+    case 'free':
+      return 'No payment needed. Choose a paid plan below for more seats, studies and comparison links.';
+    default:
+      return 'Assigned to your company by FadeLedger; no subscription is billed.';
+  }
+}
+
 function CurrentPlan({ o }: { o: BillingOverview }) {
   const { limits, subscription: sub } = o;
   const b = limits.basis;
@@ -52,7 +73,7 @@ function CurrentPlan({ o }: { o: BillingOverview }) {
   if (sub?.lastPaymentFailedAt) facts.push(['Last payment attempt failed', billingDate(sub.lastPaymentFailedAt)]);
   const fallback = limits.planId !== limits.companyPlan.id;
   return (
-    <section aria-labelledby="current-plan" className="rounded border border-stone-200 bg-white p-5">
+    <section aria-labelledby="current-plan" className="rounded-md border border-stone-200 bg-white p-4 sm:p-5">
       <div className="flex flex-wrap items-center gap-3">
         <h2 id="current-plan" className="text-lg font-semibold text-stone-900">{limits.companyPlan.name}</h2>
         {sub ? (
@@ -61,6 +82,7 @@ function CurrentPlan({ o }: { o: BillingOverview }) {
           <StatusBadge status={b.kind === 'trial_ended' ? 'canceled' : 'active'} label={limits.companyPlan.kind === 'trial' ? (b.kind === 'trial_ended' ? 'Trial ended' : 'Trial') : limits.companyPlan.kind === 'free' ? 'Free' : 'Active'} />
         )}
       </div>
+      <p className="mt-1 text-sm text-stone-600">{summaryLine(o)}</p>
       {facts.length > 0 && (
         <dl className="mt-3 grid max-w-md grid-cols-[auto_1fr] gap-x-4 gap-y-1 text-sm">
           {facts.map(([k, v]) => (
@@ -95,14 +117,11 @@ export default async function BillingPage({ searchParams }: { searchParams: Prom
   const params = await searchParams;
   const [overview, plans] = await Promise.all([getBillingOverview(ctx.companyId), listPublicPlans()]);
   return (
-    <div className="mx-auto max-w-6xl space-y-8 px-4 py-6 sm:px-6">
-      <header>
-        <h1 className="text-2xl font-semibold tracking-tight text-stone-900">Billing</h1>
-        <p className="mt-1 text-sm text-stone-600">Plan, limits and payment for {ctx.company.name}.</p>
-      </header>
+    <div className="space-y-8">
+      <PageHeader title="Billing" description={`Plan, limits and payment for ${ctx.company.name}.`} />
 
       {params.checkout === 'canceled' && (
-        <p role="status" className="rounded border border-stone-300 bg-white p-3 text-sm text-stone-700">Checkout was cancelled. Nothing was charged and your plan is unchanged.</p>
+        <div role="status"><Notice>Checkout was cancelled. Nothing was charged and your plan is unchanged.</Notice></div>
       )}
 
       <CurrentPlan o={overview} />
@@ -110,7 +129,7 @@ export default async function BillingPage({ searchParams }: { searchParams: Prom
       <section aria-labelledby="limits">
         <h2 id="limits" className="text-lg font-semibold text-stone-900">Limits and usage</h2>
         <p className="mt-1 text-sm text-stone-600">What the <strong>{overview.limits.planName}</strong> plan allows, and what your team has used.</p>
-        <div className="mt-3 overflow-x-auto rounded border border-stone-200 bg-white px-4">
+        <div className="mt-3 overflow-x-auto rounded-md border border-stone-200 bg-white px-4">
           <UsageTable limits={overview.limits} usage={overview.usage} />
         </div>
       </section>

@@ -16,7 +16,7 @@ export default async function EditPlanPage({ params }: { params: Promise<{ planI
   if (!plan) notFound();
   const companies = await countCompaniesOnPlan(plan.id);
   return (
-    <div className="mx-auto max-w-4xl space-y-5 px-4 py-6 sm:px-6">
+    <div className="max-w-4xl space-y-5">
       <p className="text-sm"><Link href="/plans" className="text-ledger-700 hover:underline">← Plan catalogue</Link></p>
       <div>
         <h1 className="text-2xl font-semibold tracking-tight text-stone-900">{plan.name}</h1>

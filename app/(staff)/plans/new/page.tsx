@@ -8,7 +8,7 @@ export const metadata: Metadata = { title: 'New plan' };
 export default async function NewPlanPage() {
   await requirePermission('plans.manage');
   return (
-    <div className="mx-auto max-w-4xl space-y-5 px-4 py-6 sm:px-6">
+    <div className="max-w-4xl space-y-5">
       <p className="text-sm"><Link href="/plans" className="text-ledger-700 hover:underline">← Plan catalogue</Link></p>
       <h1 className="text-2xl font-semibold tracking-tight text-stone-900">New plan</h1>
       <div className="rounded border border-stone-200 bg-white p-5">

@@ -73,5 +73,5 @@ export default async function CheckoutReturnPage({ searchParams }: { searchParam
 }
 
 function Shell({ children }: { children: React.ReactNode }) {
-  return <div className="mx-auto max-w-3xl space-y-4 px-4 py-8 sm:px-6">{children}</div>;
+  return <div className="max-w-3xl space-y-4">{children}</div>;
 }
