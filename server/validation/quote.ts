@@ -100,7 +100,14 @@ export const customerDecisionSchema = z
   .object({
     token: z.string().regex(/^[A-Za-z0-9_-]{20,128}$/, 'This link is not valid.'),
     decision: z.enum(['accept', 'decline'], { error: 'Choose accept or decline.' }),
-    name: requiredText('Your name', 160).refine((s) => s.length >= 2, 'Please type your full name.'),
+    name: z.preprocess(
+      (v) => (typeof v === 'string' ? v.trim().replace(/\s+/g, ' ') : v),
+      z
+        .string({ error: 'Your name is required.' })
+        .min(1, { message: 'Your name is required.', abort: true })
+        .min(2, 'Please type your full name.')
+        .max(160, 'Your name must be at most 160 characters.'),
+    ),
     comment: optionalText('Comment', 1000),
     confirm: checkboxField(),
   })
