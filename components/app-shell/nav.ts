@@ -40,8 +40,9 @@ export function isActive(pathname: string, href: string): boolean {
 
 /** The staff area's navigation (platform operator). */
 export const STAFF_NAV: readonly NavItem[] = [
-  { label: 'Accounts', href: '/staff', permission: 'accounts.read', section: 'work' },
-  { label: 'Plans', href: '/staff/plans', permission: 'plans.manage', section: 'setup' },
+  { label: 'Staff home', href: '/staff', permission: 'accounts.read', section: 'work' },
+  { label: 'Accounts', href: '/accounts', permission: 'accounts.read', section: 'work' },
+  { label: 'Plans', href: '/plans', permission: 'plans.manage', section: 'setup' },
 ];
 
 export function staffNavFor(role: Role): NavItem[] {
