@@ -19,7 +19,7 @@ export type PickablePlan = {
   apiAccess: boolean;
   quoteBranding: boolean;
   /** What choosing it does now. */
-  choice: 'current' | 'checkout' | 'change' | 'pending' | 'via-portal' | 'none';
+  choice: 'current' | 'checkout' | 'change' | 'pending' | 'via-portal' | 'scheduled' | 'none';
 };
 
 function PlanChoice({ plan }: { plan: PickablePlan }) {
@@ -35,6 +35,9 @@ function PlanChoice({ plan }: { plan: PickablePlan }) {
       break;
     case 'via-portal':
       control = <p className="text-center text-xs text-stone-600">Cancel your subscription in the billing portal; at the end of the paid period you move to {plan.name}.</p>;
+      break;
+    case 'scheduled':
+      control = <p className="text-center text-xs text-stone-600">Your company moves to {plan.name} when the paid period ends.</p>;
       break;
     case 'none':
       control = null;

@@ -88,6 +88,12 @@ export async function listPublicPlans(): Promise<PlanRow[]> {
   return Plan.findAll({ where: { isPublic: true, kind: { [Op.in]: ['free', 'paid'] } }, order: [['sortOrder', 'ASC'], ['id', 'ASC']] });
 }
 
+/** The plan new companies start on (sign-up), if the catalogue has one. */
+export async function getTrialPlan(t?: Transaction): Promise<PlanRow | null> {
+  const { Plan } = models();
+  return Plan.findOne({ where: { kind: 'trial' }, order: [['sortOrder', 'ASC'], ['id', 'ASC']], transaction: t });
+}
+
 /** The free tier every unpaid or expired account falls back to: the first free plan in display order. */
 export async function getFreeTierPlan(t?: Transaction): Promise<PlanRow | null> {
   const { Plan } = models();

@@ -1,6 +1,6 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
-import { listPublicPlans } from '@/db/queries/billing';
+import { getFreeTierPlan, getTrialPlan, listPublicPlans } from '@/db/queries/billing';
 import { count, usd } from '@/components/billing/format';
 
 export const metadata: Metadata = { title: 'Plans and prices', description: 'FadeLedger plans: seats, studies per month, comparison links, uploads and API access.' };
@@ -8,12 +8,13 @@ export const metadata: Metadata = { title: 'Plans and prices', description: 'Fad
 export const dynamic = 'force-dynamic';
 
 export default async function PricingPage() {
-  const plans = await listPublicPlans();
+  const [plans, trial, free] = await Promise.all([listPublicPlans(), getTrialPlan(), getFreeTierPlan()]);
   return (
     <div className="mx-auto max-w-6xl px-6 py-12">
       <h1 className="text-3xl font-semibold tracking-tight text-stone-900">Plans and prices</h1>
       <p className="mt-3 max-w-2xl text-stone-600">
-        Every account starts with a 14-day field trial with room for a crew. Afterwards, pick a plan — or stay on the free bench with one seat.
+        {trial?.trialDays ? `Every account starts with a ${trial.trialDays}-day ${trial.name.toLowerCase()} with room for ${trial.seatLimit} people. ` : ''}
+        Afterwards, pick a plan{free ? ` — or stay on ${free.name} for free, with ${free.seatLimit === 1 ? 'one seat' : `${free.seatLimit} seats`}` : ''}.
         Prices in US dollars per month; change or cancel any time.
       </p>
       <ul className="mt-8 grid gap-5 md:grid-cols-3">

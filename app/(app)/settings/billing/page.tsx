@@ -21,7 +21,8 @@ function choiceFor(plan: PlanRow, o: BillingOverview): PickablePlan['choice'] {
   if (sub) {
     if (plan.id === own.id) return 'current';
     if (sub.pendingPlan?.id === plan.id) return 'pending';
-    return plan.kind === 'free' ? 'via-portal' : 'change';
+    if (plan.kind === 'free') return sub.cancelAtPeriodEnd ? 'scheduled' : 'via-portal';
+    return 'change';
   }
   if (plan.id === own.id) return 'current';
   return plan.kind === 'paid' ? 'checkout' : 'none';

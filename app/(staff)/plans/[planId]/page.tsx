@@ -3,6 +3,7 @@ import Link from 'next/link';
 import { notFound } from 'next/navigation';
 import { requirePermission } from '@/server/auth/guards';
 import { countCompaniesOnPlan, getPlanById } from '@/db/queries/billing';
+import Decimal from 'decimal.js';
 import { PlanForm } from '@/components/billing/plan-form';
 
 export const metadata: Metadata = { title: 'Edit plan' };
@@ -27,7 +28,7 @@ export default async function EditPlanPage({ params }: { params: Promise<{ planI
       <div className="rounded border border-stone-200 bg-white p-5">
         <PlanForm
           initial={{
-            id: plan.id, code: plan.code, kind: plan.kind, name: plan.name, description: plan.description ?? '', monthlyPriceUsd: plan.monthlyPriceUsd,
+            id: plan.id, code: plan.code, kind: plan.kind, name: plan.name, description: plan.description ?? '', monthlyPriceUsd: new Decimal(plan.monthlyPriceUsd).toFixed(2),
             seatLimit: plan.seatLimit, studiesPerMonth: plan.studiesPerMonth, activeLinksLimit: plan.activeLinksLimit, uploadsPerMonth: plan.uploadsPerMonth,
             apiAccess: plan.apiAccess, quoteBranding: plan.quoteBranding, isPublic: plan.isPublic, sortOrder: plan.sortOrder, trialDays: plan.trialDays,
           }}
