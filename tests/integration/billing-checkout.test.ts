@@ -142,7 +142,8 @@ describe('checkout → webhooks → active plan → change → failed renewal �
     await changePlan(actor, fleetLike.id);
     expect((await subscriptionRow(subId))?.pendingPlanId).toBe(fleetLike.id);
     const [changed] = await eventsAbout([subId], ['customer.subscription.updated']).then((l) => l.slice(-1));
-    expect((await deliver(changed)).outcome).toBe('applied');
+    // 'duplicate' if an app on APP_URL already received the provider's own delivery of it.
+    expect(['applied', 'duplicate']).toContain((await deliver(changed)).outcome);
     expect(await companyPlanId(company.id)).toBe(fleetLike.id);
     expect((await subscriptionRow(subId))?.pendingPlanId).toBeNull();
 
