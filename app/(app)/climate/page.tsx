@@ -1,0 +1,107 @@
+import type { Metadata } from 'next';
+import { PageHeader } from '@/components/ui/page-header';
+import { Card, CardBody, CardHeader } from '@/components/ui/card';
+import { EmptyRow, Table, TBody, THead, Td, Th } from '@/components/ui/table';
+import { ClimateForm } from '@/components/climate/climate-form';
+import { DeleteRowButton } from '@/components/catalogue/delete-button';
+import { UploadPanel } from '@/components/uploads/upload-panel';
+import { fixed } from '@/components/study/format';
+import { requirePermission } from '@/server/auth/guards';
+import { can } from '@/server/auth/permissions';
+import { deleteClimateProfile } from '@/server/actions/climate';
+import { confirmClimateUpload, previewClimateUpload } from '@/server/actions/uploads';
+import { listClimateProfiles } from '@/db/queries/climate-profiles';
+import { CLIMATE_KIND_LABELS } from '@/server/validation/climate';
+import { resolveRainClimate } from '@/server/engine';
+import { rainInputOf } from '@/server/studies/build-scenario';
+import { climateSnapshotOf } from '@/server/studies/snapshot-of';
+
+export const metadata: Metadata = { title: 'Climate' };
+
+/** R0.01 each profile gives (the figure ITU-R P.618-14 works from), or why it cannot. */
+function r001Of(profile: Parameters<typeof climateSnapshotOf>[0]): string {
+  try {
+    return `${fixed(resolveRainClimate(rainInputOf(climateSnapshotOf(profile))).r001MmH, 1)} mm/h`;
+  } catch (e) {
+    return `not usable: ${(e as Error).message}`;
+  }
+}
+
+export default async function ClimatePage() {
+  const ctx = await requirePermission('study.read');
+  const admin = can(ctx.role, 'climate.write');
+  const profiles = await listClimateProfiles(ctx.companyId);
+  return (
+    <>
+      <PageHeader
+        title="Rain climate profiles"
+        description="Where the rain figures of a study come from. Monthly normals from the national weather service (ITU-R P.837-7 Annex 1) are the method to prefer; a measured curve beats any global model."
+      />
+      <div className="space-y-6">
+        <Card aria-labelledby="profiles-title">
+          <CardHeader id="profiles-title" title={`${profiles.length} profile${profiles.length === 1 ? '' : 's'}`} />
+          <CardBody className="px-0 sm:px-0">
+            <Table caption="Climate profiles">
+              <THead>
+                <tr>
+                  <Th>Profile</Th>
+                  <Th>Kind</Th>
+                  <Th numeric>R0.01</Th>
+                  <Th numeric>0 °C isotherm</Th>
+                  <Th>Source</Th>
+                  {admin && <Th><span className="sr-only">Actions</span></Th>}
+                </tr>
+              </THead>
+              <TBody>
+                {profiles.length === 0 && <EmptyRow colSpan={admin ? 6 : 5}>No climate profiles yet.</EmptyRow>}
+                {profiles.map((p) => (
+                  <tr key={p.id}>
+                    <Th scope="row" className="font-medium text-stone-900">
+                      {p.name}
+                    </Th>
+                    <Td>{CLIMATE_KIND_LABELS[p.kind]}</Td>
+                    <Td numeric className="whitespace-nowrap">{r001Of(p)}</Td>
+                    <Td numeric className="whitespace-nowrap">{p.zeroIsothermKm === null ? <span className="text-amber-800">approximation</span> : `${fixed(Number(p.zeroIsothermKm), 2)} km`}</Td>
+                    <Td className="max-w-sm text-stone-700">
+                      {p.sourceNote}
+                      {p.uploadId !== null && <span className="block text-xs text-stone-600">from an uploaded file (kept with its report)</span>}
+                    </Td>
+                    {admin && (
+                      <Td>
+                        <DeleteRowButton action={deleteClimateProfile} id={p.id} label={`Delete ${p.name}`} confirmText={`Delete the climate profile ${p.name}? Studies made with it keep their own copy.`} />
+                      </Td>
+                    )}
+                  </tr>
+                ))}
+              </TBody>
+            </Table>
+          </CardBody>
+        </Card>
+        {admin && (
+          <div className="grid gap-6 xl:grid-cols-2">
+            <Card aria-labelledby="upload-climate-title">
+              <CardHeader id="upload-climate-title" title="Upload normals or a measured curve" />
+              <CardBody>
+                <UploadPanel
+                  kinds={[
+                    { value: 'climate-normals', label: 'Monthly normals', columns: 'month, mean_total_rainfall_mm, mean_surface_temperature_c (12 rows)', example: '1,78.4,4.2' },
+                    { value: 'rain-curve', label: 'Measured exceedance curve', columns: 'p_percent, rain_rate_mm_h (must include 0.01 %)', example: '0.01,42.5' },
+                  ]}
+                  preview={previewClimateUpload}
+                  confirm={confirmClimateUpload}
+                  needsProfileFields
+                />
+              </CardBody>
+            </Card>
+            <Card aria-labelledby="add-climate-title">
+              <CardHeader id="add-climate-title" title="Type in a climate" />
+              <CardBody>
+                <ClimateForm />
+              </CardBody>
+            </Card>
+          </div>
+        )}
+      </div>
+    </>
+  );
+}

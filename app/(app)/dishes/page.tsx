@@ -1,0 +1,120 @@
+import type { Metadata } from 'next';
+import { PageHeader } from '@/components/ui/page-header';
+import { Card, CardBody, CardHeader } from '@/components/ui/card';
+import { EmptyRow, Table, TBody, THead, Td, Th } from '@/components/ui/table';
+import { DishForm } from '@/components/catalogue/dish-form';
+import { DeleteRowButton } from '@/components/catalogue/delete-button';
+import { UploadPanel } from '@/components/uploads/upload-panel';
+import { diameterLabel, fixed, usd, dateFmt } from '@/components/study/format';
+import { requirePermission } from '@/server/auth/guards';
+import { can } from '@/server/auth/permissions';
+import { deleteDish } from '@/server/actions/catalogue';
+import { confirmCatalogueUpload, previewCatalogueUpload } from '@/server/actions/uploads';
+import { listDishes } from '@/db/queries/dishes';
+import { listUploads } from '@/db/queries/uploads';
+
+export const metadata: Metadata = { title: 'Dishes' };
+
+export default async function DishesPage() {
+  const ctx = await requirePermission('study.read');
+  const admin = can(ctx.role, 'catalogue.write');
+  const [dishes, uploads] = await Promise.all([listDishes(ctx.companyId), admin ? listUploads(ctx.companyId, { kind: 'dish-catalogue', limit: 5 }) : Promise.resolve([])]);
+  return (
+    <>
+      <PageHeader
+        title="Dish catalogue"
+        description="The dishes your studies compare, with your prices. A study copies the rows it uses, so editing a price here never changes a study or quote made earlier."
+      />
+      <div className="space-y-6">
+        <Card aria-labelledby="catalogue-title">
+          <CardHeader id="catalogue-title" title={`${dishes.length} dish${dishes.length === 1 ? '' : 'es'}`} description={admin ? 'Edit a row to change its price or take it out of new studies.' : 'Only an admin can change the catalogue.'} />
+          <CardBody className="px-0 sm:px-0">
+            <Table caption="Dish catalogue">
+              <THead>
+                <tr>
+                  <Th>Dish</Th>
+                  <Th numeric>Diameter</Th>
+                  <Th numeric>Efficiency</Th>
+                  <Th numeric>Hardware</Th>
+                  <Th numeric>Labour</Th>
+                  <Th numeric>Installed</Th>
+                  <Th>Mount</Th>
+                  <Th>Status</Th>
+                  {admin && <Th><span className="sr-only">Actions</span></Th>}
+                </tr>
+              </THead>
+              <TBody>
+                {dishes.length === 0 && <EmptyRow colSpan={admin ? 9 : 8}>No dishes yet.</EmptyRow>}
+                {dishes.map((d) => {
+                  const size = diameterLabel(Number(d.diameterM));
+                  return (
+                    <tr key={d.id} className={d.active ? '' : 'text-stone-500'}>
+                      <Th scope="row" className="font-medium text-stone-900">
+                        {d.name}
+                      </Th>
+                      <Td numeric className="whitespace-nowrap">
+                        {size.cm} <span className="text-xs text-stone-600">({size.inches})</span>
+                      </Td>
+                      <Td numeric>{fixed(Number(d.efficiency), 2)}</Td>
+                      <Td numeric>{usd(d.hardwarePrice)}</Td>
+                      <Td numeric>{usd(d.labourPrice)}</Td>
+                      <Td numeric>{usd((Number(d.hardwarePrice) + Number(d.labourPrice)).toFixed(2))}</Td>
+                      <Td className="max-w-xs text-stone-700">{d.mountNotes ?? '—'}</Td>
+                      <Td>{d.active ? 'offered' : 'not offered'}</Td>
+                      {admin && (
+                        <Td className="whitespace-nowrap">
+                          <details className="group">
+                            <summary className="cursor-pointer text-sm font-medium text-ledger-700">Edit<span className="sr-only"> {d.name}</span></summary>
+                            <div className="absolute left-4 right-4 z-10 mt-2 rounded-md border border-stone-200 bg-white p-4 shadow-lg sm:left-auto sm:right-8 sm:w-[42rem]">
+                              <DishForm dish={{ id: d.id, name: d.name, diameterM: d.diameterM, efficiency: d.efficiency, hardwarePrice: d.hardwarePrice, labourPrice: d.labourPrice, mountNotes: d.mountNotes, active: d.active }} />
+                              <div className="mt-3 border-t border-stone-200 pt-3">
+                                <DeleteRowButton action={deleteDish} id={d.id} label={`Delete ${d.name}`} confirmText={`Delete ${d.name} from the catalogue? Studies made with it keep their own copy.`} />
+                              </div>
+                            </div>
+                          </details>
+                        </Td>
+                      )}
+                    </tr>
+                  );
+                })}
+              </TBody>
+            </Table>
+          </CardBody>
+        </Card>
+        {admin && (
+          <div className="grid gap-6 xl:grid-cols-2">
+            <Card aria-labelledby="add-dish-title">
+              <CardHeader id="add-dish-title" title="Add a dish" />
+              <CardBody>
+                <DishForm />
+              </CardBody>
+            </Card>
+            <Card aria-labelledby="upload-dish-title">
+              <CardHeader id="upload-dish-title" title="Upload a price list" description="Dishes named in the file are updated; new names are added; the others stay as they are." />
+              <CardBody>
+                <UploadPanel
+                  kinds={[{ value: 'dish-catalogue', label: 'Dish catalogue', columns: 'name, diameter_m, efficiency, hardware_price, labour_price, mount_notes (optional), active (optional yes/no)', example: 'Ledger 90,0.90,0.67,189.00,160.00,Pole mount,yes' }]}
+                  preview={previewCatalogueUpload}
+                  confirm={confirmCatalogueUpload}
+                  needsProfileFields={false}
+                />
+                {uploads.length > 0 && (
+                  <div className="mt-6">
+                    <h3 className="text-sm font-semibold text-stone-900">Recent uploads</h3>
+                    <ul className="mt-2 space-y-1 text-sm text-stone-700">
+                      {uploads.map((u) => (
+                        <li key={u.id}>
+                          {u.originalFilename} · {Math.ceil(u.sizeBytes / 1024)} KiB · {dateFmt.format(u.createdAt)}
+                        </li>
+                      ))}
+                    </ul>
+                  </div>
+                )}
+              </CardBody>
+            </Card>
+          </div>
+        )}
+      </div>
+    </>
+  );
+}

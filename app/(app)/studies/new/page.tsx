@@ -1,0 +1,54 @@
+import type { Metadata } from 'next';
+import Link from 'next/link';
+import { PageHeader } from '@/components/ui/page-header';
+import { Card, CardBody } from '@/components/ui/card';
+import { Notice } from '@/components/ui/notice';
+import { NewStudyForm, type NewStudyOptions } from '@/components/study/new-study-form';
+import { orbitalSlot } from '@/components/study/format';
+import { requirePermission } from '@/server/auth/guards';
+import { CLIMATE_KIND_LABELS } from '@/server/validation/climate';
+import { listCustomerOptions } from '@/db/queries/customers';
+import { listSiteOptions } from '@/db/queries/sites';
+import { listServiceProfiles } from '@/db/queries/service-profiles';
+import { listClimateProfiles } from '@/db/queries/climate-profiles';
+import { listDishes } from '@/db/queries/dishes';
+
+export const metadata: Metadata = { title: 'New study' };
+
+export default async function NewStudyPage({ searchParams }: { searchParams: Promise<Record<string, string | undefined>> }) {
+  const ctx = await requirePermission('study.write');
+  const params = await searchParams;
+  const [customers, sites, services, climates, dishes] = await Promise.all([
+    listCustomerOptions(ctx.companyId),
+    listSiteOptions(ctx.companyId),
+    listServiceProfiles(ctx.companyId),
+    listClimateProfiles(ctx.companyId),
+    listDishes(ctx.companyId, { activeOnly: true }),
+  ]);
+  const options: NewStudyOptions = {
+    customers,
+    sites: sites.map((s) => ({ id: s.id, name: s.name, customerId: s.customerId })),
+    services: services.map((s) => ({ id: s.id, name: s.name, satelliteName: s.satelliteName, slot: orbitalSlot(Number(s.satelliteLongitudeDeg)), frequencyGHz: Number(s.downlinkFrequencyGhz) })),
+    climates: climates.map((c) => ({ id: c.id, name: c.name, kindLabel: CLIMATE_KIND_LABELS[c.kind] })),
+    dishes: dishes.map((d) => ({ id: d.id, name: d.name, diameterM: Number(d.diameterM), price: (Number(d.hardwarePrice) + Number(d.labourPrice)).toFixed(2) })),
+  };
+  const siteId = Number(params.site);
+  const presetSite = sites.find((s) => s.id === siteId);
+  const missing = [!services.length && 'a service profile', !climates.length && 'a climate profile', !dishes.length && 'an active dish'].filter(Boolean);
+  return (
+    <>
+      <PageHeader title="New study" description="Pick the site and the service; FadeLedger computes the link budget and rain outage of every dish you tick." />
+      {missing.length > 0 && (
+        <Notice tone="caution" className="mb-6" title="Set-up first">
+          A study needs {missing.join(', ')}. See <Link className="underline" href="/services">Services</Link>, <Link className="underline" href="/climate">Climate</Link> and{' '}
+          <Link className="underline" href="/dishes">Dishes</Link>.
+        </Notice>
+      )}
+      <Card>
+        <CardBody>
+          <NewStudyForm options={options} preset={presetSite ? { customerId: presetSite.customerId, siteId: presetSite.id } : undefined} />
+        </CardBody>
+      </Card>
+    </>
+  );
+}

@@ -1,0 +1,52 @@
+'use client';
+
+import { useState } from 'react';
+import { createClimateProfile } from '@/server/actions/climate';
+import { climateFormSchema } from '@/server/validation/climate';
+import { CLIMATE_ZONES } from '@/server/engine/p837-1-climate-zones';
+import { Button } from '@/components/ui/button';
+import { FormStatus } from '@/components/ui/form-status';
+import { SelectInput, TextInput } from '@/components/study/form-fields';
+import { useValidatedAction } from '@/components/study/use-validated-action';
+
+/** A climate typed in: a known R0.01 or a legacy ITU-R P.837-1 zone (normals and curves come as CSV). */
+export function ClimateForm() {
+  const [kind, setKind] = useState<'known-r001' | 'climate-zone'>('known-r001');
+  const { state, formAction, pending, onSubmit, errors, message, failed } = useValidatedAction(createClimateProfile, climateFormSchema, { resetOnSuccess: true });
+  return (
+    <form action={formAction} onSubmit={onSubmit} noValidate className="space-y-4" aria-label="Add a climate profile">
+      <fieldset>
+        <legend className="text-sm font-medium text-stone-800">Kind</legend>
+        <div className="mt-1 flex flex-wrap gap-4">
+          {(
+            [
+              ['known-r001', 'Known R0.01'],
+              ['climate-zone', 'ITU-R P.837-1 climate zone'],
+            ] as const
+          ).map(([v, l]) => (
+            <label key={v} className="inline-flex items-center gap-1.5 text-sm">
+              <input type="radio" name="kind" value={v} checked={kind === v} onChange={() => setKind(v)} className="accent-ledger-700" />
+              {l}
+            </label>
+          ))}
+        </div>
+      </fieldset>
+      <div className="grid gap-4 md:grid-cols-2">
+        <TextInput label="Name" name="name" errors={errors.name} />
+        {kind === 'known-r001' ? (
+          <TextInput label="R0.01 (mm/h)" name="r001MmH" inputMode="decimal" hint="Rain rate exceeded 0.01 % of an average year, e.g. read off the ITU-R P.837 map." errors={errors.r001MmH} />
+        ) : (
+          <SelectInput label="Zone" name="zone" placeholder="Choose a zone…" options={CLIMATE_ZONES.map((z) => ({ value: z, label: `Zone ${z}` }))} errors={errors.zone} hint="Legacy P.837-1 zones; prefer monthly normals where you have them." />
+        )}
+        <TextInput label="Source of the figure" name="sourceNote" placeholder="Where the value comes from" errors={errors.sourceNote} />
+        <TextInput label="0 °C isotherm height (km, optional)" name="zeroIsothermKm" inputMode="decimal" hint="ITU-R P.839-4 h0; blank uses the labelled latitude approximation." errors={errors.zeroIsothermKm} />
+      </div>
+      <div className="flex flex-wrap items-center gap-3">
+        <Button type="submit" disabled={pending}>
+          {pending ? 'Saving…' : 'Add climate profile'}
+        </Button>
+        <FormStatus state={failed ? { ok: false, error: message } : state} />
+      </div>
+    </form>
+  );
+}

@@ -1,0 +1,219 @@
+'use client';
+
+import { useEffect, useMemo, useState } from 'react';
+import { useRouter } from 'next/navigation';
+import { createStudy } from '@/server/actions/studies';
+import { newStudySchema, TARGET_AVAILABILITY_PERCENT } from '@/server/validation/study';
+import { parseCoordinate, formatDms } from '@/server/validation/coordinates';
+import { Button } from '@/components/ui/button';
+import { FormStatus } from '@/components/ui/form-status';
+import { SelectInput, TextInput } from './form-fields';
+import { useValidatedAction } from './use-validated-action';
+import { diameterLabel, usd } from './format';
+
+export type NewStudyOptions = {
+  customers: { id: number; name: string }[];
+  sites: { id: number; name: string; customerId: number }[];
+  services: { id: number; name: string; satelliteName: string; slot: string; frequencyGHz: number }[];
+  climates: { id: number; name: string; kindLabel: string }[];
+  dishes: { id: number; name: string; diameterM: number; price: string }[];
+};
+
+/** Live "= 47.123456° (47° 07′ 24.4″ N)" under a coordinate box, so a DMS typo shows before submitting. */
+function CoordinateEcho({ text, axis }: { text: string; axis: 'lat' | 'lon' }) {
+  if (!text.trim()) return null;
+  const r = parseCoordinate(text, axis);
+  return <span className={r.ok ? 'text-stone-600' : 'text-amber-800'}>{r.ok ? `= ${r.value}° (${formatDms(r.value, axis)})` : r.error}</span>;
+}
+
+function Radio({ name, value, checked, onChange, children }: { name: string; value: string; checked: boolean; onChange: (v: string) => void; children: string }) {
+  return (
+    <label className="inline-flex items-center gap-1.5 text-sm text-stone-800">
+      <input type="radio" name={name} value={value} checked={checked} onChange={() => onChange(value)} className="accent-ledger-700" />
+      {children}
+    </label>
+  );
+}
+
+/**
+ * The new-study form: customer and site (picked, or typed in with decimal or DMS coordinates),
+ * service, rain climate, the dishes to compare and the target availability. Checked in the
+ * browser with the same zod schema the server action uses; on success it opens the result.
+ */
+export function NewStudyForm({ options, preset }: { options: NewStudyOptions; preset?: { customerId?: number; siteId?: number } }) {
+  const router = useRouter();
+  const { state, formAction, pending, onSubmit, errors, message, failed } = useValidatedAction(createStudy, newStudySchema);
+  const [customerMode, setCustomerMode] = useState<'existing' | 'new'>(options.customers.length ? 'existing' : 'new');
+  const [siteMode, setSiteMode] = useState<'existing' | 'new'>(options.sites.length ? 'existing' : 'new');
+  const [customerId, setCustomerId] = useState(preset?.customerId ? String(preset.customerId) : '');
+  const [siteId, setSiteId] = useState(preset?.siteId ? String(preset.siteId) : '');
+  const [lat, setLat] = useState('');
+  const [lon, setLon] = useState('');
+
+  const sitesOfCustomer = useMemo(() => options.sites.filter((s) => String(s.customerId) === customerId), [options.sites, customerId]);
+  const pickingCustomer = customerMode === 'existing' && customerId === '';
+  const showSiteChoice = customerMode === 'existing' && !pickingCustomer && sitesOfCustomer.length > 0;
+  const newSite = !pickingCustomer && (customerMode === 'new' || siteMode === 'new' || sitesOfCustomer.length === 0);
+
+  useEffect(() => {
+    if (state?.ok && state.data && typeof (state.data as { id?: number }).id === 'number') router.push(`/studies/${(state.data as { id: number }).id}`);
+  }, [state, router]);
+
+  const statusState = failed ? { ok: false as const, error: message } : state;
+  return (
+    <form action={formAction} onSubmit={onSubmit} noValidate className="space-y-8" aria-label="New study">
+      <fieldset className="space-y-4">
+        <legend className="text-base font-semibold text-stone-900">Customer and site</legend>
+        <div className="flex flex-wrap gap-4" role="radiogroup" aria-label="Customer">
+          <Radio name="customerMode" value="existing" checked={customerMode === 'existing'} onChange={(v) => setCustomerMode(v as 'existing')}>
+            Existing customer
+          </Radio>
+          <Radio name="customerMode" value="new" checked={customerMode === 'new'} onChange={(v) => setCustomerMode(v as 'new')}>
+            New customer
+          </Radio>
+        </div>
+        {customerMode === 'existing' ? (
+          <SelectInput
+            label="Customer"
+            name="customerId"
+            value={customerId}
+            onChange={(e) => {
+              setCustomerId(e.target.value);
+              setSiteId('');
+            }}
+            placeholder="Choose a customer…"
+            options={options.customers.map((c) => ({ value: String(c.id), label: c.name }))}
+            errors={errors.customerId}
+            className="max-w-md"
+          />
+        ) : (
+          <TextInput label="Customer name" name="newCustomerName" autoComplete="off" errors={errors.newCustomerName} className="max-w-md" />
+        )}
+
+        {showSiteChoice && (
+          <div className="flex flex-wrap gap-4" role="radiogroup" aria-label="Site">
+            <Radio name="siteMode" value="existing" checked={siteMode === 'existing'} onChange={(v) => setSiteMode(v as 'existing')}>
+              Existing site
+            </Radio>
+            <Radio name="siteMode" value="new" checked={siteMode === 'new'} onChange={(v) => setSiteMode(v as 'new')}>
+              New site
+            </Radio>
+          </div>
+        )}
+        {newSite ? (
+          <>
+            {!showSiteChoice && <input type="hidden" name="siteMode" value="new" />}
+            {customerMode === 'existing' && sitesOfCustomer.length === 0 && <p className="text-sm text-stone-600">This customer has no site yet: add it here.</p>}
+            <div className="grid gap-4 sm:grid-cols-2 lg:grid-cols-4">
+              <TextInput label="Site name" name="siteName" autoComplete="off" errors={errors.siteName} className="lg:col-span-1" />
+              <TextInput
+                label="Latitude"
+                name="latDeg"
+                value={lat}
+                onChange={(e) => setLat(e.target.value)}
+                placeholder={`47.1234 or 47°07'24"N`}
+                autoComplete="off"
+                hint={<CoordinateEcho text={lat} axis="lat" />}
+                errors={errors.latDeg}
+              />
+              <TextInput
+                label="Longitude"
+                name="lonDeg"
+                value={lon}
+                onChange={(e) => setLon(e.target.value)}
+                placeholder={`2.654 or 2°39'15"E`}
+                autoComplete="off"
+                hint={<CoordinateEcho text={lon} axis="lon" />}
+                errors={errors.lonDeg}
+              />
+              <TextInput label="Altitude (m above sea level)" name="altitudeM" inputMode="decimal" defaultValue="0" errors={errors.altitudeM} />
+            </div>
+            <p className="text-xs text-stone-600">Decimal degrees (north and east positive) or degrees, minutes and seconds with N/S/E/W.</p>
+          </>
+        ) : (
+          <SelectInput
+            label="Site"
+            name="siteId"
+            value={siteId}
+            disabled={pickingCustomer}
+            onChange={(e) => setSiteId(e.target.value)}
+            placeholder={pickingCustomer ? 'Choose a customer first' : 'Choose a site…'}
+            options={sitesOfCustomer.map((s) => ({ value: String(s.id), label: s.name }))}
+            errors={errors.siteId}
+            className="max-w-md"
+          />
+        )}
+      </fieldset>
+
+      <fieldset className="grid gap-4 md:grid-cols-2">
+        <legend className="mb-4 text-base font-semibold text-stone-900">Service and rain climate</legend>
+        <SelectInput
+          label="Satellite service"
+          name="serviceProfileId"
+          placeholder="Choose a service…"
+          options={options.services.map((s) => ({ value: String(s.id), label: `${s.name} — ${s.satelliteName} at ${s.slot}, ${s.frequencyGHz} GHz` }))}
+          errors={errors.serviceProfileId}
+        />
+        <SelectInput
+          label="Rain climate"
+          name="climateProfileId"
+          placeholder="Choose a climate profile…"
+          options={options.climates.map((c) => ({ value: String(c.id), label: `${c.name} (${c.kindLabel})` }))}
+          errors={errors.climateProfileId}
+        />
+      </fieldset>
+
+      <fieldset aria-describedby={errors.dishIds?.length ? 'dishes-error' : undefined}>
+        <legend className="text-base font-semibold text-stone-900">Dishes to compare</legend>
+        <p className="mt-1 text-sm text-stone-600">Active dishes of your catalogue; prices are copied into the study so it never changes afterwards.</p>
+        {options.dishes.length === 0 ? (
+          <p className="mt-3 text-sm text-amber-800">The catalogue has no active dish yet. An admin adds dishes under Dishes.</p>
+        ) : (
+          <ul className="mt-3 grid gap-2 sm:grid-cols-2 lg:grid-cols-4">
+            {options.dishes.map((d) => {
+              const size = diameterLabel(d.diameterM);
+              return (
+                <li key={d.id}>
+                  <label className="flex items-center gap-2 rounded border border-stone-200 bg-white px-3 py-2 text-sm has-[:checked]:border-ledger-500 has-[:checked]:bg-ledger-50">
+                    <input type="checkbox" name="dishIds" value={d.id} defaultChecked className="accent-ledger-700" />
+                    <span className="min-w-0 flex-1">
+                      <span className="block font-medium text-stone-900">{d.name}</span>
+                      <span className="num block text-left text-xs text-stone-600">
+                        {size.cm} ({size.inches}) · {usd(d.price)}
+                      </span>
+                    </span>
+                  </label>
+                </li>
+              );
+            })}
+          </ul>
+        )}
+        {errors.dishIds?.length ? (
+          <p id="dishes-error" className="mt-2 text-xs text-red-700">
+            {errors.dishIds.join(' ')}
+          </p>
+        ) : null}
+      </fieldset>
+
+      <fieldset className="grid gap-4 md:grid-cols-2">
+        <legend className="mb-4 text-base font-semibold text-stone-900">Target and title</legend>
+        <TextInput
+          label="Target availability (%)"
+          name="targetAvailabilityPercent"
+          inputMode="decimal"
+          defaultValue={String(TARGET_AVAILABILITY_PERCENT.default)}
+          hint={`Between ${TARGET_AVAILABILITY_PERCENT.min} and ${TARGET_AVAILABILITY_PERCENT.max} %. 99.9 % allows about 526 minutes of outage a year.`}
+          errors={errors.targetAvailabilityPercent}
+        />
+        <TextInput label="Title (optional)" name="title" placeholder="Customer · site · service" errors={errors.title} />
+      </fieldset>
+
+      <div className="flex flex-wrap items-center gap-4">
+        <Button type="submit" disabled={pending} aria-disabled={pending}>
+          {pending ? 'Computing…' : 'Compute study'}
+        </Button>
+        <FormStatus state={statusState} />
+      </div>
+    </form>
+  );
+}

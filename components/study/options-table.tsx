@@ -1,0 +1,96 @@
+import Link from 'next/link';
+import type { StudyInputsSnapshot, StudyResultSnapshot } from '@/server/studies/snapshot';
+import { Table, TBody, THead, Td, Th } from '@/components/ui/table';
+import { availabilityText, diameterLabel, fixed, hoursText, minutesText, usd, usdPerMinute } from './format';
+import { basisFigures, closesOnBasis } from './basis';
+
+/** The quote screen of part B takes the study and the option (index into `options`). */
+export function quoteHref(studyId: number, optionIndex: number): string {
+  return `/quotes/new?study=${studyId}&option=${optionIndex}`;
+}
+
+function Tag({ children }: { children: string }) {
+  return <span className="ml-1 inline-block rounded bg-ledger-50 px-1.5 py-0.5 text-[11px] font-medium text-ledger-800">{children}</span>;
+}
+
+/** One row per dish: the link budget, the fade threshold, the outage and the money, small to large. */
+export function OptionsTable({ studyId, inputs, result, canQuote }: { studyId: number; inputs: StudyInputsSnapshot; result: StudyResultSnapshot; canQuote: boolean }) {
+  const t = result.tradeoff;
+  const rec = t.recommendation;
+  const twoWay = rec.basis === 'two-way';
+  return (
+    <Table caption="Trade-off per dish">
+      <THead>
+        <tr>
+          <Th>Dish</Th>
+          <Th numeric>Gain dBi</Th>
+          <Th numeric>G/T dB/K</Th>
+          <Th numeric>Clear-sky Es/N0 dB</Th>
+          <Th numeric>Margin dB</Th>
+          <Th numeric>Fade threshold dB</Th>
+          <Th numeric>Availability{twoWay ? ' (two-way)' : ''}</Th>
+          <Th numeric>Outage / year</Th>
+          <Th numeric>Worst month</Th>
+          <Th numeric>Price</Th>
+          <Th numeric>Minutes saved / yr</Th>
+          <Th numeric>Cost per minute saved</Th>
+          {canQuote && <Th>
+            <span className="sr-only">Quote</span>
+          </Th>}
+        </tr>
+      </THead>
+      <TBody>
+        {t.options.map((o, i) => {
+          const dish = inputs.dishes[i];
+          const size = diameterLabel(o.diameterM);
+          const f = basisFigures(o, rec.basis);
+          const closes = closesOnBasis(o, rec.basis);
+          return (
+            <tr key={o.index} className={rec.smallestMeetingTargetIndex === i ? 'bg-ledger-50/60' : undefined}>
+              <Th scope="row" className="whitespace-nowrap font-normal">
+                <span className="block font-medium text-stone-900">{dish?.name ?? size.cm}</span>
+                <span className="num block text-left text-xs text-stone-600">
+                  {size.cm} <span className="text-stone-500">({size.inches})</span>
+                </span>
+                {rec.smallestMeetingTargetIndex === i && <Tag>meets target</Tag>}
+                {rec.bestValueIndex === i && <Tag>best value</Tag>}
+                {rec.diminishingReturnsIndex === i && <Tag>diminishing returns</Tag>}
+              </Th>
+              <Td numeric>{fixed(o.gainDbi, 1)}</Td>
+              <Td numeric>{fixed(o.gOverTDbK, 1)}</Td>
+              <Td numeric>{fixed(o.clearSkyEsN0Db, 2)}</Td>
+              <Td numeric className={o.marginDb <= 0 ? 'text-red-700' : ''}>{fixed(o.marginDb, 2)}</Td>
+              {closes ? (
+                <>
+                  <Td numeric>{o.fadeThresholdDb === null ? '—' : fixed(o.fadeThresholdDb, 2)}</Td>
+                  <Td numeric className="whitespace-nowrap">{availabilityText(f)}</Td>
+                  <Td numeric className="whitespace-nowrap">
+                    {minutesText(f.outageMinutesPerYear, f.outageBound)}
+                    <span className="block text-xs text-stone-600">{hoursText(f.outageMinutesPerYear, f.outageBound)}</span>
+                  </Td>
+                  <Td numeric className="whitespace-nowrap">{minutesText(f.worstMonthOutageMinutes, f.outageBound)}</Td>
+                </>
+              ) : (
+                <Td colSpan={4} className="text-sm text-red-700">
+                  Does not close{o.closes ? ' on the uplink' : ''}: short by {fixed(-(o.closes && o.uplink ? o.uplink.marginDb : o.marginDb), 2)} dB even in clear sky. It never works with this carrier.
+                </Td>
+              )}
+              <Td numeric className="whitespace-nowrap">{usd(o.priceUsd)}</Td>
+              <Td numeric>{i === rec.baselineIndex ? <span className="text-stone-500">baseline</span> : fixed(o.minutesSavedPerYear, 0)}</Td>
+              <Td numeric>{usdPerMinute(o.costPerMinuteSavedUsd)}</Td>
+              {canQuote && (
+                <Td className="whitespace-nowrap">
+                  {closes ? (
+                    <Link href={quoteHref(studyId, i)} className="text-sm font-medium text-ledger-700 underline-offset-2 hover:underline">
+                      Quote<span className="sr-only"> the {size.cm} dish</span>
+                    </Link>
+                  ) : null}
+                </Td>
+              )}
+            </tr>
+          );
+        })}
+      </TBody>
+    </Table>
+  );
+}

@@ -1,0 +1,80 @@
+'use client';
+
+import { Line } from 'react-chartjs-2';
+import './chart-setup';
+import { CHART } from './chart-setup';
+
+export type OutagePoint = { diameterCm: number; minutes: number; label: string; bounded: boolean };
+
+/**
+ * Outage minutes per year against dish diameter, with the target's allowance as a dashed line.
+ * A dish that does not close is left out (it has no outage figure, it never works); the table
+ * beside says so.
+ */
+export function OutageChart({ points, targetMinutes, description }: { points: OutagePoint[]; targetMinutes: number | null; description: string }) {
+  const xs = points.map((p) => p.diameterCm);
+  const minX = Math.min(...xs);
+  const maxX = Math.max(...xs);
+  return (
+    <figure>
+      <div className="relative h-64 sm:h-72">
+        <Line
+          role="img"
+          aria-label={description}
+          data={{
+            datasets: [
+              {
+                label: 'Outage, minutes per year',
+                data: points.map((p) => ({ x: p.diameterCm, y: p.minutes })),
+                borderColor: CHART.line,
+                backgroundColor: CHART.lineSoft,
+                pointBackgroundColor: points.map((p) => (p.bounded ? '#ffffff' : CHART.line)),
+                pointBorderColor: CHART.line,
+                pointRadius: 4,
+                fill: true,
+                tension: 0.25,
+              },
+              ...(targetMinutes !== null
+                ? [
+                    {
+                      label: 'Allowed by the target',
+                      data: [
+                        { x: minX, y: targetMinutes },
+                        { x: maxX, y: targetMinutes },
+                      ],
+                      borderColor: CHART.guide,
+                      borderDash: [6, 4],
+                      borderWidth: 1.5,
+                      pointRadius: 0,
+                      fill: false,
+                    },
+                  ]
+                : []),
+            ],
+          }}
+          options={{
+            responsive: true,
+            maintainAspectRatio: false,
+            animation: false,
+            parsing: false,
+            interaction: { mode: 'nearest', intersect: false },
+            plugins: {
+              legend: { position: 'bottom', labels: { color: CHART.text, font: CHART.font, boxWidth: 14 } },
+              tooltip: {
+                callbacks: {
+                  title: (items) => `${items[0]?.parsed.x} cm dish`,
+                  label: (item) => `${item.dataset.label}: ${Math.round(item.parsed.y ?? 0).toLocaleString('en-US')} min/yr`,
+                },
+              },
+            },
+            scales: {
+              x: { type: 'linear', min: minX - 5, max: maxX + 5, title: { display: true, text: 'Dish diameter (cm)', color: CHART.text, font: CHART.font }, grid: { color: CHART.grid }, ticks: { color: CHART.text, font: CHART.font } },
+              y: { type: 'linear', beginAtZero: true, title: { display: true, text: 'Outage (minutes per year)', color: CHART.text, font: CHART.font }, grid: { color: CHART.grid }, ticks: { color: CHART.text, font: CHART.font } },
+            },
+          }}
+        />
+      </div>
+      <figcaption className="mt-2 text-xs text-stone-600">{description}</figcaption>
+    </figure>
+  );
+}

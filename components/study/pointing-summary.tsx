@@ -1,0 +1,71 @@
+import type { StudyInputsSnapshot, StudyResultSnapshot } from '@/server/studies/snapshot';
+import { formatDms } from '@/server/validation/coordinates';
+import { degrees, fixed, orbitalSlot } from './format';
+
+function Row({ term, children }: { term: string; children: React.ReactNode }) {
+  return (
+    <div className="flex items-baseline justify-between gap-3 py-1.5">
+      <dt className="text-sm text-stone-600">{term}</dt>
+      <dd className="num text-sm text-stone-900">{children}</dd>
+    </div>
+  );
+}
+
+/** Where to point the dish (geostationary look angles) and what it receives. */
+export function PointingSummary({ inputs, result }: { inputs: StudyInputsSnapshot; result: StudyResultSnapshot }) {
+  const t = result.tradeoff;
+  const s = inputs.service;
+  const linear = s.polarization !== 'circular';
+  return (
+    <div className="grid gap-4 md:grid-cols-3">
+      <section aria-labelledby="pointing-title" className="rounded-md border border-stone-200 bg-white px-4 py-3">
+        <h2 id="pointing-title" className="text-sm font-semibold text-stone-900">
+          Pointing
+        </h2>
+        <dl className="mt-1 divide-y divide-stone-100">
+          <Row term="Azimuth (true)">{degrees(t.azimuthDeg, 1)}</Row>
+          <Row term="Elevation">{degrees(t.elevationDeg, 1)}</Row>
+          <Row term="Polarization skew">{linear ? `${t.polarizationSkewDeg >= 0 ? '+' : '−'}${fixed(Math.abs(t.polarizationSkewDeg), 1)}°` : 'none (circular)'}</Row>
+          <Row term="Slant range">{fixed(t.rangeKm, 0)} km</Row>
+        </dl>
+        {linear && <p className="mt-2 text-xs text-stone-600">Skew: turn the feed clockwise by a positive angle, seen from behind the dish looking at the satellite.</p>}
+      </section>
+      <section aria-labelledby="site-title" className="rounded-md border border-stone-200 bg-white px-4 py-3">
+        <h2 id="site-title" className="text-sm font-semibold text-stone-900">
+          Site
+        </h2>
+        <dl className="mt-1 divide-y divide-stone-100">
+          <Row term="Latitude">{formatDms(inputs.site.latDeg, 'lat')}</Row>
+          <Row term="Longitude">{formatDms(inputs.site.lonDeg, 'lon')}</Row>
+          <Row term="Decimal">{`${fixed(inputs.site.latDeg, 5)}, ${fixed(inputs.site.lonDeg, 5)}`}</Row>
+          <Row term="Altitude">{fixed(inputs.site.altitudeM, 0)} m</Row>
+        </dl>
+      </section>
+      <section aria-labelledby="carrier-title" className="rounded-md border border-stone-200 bg-white px-4 py-3">
+        <h2 id="carrier-title" className="text-sm font-semibold text-stone-900">
+          Carrier
+        </h2>
+        <dl className="mt-1 divide-y divide-stone-100">
+          <Row term="Satellite">
+            <span className="font-sans">{s.satelliteName}</span> · {orbitalSlot(s.satelliteLongitudeDeg)}
+          </Row>
+          <Row term="Downlink">
+            {fixed(s.downlinkFrequencyGHz, 3)} GHz · {s.polarization === 'circular' ? 'circular' : s.polarization === 'linear-vertical' ? 'linear V' : 'linear H'}
+          </Row>
+          <Row term="EIRP · symbol rate">
+            {fixed(s.eirpDbw, 1)} dBW · {fixed(s.symbolRateMsps, 1)} Msps
+          </Row>
+          <Row term="Required Es/N0">
+            {s.modcod ? `${s.modcod} · ` : ''}
+            {fixed(s.requiredEsN0Db, 2)} dB + {fixed(s.implementationMarginDb, 1)} dB margin
+          </Row>
+          {s.uplink && (
+            <Row term="Uplink">
+              {fixed(s.uplink.frequencyGHz, 3)} GHz · {fixed(s.uplink.terminalEirpDbw, 1)} dBW
+            </Row>
+          )}
+        </dl>
+      </section>
+    </div>
+  );
+}

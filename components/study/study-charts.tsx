@@ -1,0 +1,40 @@
+import type { StudyInputsSnapshot, StudyResultSnapshot } from '@/server/studies/snapshot';
+import { Card, CardBody, CardHeader } from '@/components/ui/card';
+import { OutageChart } from './outage-chart';
+import { ExceedanceChart } from './exceedance-chart';
+import { allowedMinutes, basisFigures, closesOnBasis } from './basis';
+import { diameterCm } from './format';
+
+/** The two charts of the study, fed from the stored snapshot (no computation in the browser). */
+export function StudyCharts({ inputs, result }: { inputs: StudyInputsSnapshot; result: StudyResultSnapshot }) {
+  const t = result.tradeoff;
+  const rec = t.recommendation;
+  const closing = t.options.map((o, i) => ({ o, i })).filter(({ o }) => closesOnBasis(o, rec.basis));
+  const points = closing.map(({ o }) => {
+    const f = basisFigures(o, rec.basis);
+    return { diameterCm: Number(diameterCm(o.diameterM)), minutes: f.outageMinutesPerYear, label: `${diameterCm(o.diameterM)} cm`, bounded: f.outageBound !== 'none' };
+  });
+  const target = allowedMinutes(rec.targetAvailabilityPercent);
+  const marks = t.options
+    .map((o, i) => ({ o, i }))
+    .filter(({ o }) => o.closes && o.fadeThresholdDb !== null)
+    .map(({ o, i }) => ({ label: `${inputs.dishes[i]?.name ?? diameterCm(o.diameterM) + ' cm'}`, fadeThresholdDb: o.fadeThresholdDb as number, outagePercent: o.outagePercent }));
+  const outageDescription = points.length
+    ? `Outage minutes per year against dish diameter: ${points.map((p) => `${p.label} ${Math.round(p.minutes)} min`).join(', ')}${target !== null ? `; the target allows ${Math.round(target)} min` : ''}.`
+    : 'No dish of this study closes the link, so there is no outage curve to draw.';
+  const curveDescription = `Downlink rain attenuation exceeded for a percentage of an average year (ITU-R P.618-14), from ${result.exceedanceCurve[0]?.attenuationDb.toFixed(1)} dB at 0.001 % to ${result.exceedanceCurve[result.exceedanceCurve.length - 1]?.attenuationDb.toFixed(2)} dB at 5 %, with each dish's fade threshold marked.`;
+  return (
+    <div className="grid gap-6 lg:grid-cols-2">
+      <Card aria-labelledby="outage-chart-title">
+        <CardHeader id="outage-chart-title" title="Outage against dish size" description={rec.basis === 'two-way' ? 'Two-way outage (upper bound), minutes per year.' : 'Downlink outage, minutes per year.'} />
+        <CardBody>{points.length ? <OutageChart points={points} targetMinutes={target} description={outageDescription} /> : <p className="text-sm text-stone-600">{outageDescription}</p>}</CardBody>
+      </Card>
+      <Card aria-labelledby="exceedance-chart-title">
+        <CardHeader id="exceedance-chart-title" title="Attenuation exceedance" description="Rain attenuation exceeded against the percentage of the year, with each dish’s fade threshold A*." />
+        <CardBody>
+          <ExceedanceChart curve={result.exceedanceCurve} marks={marks} description={curveDescription} />
+        </CardBody>
+      </Card>
+    </div>
+  );
+}
