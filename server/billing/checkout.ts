@@ -103,3 +103,16 @@ export async function openBillingPortal(actor: BillingActor): Promise<string> {
     providerFailure(error);
   }
 }
+
+/**
+ * The provider's own view of a checkout, for the return page while the webhook is awaited: an
+ * admin who came back without paying is offered the checkout again instead of a spinner.
+ */
+export async function providerCheckoutState(sessionId: string): Promise<{ status: 'open' | 'complete' | 'expired' | 'unknown'; url: string | null }> {
+  try {
+    const session = await getStripe().checkout.sessions.retrieve(sessionId);
+    return { status: (session.status ?? 'unknown') as 'open' | 'complete' | 'expired', url: session.url ?? null };
+  } catch {
+    return { status: 'unknown', url: null };
+  }
+}

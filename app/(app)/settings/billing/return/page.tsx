@@ -4,6 +4,7 @@ import { notFound } from 'next/navigation';
 import { requirePermission } from '@/server/auth/guards';
 import { findCheckoutForCompany, findSubscriptionByProviderId, getPlanById } from '@/db/queries/billing';
 import { getPlanLimits, getPlanUsage } from '@/server/billing/limits';
+import { providerCheckoutState } from '@/server/billing/checkout';
 import { UsageTable } from '@/components/billing/usage-table';
 import { RefreshWhilePending } from '@/components/billing/refresh-while-pending';
 import { StatusBadge } from '@/components/billing/status-badge';
@@ -39,6 +40,28 @@ export default async function CheckoutReturnPage({ searchParams }: { searchParam
   }
 
   if (!confirmed) {
+    const provider = checkout.status === 'open' ? await providerCheckoutState(sessionId) : null;
+    if (provider?.status === 'open' && provider.url) {
+      return (
+        <Shell>
+          <h1 className="text-2xl font-semibold text-stone-900">The payment is not finished</h1>
+          <p className="text-stone-700">Our payment provider has not received a payment for <strong>{plan?.name}</strong> on this checkout. Nothing was charged.</p>
+          <div className="flex flex-wrap gap-4 text-sm">
+            <a className="font-medium text-ledger-700 underline" href={provider.url}>Return to the checkout page</a>
+            <Link className="font-medium text-ledger-700 underline" href="/settings/billing">Back to billing</Link>
+          </div>
+        </Shell>
+      );
+    }
+    if (provider?.status === 'expired') {
+      return (
+        <Shell>
+          <h1 className="text-2xl font-semibold text-stone-900">This checkout expired</h1>
+          <p className="text-stone-700">Nothing was charged. Start again from the billing page if you still want {plan?.name ?? 'the plan'}.</p>
+          <Link className="font-medium text-ledger-700 underline" href="/settings/billing">Back to billing</Link>
+        </Shell>
+      );
+    }
     return (
       <Shell>
         <h1 className="text-2xl font-semibold text-stone-900">Waiting for payment confirmation</h1>
