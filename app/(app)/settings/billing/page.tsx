@@ -2,7 +2,7 @@ import type { Metadata } from 'next';
 import { requirePermission } from '@/server/auth/guards';
 import { getBillingOverview, type BillingOverview } from '@/server/billing/overview';
 import { listPublicPlans, type PlanRow } from '@/db/queries/billing';
-import { LIVE_STATUSES } from '@/server/billing/policy';
+import { LIVE_STATUSES, OVERDUE_STATUSES } from '@/server/billing/policy';
 import { PlanPicker, type PickablePlan } from '@/components/billing/plan-picker';
 import { PortalButton } from '@/components/billing/portal-button';
 import { StatusBadge } from '@/components/billing/status-badge';
@@ -22,7 +22,8 @@ function choiceFor(plan: PlanRow, o: BillingOverview): PickablePlan['choice'] {
     if (plan.id === own.id) return 'current';
     if (sub.pendingPlan?.id === plan.id) return 'pending';
     if (plan.kind === 'free') return sub.cancelAtPeriodEnd ? 'scheduled' : 'via-portal';
-    return 'change';
+    // Changing plan waits until the open invoice is paid (the provider would refuse or bill oddly).
+    return (OVERDUE_STATUSES as readonly string[]).includes(sub.status) ? 'none' : 'change';
   }
   if (plan.id === own.id) return 'current';
   return plan.kind === 'paid' ? 'checkout' : 'none';
@@ -68,7 +69,8 @@ function CurrentPlan({ o }: { o: BillingOverview }) {
   const { limits, subscription: sub } = o;
   const b = limits.basis;
   const facts: [string, string][] = [];
-  if (sub?.currentPeriodEnd) facts.push([sub.cancelAtPeriodEnd ? 'Ends on' : 'Renews on', billingDate(sub.currentPeriodEnd)]);
+  const overdue = sub ? (OVERDUE_STATUSES as readonly string[]).includes(sub.status) : false;
+  if (sub?.currentPeriodEnd) facts.push([sub.cancelAtPeriodEnd ? 'Ends on' : overdue ? 'Current period ends' : 'Renews on', billingDate(sub.currentPeriodEnd)]);
   if (b.kind === 'trial' && b.endsAt) facts.push(['Trial ends on', billingDate(b.endsAt)]);
   if (b.kind === 'past_due_grace') facts.push(['Grace period until', billingDate(b.graceEndsAt)]);
   if (sub?.lastPaymentFailedAt) facts.push(['Last payment attempt failed', billingDate(sub.lastPaymentFailedAt)]);
