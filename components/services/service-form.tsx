@@ -47,7 +47,8 @@ export function ServiceForm({ values }: { values?: ServiceFormValues }) {
         {uplink && (
           <div className="mt-2 grid gap-4 sm:grid-cols-2 lg:grid-cols-4">
             <TextInput label="Uplink frequency (GHz)" name="uplinkFrequencyGHz" inputMode="decimal" defaultValue={v('uplinkFrequencyGHz')} errors={errors.uplinkFrequencyGHz} />
-            <TextInput label="Terminal EIRP (dBW)" name="uplinkTerminalEirpDbw" inputMode="decimal" defaultValue={v('uplinkTerminalEirpDbw')} errors={errors.uplinkTerminalEirpDbw} />
+            <TextInput label="HPA (BUC) power (W)" name="uplinkHpaPowerW" inputMode="decimal" defaultValue={v('uplinkHpaPowerW')} hint="EIRP then follows each dish's gain." errors={errors.uplinkHpaPowerW} />
+            <TextInput label="…or fixed terminal EIRP (dBW)" name="uplinkTerminalEirpDbw" inputMode="decimal" defaultValue={v('uplinkTerminalEirpDbw')} errors={errors.uplinkTerminalEirpDbw} />
             <TextInput label="Satellite G/T (dB/K)" name="uplinkSatelliteGOverTDbK" inputMode="decimal" defaultValue={v('uplinkSatelliteGOverTDbK')} errors={errors.uplinkSatelliteGOverTDbK} />
             <TextInput label="Uplink symbol rate (Msps)" name="uplinkSymbolRateMsps" inputMode="decimal" defaultValue={v('uplinkSymbolRateMsps')} errors={errors.uplinkSymbolRateMsps} />
             <SelectInput label="Uplink MODCOD" name="uplinkModcod" defaultValue={v('uplinkModcod')} placeholder="— none, Es/N0 given —" options={MODCOD_OPTIONS} errors={errors.uplinkModcod} />

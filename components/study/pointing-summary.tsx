@@ -61,7 +61,7 @@ export function PointingSummary({ inputs, result }: { inputs: StudyInputsSnapsho
           </Row>
           {s.uplink && (
             <Row term="Uplink">
-              {fixed(s.uplink.frequencyGHz, 3)} GHz · {fixed(s.uplink.terminalEirpDbw, 1)} dBW
+              {fixed(s.uplink.frequencyGHz, 3)} GHz · {s.uplink.hpaPowerW !== undefined ? `${fixed(s.uplink.hpaPowerW, 1)} W HPA` : `${fixed(s.uplink.terminalEirpDbw ?? 0, 1)} dBW`}
             </Row>
           )}
         </dl>

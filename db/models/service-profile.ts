@@ -7,7 +7,9 @@ export type Polarization = (typeof POLARIZATIONS)[number];
 /** Optional return link of a two-way (VSAT) service: the terminal transmits to the satellite. */
 export interface ServiceUplink {
   frequencyGHz: number;
-  terminalEirpDbw: number;
+  /** Fixed terminal EIRP, dBW — or, instead, the HPA (BUC) power, so EIRP grows with the dish gain. */
+  terminalEirpDbw?: number;
+  hpaPowerW?: number;
   satelliteGOverTDbK: number;
   symbolRateMsps: number;
   requiredEsN0Db: number;

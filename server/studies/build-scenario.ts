@@ -76,7 +76,7 @@ export function buildScenario(o: {
       // Return carriers of two-way terminals use the orthogonal linear polarization of the
       // forward carrier (common practice, no source); circular stays at 45°.
       tiltDeg: s.polarization === 'circular' ? CIRCULAR_TILT_DEG : 90 - tilt,
-      terminalEirpDbw: s.uplink.terminalEirpDbw,
+      ...(s.uplink.hpaPowerW !== undefined ? { hpaPowerW: s.uplink.hpaPowerW } : { terminalEirpDbw: s.uplink.terminalEirpDbw }),
       satelliteGOverTDbK: s.uplink.satelliteGOverTDbK,
       symbolRateMsps: s.uplink.symbolRateMsps,
       requiredEsN0Db: s.uplink.requiredEsN0Db,

@@ -66,6 +66,7 @@ export const serviceProfileSchema = z
     uplinkEnabled: checkboxField(),
     uplinkFrequencyGHz: optionalNumberIn('Uplink frequency', FREQUENCY_GHZ.min, FREQUENCY_GHZ.max, 'GHz'),
     uplinkTerminalEirpDbw: optionalNumberIn('Terminal EIRP', -10, 80, 'dBW'),
+    uplinkHpaPowerW: optionalNumberIn('HPA power', 0.05, 500, 'W'),
     uplinkSatelliteGOverTDbK: optionalNumberIn('Satellite G/T', -30, 30, 'dB/K'),
     uplinkSymbolRateMsps: optionalNumberIn('Uplink symbol rate', 0.01, 500, 'Msps'),
     uplinkModcod: modcodName('Uplink MODCOD'),
@@ -79,12 +80,16 @@ export const serviceProfileSchema = z
     if (!v.uplinkEnabled) return;
     const need: [keyof typeof v, string][] = [
       ['uplinkFrequencyGHz', 'Uplink frequency'],
-      ['uplinkTerminalEirpDbw', 'Terminal EIRP'],
       ['uplinkSatelliteGOverTDbK', 'Satellite G/T'],
       ['uplinkSymbolRateMsps', 'Uplink symbol rate'],
     ];
     for (const [key, label] of need) {
       if (v[key] === undefined) ctx.addIssue({ code: 'custom', path: [key], message: `${label} is required for a two-way service.` });
+    }
+    if ((v.uplinkTerminalEirpDbw === undefined) === (v.uplinkHpaPowerW === undefined)) {
+      const message = 'Give either the terminal EIRP or the HPA power (the EIRP then follows each dish’s gain), not both.';
+      ctx.addIssue({ code: 'custom', path: ['uplinkTerminalEirpDbw'], message });
+      ctx.addIssue({ code: 'custom', path: ['uplinkHpaPowerW'], message });
     }
     if (v.uplinkRequiredEsN0Db === undefined && !v.uplinkModcod) {
       ctx.addIssue({ code: 'custom', path: ['uplinkRequiredEsN0Db'], message: 'Give the uplink MODCOD or its required Es/N0.' });
@@ -110,7 +115,7 @@ export const serviceProfileSchema = z
     uplink: v.uplinkEnabled
       ? {
           frequencyGHz: v.uplinkFrequencyGHz as number,
-          terminalEirpDbw: v.uplinkTerminalEirpDbw as number,
+          ...(v.uplinkHpaPowerW !== undefined ? { hpaPowerW: v.uplinkHpaPowerW } : { terminalEirpDbw: v.uplinkTerminalEirpDbw as number }),
           satelliteGOverTDbK: v.uplinkSatelliteGOverTDbK as number,
           symbolRateMsps: v.uplinkSymbolRateMsps as number,
           requiredEsN0Db: v.uplinkRequiredEsN0Db ?? findModcod(v.uplinkModcod as string)!.idealEsN0Db,

@@ -40,6 +40,7 @@ function formValuesOf(row: ServiceProfile): ServiceFormValues {
     uplinkEnabled: s.uplink ? 'on' : '',
     uplinkFrequencyGHz: str(s.uplink?.frequencyGHz),
     uplinkTerminalEirpDbw: str(s.uplink?.terminalEirpDbw),
+    uplinkHpaPowerW: str(s.uplink?.hpaPowerW),
     uplinkSatelliteGOverTDbK: str(s.uplink?.satelliteGOverTDbK),
     uplinkSymbolRateMsps: str(s.uplink?.symbolRateMsps),
     uplinkRequiredEsN0Db: str(s.uplink?.requiredEsN0Db),
@@ -96,7 +97,7 @@ export default async function ServicesPage() {
                       <Td numeric>
                         {fixed(s.requiredEsN0Db, 2)} + {fixed(s.implementationMarginDb, 1)} dB
                       </Td>
-                      <Td>{s.uplink ? `${fixed(s.uplink.frequencyGHz, 2)} GHz, ${fixed(s.uplink.terminalEirpDbw, 1)} dBW` : 'receive only'}</Td>
+                      <Td>{s.uplink ? `${fixed(s.uplink.frequencyGHz, 2)} GHz, ${s.uplink.hpaPowerW !== undefined ? `${fixed(s.uplink.hpaPowerW, 1)} W HPA` : `${fixed(s.uplink.terminalEirpDbw ?? 0, 1)} dBW`}` : 'receive only'}</Td>
                       {write && (
                         <Td className="whitespace-nowrap">
                           <details>
