@@ -35,7 +35,7 @@ export function AppShell({ user, children, homeHref = '/dashboard', navItems }: 
             <NavLinks items={items} />
           </nav>
           <div className="ml-auto">
-            <UserMenu name={user.name} email={user.email} roleLabel={`${ROLE_LABELS[user.role]}${user.companyName ? ` · ${user.companyName}` : ''}`} companies={user.companies} currentCompanyId={user.companyId} />
+            <UserMenu name={user.name} email={user.email} roleLabel={`${ROLE_LABELS[user.role]}${user.companyName ? ` · ${user.companyName}` : ''}`} companies={user.companies} currentCompanyId={user.companyId} securityHref={user.role === 'staff' ? '/staff/security' : '/settings/security'} />
           </div>
         </div>
       </header>

@@ -11,7 +11,7 @@ type Company = { companyId: number; companyName: string; role: string };
  * The person's menu: who is signed in, where, switching company (for people in several),
  * their security page, and signing out. A disclosure button, closed by Escape or a click outside.
  */
-export function UserMenu({ name, email, roleLabel, companies, currentCompanyId }: { name: string; email: string; roleLabel: string; companies: Company[]; currentCompanyId: number | null }) {
+export function UserMenu({ name, email, roleLabel, companies, currentCompanyId, securityHref = '/settings/security' }: { name: string; email: string; roleLabel: string; companies: Company[]; currentCompanyId: number | null; securityHref?: string }) {
   const [open, setOpen] = useState(false);
   const ref = useRef<HTMLDivElement>(null);
   useEffect(() => {
@@ -70,7 +70,7 @@ export function UserMenu({ name, email, roleLabel, companies, currentCompanyId }
               ))}
             </div>
           )}
-          <Link href="/settings/security" onClick={() => setOpen(false)} className="block px-3 py-1.5 text-stone-700 hover:bg-stone-100">
+          <Link href={securityHref} onClick={() => setOpen(false)} className="block px-3 py-1.5 text-stone-700 hover:bg-stone-100">
             Your security and sessions
           </Link>
           <form action={async (fd) => void (await signOut(null, fd))}>

@@ -16,21 +16,23 @@ const ROLES = [
 export function RoleForm({ membershipId, role, name }: { membershipId: number; role: string; name: string }) {
   const id = useId();
   return (
-    <ActionForm action={changeMemberRole} className="flex flex-wrap items-center gap-1.5" statusClassName="basis-full text-xs">
+    <ActionForm action={changeMemberRole} className="flex flex-col gap-1" statusClassName="text-xs">
       <input type="hidden" name="membershipId" value={membershipId} />
-      <label htmlFor={id} className="sr-only">
-        Role of {name}
-      </label>
-      <select id={id} name="role" defaultValue={role} className="rounded border border-stone-300 bg-white px-2 py-1 text-sm focus:border-ledger-600 focus:outline-none">
-        {ROLES.map((r) => (
-          <option key={r.value} value={r.value}>
-            {r.label}
-          </option>
-        ))}
-      </select>
-      <SubmitButton variant="secondary" size="sm" aria-label={`Save role of ${name}`}>
-        Save
-      </SubmitButton>
+      <div className="flex items-center gap-1.5 whitespace-nowrap">
+        <label htmlFor={id} className="sr-only">
+          Role of {name}
+        </label>
+        <select id={id} name="role" defaultValue={role} className="rounded border border-stone-300 bg-white px-2 py-1 text-sm focus:border-ledger-600 focus:outline-none">
+          {ROLES.map((r) => (
+            <option key={r.value} value={r.value}>
+              {r.label}
+            </option>
+          ))}
+        </select>
+        <SubmitButton variant="secondary" size="sm" aria-label={`Save role of ${name}`}>
+          Save
+        </SubmitButton>
+      </div>
     </ActionForm>
   );
 }

@@ -6,7 +6,8 @@ import type { ReactNode, TdHTMLAttributes, ThHTMLAttributes } from 'react';
  */
 export function Table({ children, caption, className = '' }: { children: ReactNode; caption?: ReactNode; className?: string }) {
   return (
-    <div className={`overflow-x-auto ${className}`}>
+    // relative: keeps absolutely placed content (sr-only labels) inside the scroll box on phones.
+    <div className={`relative overflow-x-auto ${className}`}>
       <table className="w-full border-collapse text-sm">
         {caption && <caption className="sr-only">{caption}</caption>}
         {children}
@@ -24,11 +25,11 @@ export function TBody({ children }: { children: ReactNode }) {
 }
 
 export function Th({ numeric, className = '', ...rest }: ThHTMLAttributes<HTMLTableCellElement> & { numeric?: boolean }) {
-  return <th scope={rest.scope ?? 'col'} className={`px-3 py-2 font-medium ${numeric ? 'text-right' : 'text-left'} ${className}`} {...rest} />;
+  return <th scope={rest.scope ?? 'col'} className={`px-3 py-2 font-medium first:pl-4 last:pr-4 sm:first:pl-5 sm:last:pr-5 ${numeric ? 'text-right' : 'text-left'} ${className}`} {...rest} />;
 }
 
 export function Td({ numeric, className = '', ...rest }: TdHTMLAttributes<HTMLTableCellElement> & { numeric?: boolean }) {
-  return <td className={`px-3 py-2 align-top ${numeric ? 'num' : ''} ${className}`} {...rest} />;
+  return <td className={`px-3 py-2 align-top first:pl-4 last:pr-4 sm:first:pl-5 sm:last:pr-5 ${numeric ? 'num' : ''} ${className}`} {...rest} />;
 }
 
 /** A row saying the table has nothing yet, spanning all columns. */

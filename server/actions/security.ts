@@ -16,7 +16,8 @@ import { findMembership } from '@/db/queries/team';
 import { models } from '@/db/models';
 import { InvalidInputError, NotFoundError } from '@/server/errors';
 
-const SECURITY_PAGE = '/settings/security';
+const SECURITY_PAGES = ['/settings/security', '/staff/security'];
+const refreshSecurityPages = () => SECURITY_PAGES.forEach((p) => revalidatePath(p));
 
 /** Ends one of one's own sessions (another device); ending the current one is signing out. */
 export const revokeSession = safeAction({ schema: sessionDigestSchema, permission: 'signed-in' }, async (input, ctx) => {
@@ -28,7 +29,7 @@ export const revokeSession = safeAction({ schema: sessionDigestSchema, permissio
   const n = await deleteUserSession(ctx.user.id, input.session);
   if (n === 0) throw new NotFoundError('That session');
   await audit({ companyId: ctx.companyId, actor: ctx.user, action: 'session.revoked', subjectUserId: ctx.user.id }, meta);
-  revalidatePath(SECURITY_PAGE);
+  refreshSecurityPages();
   return { message: 'That device is signed out.' };
 });
 
@@ -55,7 +56,7 @@ export const changePassword = safeAction({ schema: changePasswordSchema, permiss
     await deleteUserSessionsExcept(ctx.user.id, ctx.sessionId, t);
     await audit({ companyId: ctx.companyId, actor: ctx.user, action: 'password.changed', subjectUserId: ctx.user.id }, meta, t);
   });
-  revalidatePath(SECURITY_PAGE);
+  refreshSecurityPages();
   return { message: 'Password changed. Your other devices are signed out.' };
 });
 

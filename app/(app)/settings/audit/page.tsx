@@ -37,7 +37,9 @@ export default async function AuditPage({ searchParams }: { searchParams: Promis
               return (
                 <tr key={e.id}>
                   <Td className="whitespace-nowrap font-mono text-xs text-stone-600">{formatWhen(e.createdAt)}</Td>
-                  <Td className="max-w-[16rem] break-words text-stone-800">{e.actorLabel ?? <span className="text-stone-500">Not signed in</span>}</Td>
+                  <Td className="max-w-[16rem] break-words text-stone-800">
+                    {e.actorLabel ? <Actor label={e.actorLabel} /> : <span className="text-stone-500">Not signed in</span>}
+                  </Td>
                   <Td className="text-stone-800">
                     {AUDIT_LABELS[e.action] ?? e.action}
                     {e.targetLabel && <span className="font-medium"> {e.targetLabel}</span>}
@@ -60,6 +62,18 @@ export default async function AuditPage({ searchParams }: { searchParams: Promis
           </a>
         </p>
       )}
+    </>
+  );
+}
+
+/** "Name <address>" as the name with the address beneath it. */
+function Actor({ label }: { label: string }) {
+  const m = /^(.*) <([^>]*)>$/.exec(label);
+  if (!m) return <>{label}</>;
+  return (
+    <>
+      {m[1]}
+      <span className="block text-xs text-stone-500">{m[2]}</span>
     </>
   );
 }

@@ -22,6 +22,7 @@ export default async function TeamPage() {
   const manage = can(ctx.role, 'team.manage');
   const pending = invitations.filter((i) => !i.expired).length;
   const full = used >= limits.seats;
+  const admins = members.filter((m) => m.role === 'admin').length;
   return (
     <>
       <PageHeader title="Team" description={`People who work in ${ctx.company.name}'s account, and what their role lets them do.`} />
@@ -82,7 +83,7 @@ export default async function TeamPage() {
               <Th>Role</Th>
               <Th className="hidden sm:table-cell">Joined</Th>
               {manage && (
-                <Th className="text-right">
+                <Th className="hidden text-right sm:table-cell">
                   <span className="sr-only">Actions</span>
                 </Th>
               )}
@@ -91,19 +92,27 @@ export default async function TeamPage() {
           <TBody>
             {members.map((m) => {
               const self = m.userId === ctx.user.id;
+              // The server refuses it anyway; the last admin simply gets no remove control.
+              const removable = !(m.role === 'admin' && admins <= 1);
               return (
                 <tr key={m.membershipId}>
                   <Td>
                     <span className="font-medium text-stone-900">{m.name}</span>
                     {self && <span className="ml-1.5 rounded bg-stone-100 px-1.5 py-0.5 text-xs text-stone-600">you</span>}
                     <span className="block truncate text-xs text-stone-500 md:hidden">{m.email}</span>
+                    {manage && removable && (
+                      // On phones the remove control sits under the name, so nothing hides off-screen.
+                      <div className="mt-1 flex sm:hidden">
+                        <RemoveMemberForm membershipId={m.membershipId} name={m.name} self={self} />
+                      </div>
+                    )}
                   </Td>
                   <Td className="hidden md:table-cell text-stone-700">{m.email}</Td>
                   <Td>{manage ? <RoleForm membershipId={m.membershipId} role={m.role} name={m.name} /> : ROLE_LABELS[m.role]}</Td>
                   <Td className="hidden sm:table-cell whitespace-nowrap text-stone-600">{dateFmt.format(m.joinedAt)}</Td>
                   {manage && (
-                    <Td className="text-right">
-                      <RemoveMemberForm membershipId={m.membershipId} name={m.name} self={self} />
+                    <Td className="hidden text-right sm:table-cell">
+                      {removable ? <RemoveMemberForm membershipId={m.membershipId} name={m.name} self={self} /> : <span className="text-xs text-stone-500">only admin</span>}
                     </Td>
                   )}
                 </tr>

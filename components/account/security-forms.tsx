@@ -10,8 +10,8 @@ export function RevokeSessionForm({ digest, current }: { digest: string; current
   return (
     <ActionForm action={revokeSession} className="flex flex-col items-end" statusClassName="text-xs">
       <input type="hidden" name="session" value={digest} />
-      <SubmitButton variant="quiet" size="sm">
-        {current ? 'Sign out' : 'Sign out this device'}
+      <SubmitButton variant="quiet" size="sm" aria-label={current ? 'Sign out here' : 'Sign out that device'}>
+        Sign out
       </SubmitButton>
     </ActionForm>
   );
