@@ -193,12 +193,13 @@ export async function findSubscriptionByProviderId(providerSubscriptionId: strin
  * The subscription that governs the company now: the newest live one (trialing, active, past due,
  * unpaid, paused). Null when the company has none (free tier, trial, or a plan staff assigned).
  */
-export async function findLiveSubscription(companyId: number, t?: Transaction): Promise<SubscriptionRow | null> {
+export async function findLiveSubscription(companyId: number, t?: Transaction, lockShared = false): Promise<SubscriptionRow | null> {
   const { Subscription } = models();
   return Subscription.findOne({
     where: { companyId, status: { [Op.in]: [...LIVE_STATUSES] } },
     order: [['createdAt', 'DESC'], ['id', 'DESC']],
     transaction: t,
+    lock: lockShared && t ? t.LOCK.SHARE : undefined,
   });
 }
 

@@ -72,13 +72,17 @@ const limitsOf = (p: { id: number; code: string; name: string; seatLimit: number
   quoteBranding: Boolean(p.quoteBranding),
 });
 
+/**
+ * Inside a transaction the reads are locking reads, so a limit check sees the plan and the
+ * subscription as last committed (a webhook's plan change), not an older snapshot of the caller's.
+ */
 export async function getPlanLimits(companyId: number, t?: Transaction, opts: { now?: Date } = {}): Promise<PlanLimits> {
   const { sequelize } = models();
   const now = opts.now ?? new Date();
   const rows = await sequelize.query<PlanRow>(
     `SELECT p.id, p.code, p.name, p.kind, p.seat_limit, p.studies_per_month, p.active_links_limit, p.uploads_per_month, p.api_access, p.quote_branding, c.trial_ends_at
        FROM companies c JOIN plans p ON p.id = c.plan_id
-      WHERE c.id = :companyId`,
+      WHERE c.id = :companyId${t ? ' LOCK IN SHARE MODE' : ''}`,
     { replacements: { companyId }, type: QueryTypes.SELECT, transaction: t },
   );
   const p = rows[0];
@@ -108,7 +112,7 @@ export async function getPlanLimits(companyId: number, t?: Transaction, opts: { 
     return { ...own, companyPlan, basis: { kind: 'trial', endsAt: p.trial_ends_at } };
   }
   if (p.kind === 'paid') {
-    const live = await findLiveSubscription(companyId, t);
+    const live = await findLiveSubscription(companyId, t, Boolean(t));
     if (live && (OVERDUE_STATUSES as readonly string[]).includes(live.status)) {
       const graceEndsAt = live.graceEndsAt ?? now;
       if (graceEndsAt.getTime() > now.getTime()) return { ...own, companyPlan, basis: { kind: 'past_due_grace', graceEndsAt, status: live.status } };
@@ -203,6 +207,10 @@ export function limitMessage(limit: LimitName, limits: PlanLimits, used: number)
  * to raise it when `adding` more would go over. The lock is held until the caller commits, so
  * the check and the insert that follows it are one step for everyone else. Webhooks that change
  * the plan take the same lock.
+ *
+ * Call it BEFORE the transaction's first insert or update: inserting a row with a foreign key to
+ * the company (a customer, a site…) takes a shared lock on the company row, and two parallel
+ * transactions that both hold it deadlock when each then asks for FOR UPDATE here.
  *
  * @example
  *   await sequelize.transaction(async (t) => {

@@ -97,14 +97,16 @@ describe('studies per month', () => {
     expect(await Customer.count({ where: { companyId: company.id } })).toBe(2);
   });
 
-  it('parallel study creation at the limit cannot overshoot it', async () => {
+  // Needs the limit check before the study's first insert: an insert that references the company
+  // share-locks its row, and two such transactions then deadlock upgrading to FOR UPDATE.
+  it('parallel study creation at the limit cannot overshoot it, and every refusal names the limit', async () => {
     const plan = await createTestPlan({ studies: 3 });
     const company = await createBillingCompany({ planId: plan.id });
     const user = await createUserWithRole(company.id, 'installer');
     const input = await studyInputsFor(company.id);
     const settled = await Promise.allSettled(Array.from({ length: 8 }, () => createStudy({ companyId: company.id, userId: user.id }, input)));
+    for (const s of settled) if (s.status === 'rejected') expect(s.reason, String(s.reason)).toBeInstanceOf(PlanLimitError);
     expect(settled.filter((s) => s.status === 'fulfilled')).toHaveLength(3);
-    for (const s of settled) if (s.status === 'rejected') expect(s.reason).toBeInstanceOf(PlanLimitError);
     expect(await models().Study.count({ where: { companyId: company.id } })).toBe(3);
   });
 
