@@ -1,0 +1,111 @@
+'use client';
+
+import { useState } from 'react';
+import { ActionForm, useFormState } from '@/components/ui/action-form';
+import { SelectField } from '@/components/ui/field';
+import { SubmitButton } from '@/components/ui/submit-button';
+import { Button } from '@/components/ui/button';
+import { EmptyRow, Table, TBody, THead, Td, Th } from '@/components/ui/table';
+import { createShareLink, revokeShareLink } from '@/server/actions/share-links';
+import type { ShareLinkItem } from '@/db/queries/share-links';
+import { dayTime } from './format';
+
+export const LINK_DAYS_OPTIONS = [
+  { value: '7', label: '7 days' },
+  { value: '14', label: '14 days' },
+  { value: '30', label: '30 days' },
+  { value: '60', label: '60 days' },
+  { value: '90', label: '90 days' },
+];
+
+/** After a link is made: its URL, once, with a copy button. */
+function NewLinkShown() {
+  const state = useFormState();
+  const [copied, setCopied] = useState(false);
+  const url = state?.ok ? (state.data as { url?: string } | undefined)?.url : undefined;
+  if (!url) return null;
+  return (
+    <div className="mt-3 rounded border border-ledger-200 bg-ledger-50 p-3">
+      <label htmlFor="new-link-url" className="block text-sm font-medium text-ledger-900">
+        New comparison link — copy it now; for safety it is not shown again
+      </label>
+      <div className="mt-1 flex gap-2">
+        <input id="new-link-url" readOnly value={url} onFocus={(e) => e.currentTarget.select()} className="block w-full min-w-0 rounded border border-stone-300 bg-white px-2 py-1.5 font-mono text-xs text-stone-900" />
+        <Button
+          variant="secondary"
+          size="sm"
+          onClick={async () => {
+            try {
+              await navigator.clipboard.writeText(url);
+              setCopied(true);
+            } catch {
+              setCopied(false);
+            }
+          }}
+        >
+          {copied ? 'Copied' : 'Copy link'}
+        </Button>
+      </div>
+    </div>
+  );
+}
+
+function linkState(l: ShareLinkItem): string {
+  if (l.revokedAt) return `Revoked ${dayTime(l.revokedAt)}`;
+  if (!l.active) return `Expired ${dayTime(l.expiresAt)}`;
+  return `Open until ${dayTime(l.expiresAt)}`;
+}
+
+/** Comparison links of a quote: make one (shown once), see views, revoke. */
+export function LinksPanel({ quoteId, links, canShare, shareable }: { quoteId: number; links: ShareLinkItem[]; canShare: boolean; shareable: boolean }) {
+  return (
+    <div className="space-y-4">
+      {canShare && shareable && (
+        <ActionForm action={createShareLink} aria-label="Make a comparison link" statusClassName="mt-2">
+          <input type="hidden" name="quoteId" value={quoteId} />
+          <div className="flex flex-wrap items-end gap-3">
+            <SelectField label="Link works for" name="expiresInDays" defaultValue="30" options={LINK_DAYS_OPTIONS} className="w-40" />
+            <SubmitButton variant="secondary" pendingLabel="Making…">Make a link</SubmitButton>
+          </div>
+          <NewLinkShown />
+        </ActionForm>
+      )}
+      <Table caption="Comparison links">
+        <THead>
+          <tr>
+            <Th>Link</Th>
+            <Th>State</Th>
+            <Th numeric>Views</Th>
+            <Th>Last opened</Th>
+            {canShare && <Th><span className="sr-only">Revoke</span></Th>}
+          </tr>
+        </THead>
+        <TBody>
+          {links.length === 0 && <EmptyRow colSpan={canShare ? 5 : 4}>No links yet.</EmptyRow>}
+          {links.map((l) => (
+            <tr key={l.id}>
+              <Td className="whitespace-nowrap">
+                Link {l.id}
+                <span className="block text-xs text-stone-600">{l.createdByName ? `${l.createdByName}, ` : ''}{dayTime(l.createdAt)}</span>
+              </Td>
+              <Td className={l.active ? 'text-ledger-800' : 'text-stone-600'}>{linkState(l)}</Td>
+              <Td numeric>{l.viewCount}</Td>
+              <Td className="whitespace-nowrap text-stone-700">{l.lastViewedAt ? dayTime(l.lastViewedAt) : 'never'}</Td>
+              {canShare && (
+                <Td className="text-right">
+                  {l.active && (
+                    <ActionForm action={revokeShareLink} aria-label={`Revoke link ${l.id}`} showSuccess={false}>
+                      <input type="hidden" name="quoteId" value={quoteId} />
+                      <input type="hidden" name="linkId" value={l.id} />
+                      <SubmitButton variant="danger" size="sm" pendingLabel="Revoking…" aria-label={`Revoke link ${l.id}`}>Revoke</SubmitButton>
+                    </ActionForm>
+                  )}
+                </Td>
+              )}
+            </tr>
+          ))}
+        </TBody>
+      </Table>
+    </div>
+  );
+}
