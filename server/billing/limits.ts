@@ -73,16 +73,18 @@ const limitsOf = (p: { id: number; code: string; name: string; seatLimit: number
 });
 
 /**
- * Inside a transaction the reads are locking reads, so a limit check sees the plan and the
- * subscription as last committed (a webhook's plan change), not an older snapshot of the caller's.
+ * `lockedRead` (used by assertWithinLimit, which already holds the company row) makes the reads
+ * locking reads, so a limit check sees the plan and subscription as last committed (a webhook's
+ * plan change), not an older snapshot of the caller's transaction.
  */
-export async function getPlanLimits(companyId: number, t?: Transaction, opts: { now?: Date } = {}): Promise<PlanLimits> {
+export async function getPlanLimits(companyId: number, t?: Transaction, opts: { now?: Date; lockedRead?: boolean } = {}): Promise<PlanLimits> {
+  const locking = Boolean(t && opts.lockedRead);
   const { sequelize } = models();
   const now = opts.now ?? new Date();
   const rows = await sequelize.query<PlanRow>(
     `SELECT p.id, p.code, p.name, p.kind, p.seat_limit, p.studies_per_month, p.active_links_limit, p.uploads_per_month, p.api_access, p.quote_branding, c.trial_ends_at
        FROM companies c JOIN plans p ON p.id = c.plan_id
-      WHERE c.id = :companyId${t ? ' LOCK IN SHARE MODE' : ''}`,
+      WHERE c.id = :companyId${locking ? ' LOCK IN SHARE MODE' : ''}`,
     { replacements: { companyId }, type: QueryTypes.SELECT, transaction: t },
   );
   const p = rows[0];
@@ -112,7 +114,7 @@ export async function getPlanLimits(companyId: number, t?: Transaction, opts: { 
     return { ...own, companyPlan, basis: { kind: 'trial', endsAt: p.trial_ends_at } };
   }
   if (p.kind === 'paid') {
-    const live = await findLiveSubscription(companyId, t, Boolean(t));
+    const live = await findLiveSubscription(companyId, t, locking);
     if (live && (OVERDUE_STATUSES as readonly string[]).includes(live.status)) {
       const graceEndsAt = live.graceEndsAt ?? now;
       if (graceEndsAt.getTime() > now.getTime()) return { ...own, companyPlan, basis: { kind: 'past_due_grace', graceEndsAt, status: live.status } };
@@ -226,7 +228,7 @@ export async function assertWithinLimit(companyId: number, limit: LimitName, t: 
     transaction: t,
   });
   if (!locked[0]) throw new NotFoundError('That company');
-  const limits = await getPlanLimits(companyId, t);
+  const limits = await getPlanLimits(companyId, t, { lockedRead: true });
   if (limit === 'apiAccess' || limit === 'quoteBranding') {
     if (!limits[limit]) throw new PlanLimitError(limit, limitMessage(limit, limits, 0));
     return;
