@@ -5,15 +5,16 @@ import { billingDate } from './format';
 /**
  * The app-wide strip shown when billing limits the team: a payment overdue (grace period running
  * or over), a trial ending or ended, a paused subscription. Admins get the link to fix it; other
- * roles are told who can. Render it in the app layout: <BillingBanner companyId={…} canManage={…} />.
+ * roles are told who can. Rendered by the app layout above every page's content:
+ *   <BillingBanner companyId={ctx.companyId} canManage={can(ctx.role, 'billing.manage')} />
  */
 export async function BillingBanner({ companyId, canManage }: { companyId: number; canManage: boolean }) {
   const notice = await getBillingNotice(companyId);
   if (!notice) return null;
   const { tone, text, action } = wording(notice);
   return (
-    <div role="status" className={`border-b px-4 py-2 text-sm ${tone === 'warn' ? 'border-amber-300 bg-amber-50 text-amber-950' : 'border-ledger-200 bg-ledger-50 text-ledger-900'}`}>
-      <div className="mx-auto flex max-w-6xl flex-wrap items-center gap-x-3 gap-y-1">
+    <div role="status" className={`mb-6 rounded-md border px-4 py-2.5 text-sm ${tone === 'warn' ? 'border-amber-300 bg-amber-50 text-amber-950' : 'border-ledger-200 bg-ledger-50 text-ledger-900'}`}>
+      <div className="flex flex-wrap items-center gap-x-3 gap-y-1">
         <span>{text}</span>
         {canManage ? (
           <Link href="/settings/billing" className="font-medium underline underline-offset-2 hover:no-underline">{action}</Link>
