@@ -1,0 +1,68 @@
+/**
+ * The invented demo quotes of Quillfeather Dish & Signal: one in every status, on the demo
+ * studies (db/demo/studies.ts) by title. Names of the people who decided are made up.
+ */
+export const DEMO_QUOTES = [
+  {
+    study: 'Cobblestep School — TV for the hall',
+    status: 'draft',
+    daysAgo: 1,
+    extras: { label: 'Flat-roof ballast frame', price: '120.00' },
+    discount: '0.00',
+    tax: '20',
+    notes: 'Ballast frame on the hall flat roof; no drilling into the membrane. Cable through the existing plant-room duct.',
+  },
+  {
+    study: 'Fennick garage — broadband backup',
+    status: 'sent',
+    daysAgo: 3,
+    extras: { label: 'Wall bracket and 25 m of cable', price: '65.00' },
+    discount: '0.00',
+    tax: '20',
+    notes: 'Bracket on the workshop wall above the roller door. Includes setting up the router failover.',
+  },
+  {
+    study: 'Saltmarrow Boatyard — TV at the quay',
+    status: 'viewed',
+    daysAgo: 6,
+    extras: { label: 'Marine-grade fixings', price: '38.50' },
+    discount: '25.00',
+    tax: '20',
+    notes: 'Stainless fixings against the salt air. We suggest a yearly check of the feed cover.',
+    views: 3,
+  },
+  {
+    study: 'Ottermere Lodge — TV upgrade',
+    status: 'accepted',
+    daysAgo: 12,
+    extras: { label: 'Second LNB output for the annex', price: '45.00' },
+    discount: '0.00',
+    tax: '20',
+    notes: 'Replaces the old 60 cm dish on the north gable; the existing cable is reused.',
+    views: 2,
+    decidedBy: 'Perrin Ashgrove',
+    comment: null,
+  },
+  {
+    study: 'Brindlewick farmhouse — TV',
+    status: 'declined',
+    daysAgo: 16,
+    extras: null,
+    discount: '0.00',
+    tax: '20',
+    notes: null,
+    views: 1,
+    decidedBy: 'Maudie Brindle',
+    comment: 'We will keep the old dish for now and look again after harvest.',
+  },
+  {
+    study: 'Brindlewick barn — two-way broadband',
+    status: 'expired',
+    daysAgo: 40,
+    extras: { label: 'Pole mount and trenching, 12 m', price: '310.00' },
+    discount: '50.00',
+    tax: '20',
+    notes: 'Pole mount beside the grain barn, cable trenched to the office.',
+    views: 4,
+  },
+] as const;
