@@ -11,9 +11,9 @@ export type DishFormValues = { id: number; name: string; diameterM: string; effi
 
 /** Add a dish, or edit one (with `dish`): diameter in metres, efficiency as a fraction, prices in USD. */
 export function DishForm({ dish }: { dish?: DishFormValues }) {
-  const { state, formAction, pending, onSubmit, errors, message, failed } = useValidatedAction(dish ? updateDish : createDish, dish ? dishUpdateSchema : dishSchema, { resetOnSuccess: !dish });
+  const { state, formAction, pending, onSubmit, onInput, errors, message, failed } = useValidatedAction(dish ? updateDish : createDish, dish ? dishUpdateSchema : dishSchema, { resetOnSuccess: !dish });
   return (
-    <form action={formAction} onSubmit={onSubmit} noValidate className="space-y-4" aria-label={dish ? `Edit ${dish.name}` : 'Add a dish'}>
+    <form action={formAction} onSubmit={onSubmit} onInput={onInput} noValidate className="space-y-4" aria-label={dish ? `Edit ${dish.name}` : 'Add a dish'}>
       {dish && <input type="hidden" name="id" value={dish.id} />}
       <div className="grid gap-4 sm:grid-cols-2 lg:grid-cols-5">
         <TextInput label="Name" name="name" defaultValue={dish?.name} errors={errors.name} className="lg:col-span-2" />

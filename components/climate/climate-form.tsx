@@ -12,9 +12,9 @@ import { useValidatedAction } from '@/components/study/use-validated-action';
 /** A climate typed in: a known R0.01 or a legacy ITU-R P.837-1 zone (normals and curves come as CSV). */
 export function ClimateForm() {
   const [kind, setKind] = useState<'known-r001' | 'climate-zone'>('known-r001');
-  const { state, formAction, pending, onSubmit, errors, message, failed } = useValidatedAction(createClimateProfile, climateFormSchema, { resetOnSuccess: true });
+  const { state, formAction, pending, onSubmit, onInput, errors, message, failed } = useValidatedAction(createClimateProfile, climateFormSchema, { resetOnSuccess: true });
   return (
-    <form action={formAction} onSubmit={onSubmit} noValidate className="space-y-4" aria-label="Add a climate profile">
+    <form action={formAction} onSubmit={onSubmit} onInput={onInput} noValidate className="space-y-4" aria-label="Add a climate profile">
       <fieldset>
         <legend className="text-sm font-medium text-stone-800">Kind</legend>
         <div className="mt-1 flex flex-wrap gap-4">

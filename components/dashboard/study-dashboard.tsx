@@ -81,7 +81,7 @@ export function StudyDashboard({ canStudy }: { canStudy: boolean }) {
                     {s.customerName}
                     <span className="block text-xs text-stone-600">{s.siteName}</span>
                   </Td>
-                  <Td numeric>{s.recommendedDiameterM === null ? <span className="text-stone-500">none</span> : diameterLabel(s.recommendedDiameterM).cm}</Td>
+                  <Td numeric>{s.recommendedDiameterM === null ? <span className="text-stone-600">none</span> : diameterLabel(s.recommendedDiameterM).cm}</Td>
                   <Td className="whitespace-nowrap">{dateFmt.format(new Date(s.createdAt))}</Td>
                 </tr>
               ))}

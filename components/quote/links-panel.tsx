@@ -5,7 +5,6 @@ import { ActionForm, useFormState } from '@/components/ui/action-form';
 import { SelectField } from '@/components/ui/field';
 import { SubmitButton } from '@/components/ui/submit-button';
 import { Button } from '@/components/ui/button';
-import { EmptyRow, Table, TBody, THead, Td, Th } from '@/components/ui/table';
 import { createShareLink, revokeShareLink } from '@/server/actions/share-links';
 import type { ShareLinkItem } from '@/db/queries/share-links';
 import { dayTime } from './format';
@@ -70,42 +69,33 @@ export function LinksPanel({ quoteId, links, canShare, shareable }: { quoteId: n
           <NewLinkShown />
         </ActionForm>
       )}
-      <Table caption="Comparison links">
-        <THead>
-          <tr>
-            <Th>Link</Th>
-            <Th>State</Th>
-            <Th numeric>Views</Th>
-            <Th>Last opened</Th>
-            {canShare && <Th><span className="sr-only">Revoke</span></Th>}
-          </tr>
-        </THead>
-        <TBody>
-          {links.length === 0 && <EmptyRow colSpan={canShare ? 5 : 4}>No links yet.</EmptyRow>}
+      {links.length === 0 ? (
+        <p className="text-sm text-stone-600">No links yet.</p>
+      ) : (
+        // A list, not a table: the panel is a narrow side column, and a table would scroll sideways there.
+        <ul className="divide-y divide-stone-200 rounded border border-stone-200" aria-label="Comparison links">
           {links.map((l) => (
-            <tr key={l.id}>
-              <Td className="whitespace-nowrap">
-                Link {l.id}
-                <span className="block text-xs text-stone-600">{l.createdByName ? `${l.createdByName}, ` : ''}{dayTime(l.createdAt)}</span>
-              </Td>
-              <Td className={l.active ? 'text-ledger-800' : 'text-stone-600'}>{linkState(l)}</Td>
-              <Td numeric>{l.viewCount}</Td>
-              <Td className="whitespace-nowrap text-stone-700">{l.lastViewedAt ? dayTime(l.lastViewedAt) : 'never'}</Td>
-              {canShare && (
-                <Td className="text-right">
-                  {l.active && (
-                    <ActionForm action={revokeShareLink} aria-label={`Revoke link ${l.id}`} showSuccess={false}>
-                      <input type="hidden" name="quoteId" value={quoteId} />
-                      <input type="hidden" name="linkId" value={l.id} />
-                      <SubmitButton variant="danger" size="sm" pendingLabel="Revoking…" aria-label={`Revoke link ${l.id}`}>Revoke</SubmitButton>
-                    </ActionForm>
-                  )}
-                </Td>
+            <li key={l.id} className="flex items-start justify-between gap-3 px-3 py-2.5 text-sm">
+              <div className="min-w-0">
+                <p className="font-medium text-stone-900">
+                  Link {l.id} <span className={`ml-1 font-normal ${l.active ? 'text-ledger-800' : 'text-stone-600'}`}>· {linkState(l)}</span>
+                </p>
+                <p className="text-xs text-stone-600">
+                  <span className="num">{l.viewCount}</span> {l.viewCount === 1 ? 'view' : 'views'} · last opened {l.lastViewedAt ? dayTime(l.lastViewedAt) : 'never'}
+                </p>
+                <p className="text-xs text-stone-600">Made {l.createdByName ? `by ${l.createdByName}, ` : ''}{dayTime(l.createdAt)}</p>
+              </div>
+              {canShare && l.active && (
+                <ActionForm action={revokeShareLink} aria-label={`Revoke link ${l.id}`} showSuccess={false} className="shrink-0">
+                  <input type="hidden" name="quoteId" value={quoteId} />
+                  <input type="hidden" name="linkId" value={l.id} />
+                  <SubmitButton variant="danger" size="sm" pendingLabel="Revoking…" aria-label={`Revoke link ${l.id}`}>Revoke</SubmitButton>
+                </ActionForm>
               )}
-            </tr>
+            </li>
           ))}
-        </TBody>
-      </Table>
+        </ul>
+      )}
     </div>
   );
 }

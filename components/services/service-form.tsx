@@ -15,11 +15,11 @@ const MODCOD_OPTIONS = MODCOD_NAMES.map((m) => ({ value: m, label: m }));
 /** A satellite service: the carrier the dishes must receive (and, for two-way terminals, send). */
 export function ServiceForm({ values }: { values?: ServiceFormValues }) {
   const edit = values !== undefined;
-  const { state, formAction, pending, onSubmit, errors, message, failed } = useValidatedAction(edit ? updateServiceProfile : createServiceProfile, edit ? serviceProfileUpdateSchema : serviceProfileSchema, { resetOnSuccess: !edit });
+  const { state, formAction, pending, onSubmit, onInput, errors, message, failed } = useValidatedAction(edit ? updateServiceProfile : createServiceProfile, edit ? serviceProfileUpdateSchema : serviceProfileSchema, { resetOnSuccess: !edit });
   const [uplink, setUplink] = useState(values?.uplinkEnabled === 'on');
   const v = (k: string, d = '') => values?.[k] ?? d;
   return (
-    <form action={formAction} onSubmit={onSubmit} noValidate className="space-y-5" aria-label={edit ? `Edit ${values.name}` : 'Add a service'}>
+    <form action={formAction} onSubmit={onSubmit} onInput={onInput} noValidate className="space-y-5" aria-label={edit ? `Edit ${values.name}` : 'Add a service'}>
       {edit && <input type="hidden" name="id" value={values.id} />}
       <div className="grid gap-4 sm:grid-cols-2 lg:grid-cols-4">
         <TextInput label="Service name" name="name" defaultValue={v('name')} errors={errors.name} className="lg:col-span-2" />

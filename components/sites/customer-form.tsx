@@ -8,9 +8,9 @@ import { TextInput } from '@/components/study/form-fields';
 import { useValidatedAction } from '@/components/study/use-validated-action';
 
 export function CustomerForm() {
-  const { state, formAction, pending, onSubmit, errors, message, failed } = useValidatedAction(createCustomer, customerSchema, { resetOnSuccess: true });
+  const { state, formAction, pending, onSubmit, onInput, errors, message, failed } = useValidatedAction(createCustomer, customerSchema, { resetOnSuccess: true });
   return (
-    <form action={formAction} onSubmit={onSubmit} noValidate className="space-y-4" aria-label="Add a customer">
+    <form action={formAction} onSubmit={onSubmit} onInput={onInput} noValidate className="space-y-4" aria-label="Add a customer">
       <div className="grid gap-4 sm:grid-cols-3">
         <TextInput label="Name" name="name" errors={errors.name} />
         <TextInput label="E-mail (optional)" name="email" type="email" errors={errors.email} />

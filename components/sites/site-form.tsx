@@ -17,11 +17,11 @@ function Echo({ text, axis }: { text: string; axis: 'lat' | 'lon' }) {
 
 /** A new site for a customer; coordinates in decimal degrees or degrees-minutes-seconds. */
 export function SiteForm({ customers }: { customers: { id: number; name: string }[] }) {
-  const { state, formAction, pending, onSubmit, errors, message, failed } = useValidatedAction(createSite, siteSchema);
+  const { state, formAction, pending, onSubmit, onInput, errors, message, failed } = useValidatedAction(createSite, siteSchema);
   const [lat, setLat] = useState('');
   const [lon, setLon] = useState('');
   return (
-    <form action={formAction} onSubmit={onSubmit} noValidate className="space-y-4" aria-label="Add a site">
+    <form action={formAction} onSubmit={onSubmit} onInput={onInput} noValidate className="space-y-4" aria-label="Add a site">
       <div className="grid gap-4 sm:grid-cols-2 lg:grid-cols-3">
         <SelectInput label="Customer" name="customerId" placeholder="Choose a customer…" options={customers.map((c) => ({ value: String(c.id), label: c.name }))} errors={errors.customerId} />
         <TextInput label="Site name" name="name" errors={errors.name} />

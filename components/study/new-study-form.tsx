@@ -42,7 +42,7 @@ function Radio({ name, value, checked, onChange, children }: { name: string; val
  */
 export function NewStudyForm({ options, preset }: { options: NewStudyOptions; preset?: { customerId?: number; siteId?: number } }) {
   const router = useRouter();
-  const { state, formAction, pending, onSubmit, errors, message, failed } = useValidatedAction(createStudy, newStudySchema);
+  const { state, formAction, pending, onSubmit, onInput, errors, message, failed } = useValidatedAction(createStudy, newStudySchema);
   const [customerMode, setCustomerMode] = useState<'existing' | 'new'>(options.customers.length ? 'existing' : 'new');
   const [siteMode, setSiteMode] = useState<'existing' | 'new'>(options.sites.length ? 'existing' : 'new');
   const [customerId, setCustomerId] = useState(preset?.customerId ? String(preset.customerId) : '');
@@ -61,7 +61,7 @@ export function NewStudyForm({ options, preset }: { options: NewStudyOptions; pr
 
   const statusState = failed ? { ok: false as const, error: message } : state;
   return (
-    <form action={formAction} onSubmit={onSubmit} noValidate className="space-y-8" aria-label="New study">
+    <form action={formAction} onSubmit={onSubmit} onInput={onInput} noValidate className="space-y-8" aria-label="New study">
       <fieldset className="space-y-4">
         <legend className="text-base font-semibold text-stone-900">Customer and site</legend>
         <div className="flex flex-wrap gap-4" role="radiogroup" aria-label="Customer">

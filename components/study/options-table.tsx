@@ -22,18 +22,18 @@ export function OptionsTable({ studyId, inputs, result, canQuote }: { studyId: n
     <Table caption="Trade-off per dish">
       <THead>
         <tr>
-          <Th>Dish</Th>
-          <Th numeric>Gain dBi</Th>
-          <Th numeric>G/T dB/K</Th>
-          <Th numeric>Clear-sky Es/N0 dB</Th>
-          <Th numeric>Margin dB</Th>
-          <Th numeric>Fade threshold dB</Th>
-          <Th numeric>Availability{twoWay ? ' (two-way)' : ''}</Th>
-          <Th numeric>Outage / year</Th>
-          <Th numeric>Worst month</Th>
-          <Th numeric>Price</Th>
-          <Th numeric>Minutes saved / yr</Th>
-          <Th numeric>Cost per minute saved</Th>
+          <Th className="sticky left-0 z-[1] bg-stone-50">Dish</Th>
+          <Th numeric className="normal-case">Gain dBi</Th>
+          <Th numeric className="normal-case">G/T dB/K</Th>
+          <Th numeric className="normal-case">Clear-sky Es/N0 dB</Th>
+          <Th numeric className="normal-case">Margin dB</Th>
+          <Th numeric className="normal-case">Fade threshold dB</Th>
+          <Th numeric className="normal-case">Availability{twoWay ? ' (two-way)' : ''}</Th>
+          <Th numeric className="normal-case">Outage / year</Th>
+          <Th numeric className="normal-case">Worst month</Th>
+          <Th numeric className="normal-case">Price</Th>
+          <Th numeric className="normal-case">Minutes saved / yr</Th>
+          <Th numeric className="normal-case">Cost per minute saved</Th>
           {canQuote && <Th>
             <span className="sr-only">Quote</span>
           </Th>}
@@ -46,11 +46,11 @@ export function OptionsTable({ studyId, inputs, result, canQuote }: { studyId: n
           const f = basisFigures(o, rec.basis);
           const closes = closesOnBasis(o, rec.basis);
           return (
-            <tr key={o.index} className={rec.smallestMeetingTargetIndex === i ? 'bg-ledger-50/60' : undefined}>
-              <Th scope="row" className="whitespace-nowrap font-normal">
+            <tr key={o.index} className={rec.smallestMeetingTargetIndex === i ? 'bg-ledger-50' : undefined}>
+              <Th scope="row" className={`sticky left-0 z-[1] whitespace-nowrap font-normal ${rec.smallestMeetingTargetIndex === i ? 'bg-ledger-50' : 'bg-white'}`}>
                 <span className="block font-medium text-stone-900">{dish?.name ?? size.cm}</span>
                 <span className="num block text-left text-xs text-stone-600">
-                  {size.cm} <span className="text-stone-500">({size.inches})</span>
+                  {size.cm} <span className="text-stone-600">({size.inches})</span>
                 </span>
                 {rec.smallestMeetingTargetIndex === i && <Tag>meets target</Tag>}
                 {rec.bestValueIndex === i && <Tag>best value</Tag>}
@@ -76,7 +76,7 @@ export function OptionsTable({ studyId, inputs, result, canQuote }: { studyId: n
                 </Td>
               )}
               <Td numeric className="whitespace-nowrap">{usd(o.priceUsd)}</Td>
-              <Td numeric>{i === rec.baselineIndex ? <span className="text-stone-500">baseline</span> : fixed(o.minutesSavedPerYear, 0)}</Td>
+              <Td numeric>{i === rec.baselineIndex ? <span className="text-stone-600">baseline</span> : fixed(o.minutesSavedPerYear, 0)}</Td>
               <Td numeric>{usdPerMinute(o.costPerMinuteSavedUsd)}</Td>
               {canQuote && (
                 <Td className="whitespace-nowrap">

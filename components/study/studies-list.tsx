@@ -43,7 +43,7 @@ export function StudiesList() {
                 <Td>{s.serviceName}</Td>
                 <Td numeric>{s.dishCount}</Td>
                 <Td numeric>{fixed(s.targetAvailabilityPercent, 3)} %</Td>
-                <Td numeric>{s.recommendedDiameterM === null ? <span className="text-stone-500">none</span> : diameterLabel(s.recommendedDiameterM).cm}</Td>
+                <Td numeric>{s.recommendedDiameterM === null ? <span className="text-stone-600">none</span> : diameterLabel(s.recommendedDiameterM).cm}</Td>
                 <Td className="whitespace-nowrap text-stone-700">
                   {dateFmt.format(new Date(s.createdAt))}
                   {s.createdByName && <span className="block text-xs text-stone-600">{s.createdByName}</span>}

@@ -21,11 +21,14 @@ export function useValidatedAction<T>(action: Action<T>, schema: z.ZodType, opts
     if (reset && state?.ok) formRef.current?.reset();
   }, [state, reset]);
   const [clientErrors, setClientErrors] = useState<Record<string, string[]> | null>(null);
+  // Fields edited since the last check: their old message is hidden so the new value speaks for itself.
+  const [edited, setEdited] = useState<ReadonlySet<string>>(new Set());
   const [seenState, setSeenState] = useState(state);
   if (seenState !== state) {
     // A new answer from the server: its errors (if any) take over from the browser's.
     setSeenState(state);
     setClientErrors(null);
+    setEdited(new Set());
   }
   // Submitted by hand (not through the form's action prop) so React does not reset the form:
   // after a refusal every box keeps what was typed. Without JavaScript the action prop still works.
@@ -36,15 +39,21 @@ export function useValidatedAction<T>(action: Action<T>, schema: z.ZodType, opts
     const parsed = schema.safeParse(formObject(form));
     if (!parsed.success) {
       setClientErrors(issuesByField(parsed.error.issues));
+      setEdited(new Set());
       return;
     }
     setClientErrors(null);
+    setEdited(new Set());
     const data = new FormData(form);
     startTransition(() => formAction(data));
   };
+  const onInput = (event: FormEvent<HTMLFormElement>) => {
+    const name = (event.target as HTMLInputElement).name;
+    if (name && !edited.has(name)) setEdited(new Set([...edited, name]));
+  };
   const serverErrors = state && !state.ok ? (state.fieldErrors ?? {}) : {};
-  const errors: Record<string, string[]> = clientErrors ?? serverErrors;
+  const errors: Record<string, string[]> = Object.fromEntries(Object.entries(clientErrors ?? serverErrors).filter(([k]) => !edited.has(k)));
   const message = clientErrors ? 'Please check the highlighted fields.' : state ? (state.ok ? (state.message ?? '') : state.error) : '';
   const failed = clientErrors !== null || (state !== null && !state.ok);
-  return { state, formAction, pending, onSubmit, errors, message, failed };
+  return { state, formAction, pending, onSubmit, onInput, errors, message, failed };
 }

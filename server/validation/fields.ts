@@ -71,7 +71,8 @@ export function idField(label: string) {
 }
 
 /** A list of ids: an array, or one comma-separated string (a hidden input). */
-export function idListField(label: string, min: number, max: number) {
+export function idListField(label: string, min: number, max: number, singular = label.replace(/e?s$/, '')) {
+  const atLeast = min === 1 ? `Choose at least one ${singular}.` : `Choose at least ${min} ${label}.`;
   return z.preprocess(
     (v) => {
       if (typeof v === 'string') return v.split(',').map((s) => s.trim()).filter((s) => s !== '').map((s) => (/^\d+$/.test(s) ? Number(s) : s));
@@ -79,10 +80,10 @@ export function idListField(label: string, min: number, max: number) {
       return v;
     },
     z
-      .array(z.number().int().positive(), { error: `Choose at least ${min} ${label}.` })
-      .min(min, `Choose at least ${min} ${label}.`)
+      .array(z.number().int().positive(), { error: atLeast })
+      .min(min, atLeast)
       .max(max, `Choose at most ${max} ${label}.`)
-      .refine((a) => new Set(a).size === a.length, `Each ${label.replace(/s$/, '')} only once.`),
+      .refine((a) => new Set(a).size === a.length, `Each ${singular} only once.`),
   );
 }
 

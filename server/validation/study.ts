@@ -8,6 +8,13 @@ export const TARGET_AVAILABILITY_PERCENT = { min: 90, max: 99.999, default: 99.9
 /** Dishes compared in one study (a table that still reads on a phone). */
 export const STUDY_DISHES = { min: 1, max: 12 } as const;
 
+/** Blank altitude means sea level; anything else must be a number in range (NaN otherwise). */
+function altitudeOf(v: unknown): number {
+  const text = v === undefined || v === null || String(v).trim() === '' ? '0' : String(v).trim();
+  const n = /^[+-]?\d+(\.\d+)?$/.test(text) ? Number(text) : Number.NaN;
+  return n >= SITE_ALTITUDE_M.min && n <= SITE_ALTITUDE_M.max ? n : Number.NaN;
+}
+
 const optionalIdField = (label: string) =>
   z.preprocess((v) => (v === undefined || v === null || v === '' ? undefined : v), idField(label).optional());
 
@@ -30,39 +37,48 @@ export const newStudySchema = z
     altitudeM: z.union([z.string(), z.number()]).optional(),
     serviceProfileId: idField('service profile'),
     climateProfileId: idField('climate profile'),
-    dishIds: idListField('dishes', STUDY_DISHES.min, STUDY_DISHES.max),
+    dishIds: idListField('dishes', STUDY_DISHES.min, STUDY_DISHES.max, 'dish'),
     targetAvailabilityPercent: z.preprocess(
       (v) => (v === undefined || v === null || v === '' ? TARGET_AVAILABILITY_PERCENT.default : v),
       numberIn('Target availability', TARGET_AVAILABILITY_PERCENT.min, TARGET_AVAILABILITY_PERCENT.max, '%'),
     ),
   })
-  .transform((v, ctx) => {
-    let customer: { id: number } | { name: string } | null = null;
-    if (v.customerMode === 'new') {
-      if (!v.newCustomerName) ctx.addIssue({ code: 'custom', path: ['newCustomerName'], message: 'Customer name is required.' });
-      else customer = { name: v.newCustomerName };
-    } else if (v.customerId === undefined) {
-      ctx.addIssue({ code: 'custom', path: ['customerId'], message: 'Choose a customer.' });
-    } else customer = { id: v.customerId };
-
-    let site: { id: number } | { name: string; latDeg: number; lonDeg: number; altitudeM: number } | null = null;
-    if (v.siteMode === 'new' || v.customerMode === 'new') {
-      if (!v.siteName) ctx.addIssue({ code: 'custom', path: ['siteName'], message: 'Site name is required.' });
-      const lat = parseCoordinate(String(v.latDeg ?? ''), 'lat');
-      const lon = parseCoordinate(String(v.lonDeg ?? ''), 'lon');
-      if (!lat.ok) ctx.addIssue({ code: 'custom', path: ['latDeg'], message: lat.error });
-      if (!lon.ok) ctx.addIssue({ code: 'custom', path: ['lonDeg'], message: lon.error });
-      const altText = v.altitudeM === undefined || String(v.altitudeM).trim() === '' ? '0' : String(v.altitudeM).trim();
-      const alt = /^[+-]?\d+(\.\d+)?$/.test(altText) ? Number(altText) : Number.NaN;
-      if (!(alt >= SITE_ALTITUDE_M.min && alt <= SITE_ALTITUDE_M.max)) {
-        ctx.addIssue({ code: 'custom', path: ['altitudeM'], message: `Altitude must be between ${SITE_ALTITUDE_M.min} and ${SITE_ALTITUDE_M.max} m.` });
+  // Runs even when other fields already failed (`when`), so every problem of the form shows at once.
+  .superRefine(
+    (raw, ctx) => {
+      const v = raw as Partial<typeof raw>;
+      const newCustomer = v.customerMode === 'new';
+      if (newCustomer) {
+        if (!v.newCustomerName) ctx.addIssue({ code: 'custom', path: ['newCustomerName'], message: 'Customer name is required.' });
+      } else if (v.customerId === undefined) {
+        ctx.addIssue({ code: 'custom', path: ['customerId'], message: 'Choose a customer.' });
       }
-      if (v.siteName && lat.ok && lon.ok && Number.isFinite(alt)) site = { name: v.siteName, latDeg: lat.value, lonDeg: lon.value, altitudeM: alt };
-    } else if (v.siteId === undefined) {
-      ctx.addIssue({ code: 'custom', path: ['siteId'], message: 'Choose a site.' });
-    } else site = { id: v.siteId };
-
-    if (!customer || !site) return z.NEVER;
+      if (v.siteMode === 'new' || newCustomer) {
+        if (!v.siteName) ctx.addIssue({ code: 'custom', path: ['siteName'], message: 'Site name is required.' });
+        const lat = parseCoordinate(String(v.latDeg ?? ''), 'lat');
+        const lon = parseCoordinate(String(v.lonDeg ?? ''), 'lon');
+        if (!lat.ok) ctx.addIssue({ code: 'custom', path: ['latDeg'], message: lat.error });
+        if (!lon.ok) ctx.addIssue({ code: 'custom', path: ['lonDeg'], message: lon.error });
+        if (!Number.isFinite(altitudeOf(v.altitudeM))) {
+          ctx.addIssue({ code: 'custom', path: ['altitudeM'], message: `Altitude must be between ${SITE_ALTITUDE_M.min} and ${SITE_ALTITUDE_M.max} m.` });
+        }
+      } else if (v.siteId === undefined) {
+        ctx.addIssue({ code: 'custom', path: ['siteId'], message: 'Choose a site.' });
+      }
+    },
+    { when: () => true },
+  )
+  .transform((v) => {
+    const newSite = v.siteMode === 'new' || v.customerMode === 'new';
+    const customer: { id: number } | { name: string } = v.customerMode === 'new' ? { name: v.newCustomerName as string } : { id: v.customerId as number };
+    const site: { id: number } | { name: string; latDeg: number; lonDeg: number; altitudeM: number } = newSite
+      ? {
+          name: v.siteName as string,
+          latDeg: (parseCoordinate(String(v.latDeg), 'lat') as { value: number }).value,
+          lonDeg: (parseCoordinate(String(v.lonDeg), 'lon') as { value: number }).value,
+          altitudeM: altitudeOf(v.altitudeM),
+        }
+      : { id: v.siteId as number };
     return {
       title: v.title,
       customer,

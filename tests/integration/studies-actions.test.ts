@@ -166,6 +166,9 @@ describe('study creation', () => {
     const out = await callAction(studyActions.createStudy, { customerMode: 'new', siteMode: 'new', latDeg: '95', lonDeg: '12 75 0 E', dishIds: '', targetAvailabilityPercent: '80' });
     expect(out.state?.ok).toBe(false);
     const fe = (out.state as { fieldErrors: Record<string, string[]> }).fieldErrors;
-    expect(Object.keys(fe).sort()).toEqual(['climateProfileId', 'dishIds', 'serviceProfileId', 'targetAvailabilityPercent'].sort());
+    // Every problem at once, the customer and site ones included.
+    expect(Object.keys(fe).sort()).toEqual(['climateProfileId', 'dishIds', 'latDeg', 'lonDeg', 'newCustomerName', 'serviceProfileId', 'siteName', 'targetAvailabilityPercent'].sort());
+    expect(fe.lonDeg).toEqual(['Minutes must be below 60.']);
+    expect(fe.dishIds).toEqual(['Choose at least one dish.']);
   });
 });

@@ -48,7 +48,7 @@ export default async function DishesPage() {
                 {dishes.map((d) => {
                   const size = diameterLabel(Number(d.diameterM));
                   return (
-                    <tr key={d.id} className={d.active ? '' : 'text-stone-500'}>
+                    <tr key={d.id} className={d.active ? '' : 'text-stone-600'}>
                       <Th scope="row" className="font-medium text-stone-900">
                         {d.name}
                       </Th>

@@ -1,0 +1,108 @@
+import { test, expect, type Page } from '@playwright/test';
+import AxeBuilder from '@axe-core/playwright';
+import { DEMO_PASSWORD, DEMO_USERS } from '../../db/demo/accounts';
+import { DEMO_SERVICES, DEMO_CLIMATES } from '../../db/demo/studies';
+
+/**
+ * Studies in chromium against the running app and the seeded demo scenario (db/demo/studies.ts):
+ * the installer builds a study from the form — a new customer and a site typed in DMS — and sees
+ * the per-dish table, the charts and the cautions; the same zod schema refuses a bad form in the
+ * browser before anything is sent; the study pages have no serious accessibility violations.
+ */
+const installer = DEMO_USERS.find((u) => u.role === 'installer' && u.company === 'quillfeather')!;
+const sales = DEMO_USERS.find((u) => u.role === 'sales' && u.company === 'quillfeather')!;
+const stamp = () => `${Date.now().toString(36)}${Math.floor(Math.random() * 1e4)}`;
+
+async function signIn(page: Page, email: string) {
+  await page.goto('/sign-in');
+  await page.getByLabel('E-mail address').fill(email);
+  await page.getByLabel('Password').fill(DEMO_PASSWORD);
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await page.waitForURL((u) => !u.pathname.startsWith('/sign-in'));
+}
+
+async function seriousViolations(page: Page) {
+  const results = await new AxeBuilder({ page }).withTags(['wcag2a', 'wcag2aa']).analyze();
+  return results.violations.filter((v) => v.impact === 'serious' || v.impact === 'critical').map((v) => `${v.id}: ${v.nodes.map((n) => n.target.join(' ')).join(', ')}`);
+}
+
+test('an installer builds a study from the form and reads the trade-off', async ({ page }) => {
+  const id = stamp();
+  await signIn(page, installer.email);
+  await page.goto('/studies/new');
+
+  // The browser runs the action's zod schema first: an empty form is refused without a round trip.
+  await page.getByRole('radio', { name: 'New customer' }).check();
+  await page.getByLabel('Latitude').fill('12 75 0 N');
+  await expect(page.getByText('Minutes must be below 60.')).toBeVisible();
+  const requests: string[] = [];
+  page.on('request', (r) => r.method() === 'POST' && requests.push(r.url()));
+  await page.getByRole('button', { name: 'Compute study' }).click();
+  await expect(page.getByText('Customer name is required.')).toBeVisible();
+  await expect(page.getByText('Choose a service profile.')).toBeVisible();
+  await expect(page.getByRole('alert').filter({ hasText: 'Please check the highlighted fields.' })).toBeVisible();
+  expect(requests).toEqual([]);
+
+  await page.getByLabel('Customer name').fill(`Wrenfold Tearoom ${id}`);
+  await page.getByLabel('Site name').fill('Tearoom back wall');
+  await page.getByLabel('Latitude').fill(`51°30'36"N`);
+  await expect(page.getByText('= 51.51° (51° 30′ 36.0″ N)')).toBeVisible();
+  await page.getByLabel('Longitude').fill('2 07 12 W');
+  await page.getByLabel('Altitude (m above sea level)').fill('85');
+  const optionValue = (select: string, text: string) => page.locator(`select[name=${select}] option`, { hasText: text }).first().getAttribute('value');
+  await page.getByLabel('Satellite service').selectOption((await optionValue('serviceProfileId', DEMO_SERVICES[0].name))!);
+  await page.getByLabel('Rain climate').selectOption((await optionValue('climateProfileId', DEMO_CLIMATES[0].name))!);
+  // Compare three dishes only.
+  for (const name of ['Quill 100', 'Quill 120', 'Quill 150', 'Quill 180']) await page.getByRole('checkbox', { name: new RegExp(`^${name}\\b`) }).uncheck();
+  await page.getByLabel('Target availability (%)').fill('99.95');
+  await page.getByRole('button', { name: 'Compute study' }).click();
+
+  await page.waitForURL(/\/studies\/\d+$/);
+  await expect(page.getByRole('heading', { level: 1 })).toContainText(`Wrenfold Tearoom ${id}`);
+  const table = page.getByRole('table', { name: 'Trade-off per dish' });
+  await expect(table.getByRole('row')).toHaveCount(4);
+  await expect(table.getByRole('rowheader').first()).toContainText('60 cm (23.6 in)');
+  await expect(table).toContainText('%');
+  await expect(page.getByRole('heading', { name: 'Recommendation' })).toBeVisible();
+  await expect(page.getByRole('heading', { name: 'Pointing' })).toBeVisible();
+  await expect(page.getByText('ITU-R P.837-7 Annex 1 from monthly rainfall and temperature normals')).toBeVisible();
+  await expect(page.getByRole('img', { name: /Outage minutes per year against dish diameter/ })).toBeVisible();
+  await expect(page.getByRole('img', { name: /Downlink rain attenuation exceeded/ })).toBeVisible();
+  await expect(page.getByText('Statistics, not guarantees')).toBeVisible();
+  const quote = page.getByRole('link', { name: 'Create quote' });
+  await expect(quote).toHaveAttribute('href', /^\/quotes\/new\?study=\d+&option=\d$/);
+  expect(await seriousViolations(page)).toEqual([]);
+
+  // The new study is first in the list (fetched with SWR), and searchable.
+  await page.goto('/studies');
+  await page.getByRole('searchbox').fill(`Wrenfold Tearoom ${id}`);
+  await expect(page.getByRole('table', { name: 'Studies' }).getByRole('link', { name: new RegExp(`Wrenfold Tearoom ${id}`) })).toBeVisible();
+  expect(await seriousViolations(page)).toEqual([]);
+});
+
+test('sales reads studies but has no form, and the pages pass axe', async ({ page }) => {
+  await signIn(page, sales.email);
+  await page.goto('/studies');
+  await expect(page.getByRole('table', { name: 'Studies' }).getByRole('link').first()).toBeVisible();
+  await expect(page.getByRole('link', { name: 'New study' })).toHaveCount(0);
+  expect(await seriousViolations(page)).toEqual([]);
+  await page.getByRole('table', { name: 'Studies' }).getByRole('link').first().click();
+  await page.waitForURL(/\/studies\/\d+$/);
+  await expect(page.getByRole('table', { name: 'Trade-off per dish' })).toBeVisible();
+  await expect(page.getByRole('button', { name: /Re-run/ })).toHaveCount(0);
+  expect(await seriousViolations(page)).toEqual([]);
+  // The page itself refuses (the server check, not only the hidden button).
+  await page.goto('/studies/new');
+  await expect(page.getByRole('heading', { name: 'We could not find that page' })).toBeVisible();
+  await expect(page.getByRole('form', { name: 'New study' })).toHaveCount(0);
+});
+
+test('the setup pages pass axe for an admin', async ({ page }) => {
+  const admin = DEMO_USERS.find((u) => u.role === 'admin' && u.company === 'quillfeather')!;
+  await signIn(page, admin.email);
+  for (const path of ['/dashboard', '/sites', '/customers', '/dishes', '/climate', '/services', '/studies/new']) {
+    await page.goto(path);
+    await expect(page.getByRole('heading', { level: 1 })).toBeVisible();
+    expect(await seriousViolations(page), path).toEqual([]);
+  }
+});
