@@ -27,7 +27,7 @@ function httpUrl(name: string, value: string): string {
   return value.replace(/\/+$/, '');
 }
 
-export function readConfig(env: NodeJS.ProcessEnv): FakeConfig {
+export function readConfig(env: Record<string, string | undefined>): FakeConfig {
   const rawPort = env.STRIPE_FAKE_PORT?.trim() || '12111';
   if (!/^\d+$/.test(rawPort) || Number(rawPort) > 65535) {
     throw new ConfigError(`STRIPE_FAKE_PORT must be a port number (0-65535), got "${rawPort}".`);

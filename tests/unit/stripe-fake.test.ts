@@ -591,7 +591,7 @@ describe('server.ts entry point', () => {
   const tsx = path.resolve(__dirname, '../../node_modules/tsx/dist/cli.mjs');
 
   function run(env: Record<string, string>) {
-    const child = spawn(process.execPath, [tsx, entry], { env: { PATH: process.env.PATH ?? '', ...env }, stdio: ['ignore', 'pipe', 'pipe'] });
+    const child = spawn(process.execPath, [tsx, entry], { env: { NODE_ENV: 'test', PATH: process.env.PATH ?? '', ...env }, stdio: ['ignore', 'pipe', 'pipe'] });
     let out = '';
     child.stdout.on('data', (c: Buffer) => (out += c.toString()));
     child.stderr.on('data', (c: Buffer) => (out += c.toString()));
