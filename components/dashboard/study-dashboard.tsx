@@ -63,9 +63,9 @@ export function StudyDashboard({ canStudy }: { canStudy: boolean }) {
             <THead>
               <tr>
                 <Th>Study</Th>
-                <Th>Customer · site</Th>
+                <Th className="hidden md:table-cell">Customer · site</Th>
                 <Th numeric>Smallest meeting the target</Th>
-                <Th>Made</Th>
+                <Th className="hidden sm:table-cell">Made</Th>
               </tr>
             </THead>
             <TBody>
@@ -76,13 +76,16 @@ export function StudyDashboard({ canStudy }: { canStudy: boolean }) {
                     <Link href={`/studies/${s.id}`} className="font-medium text-ledger-800 hover:underline">
                       {s.title}
                     </Link>
+                    <span className="block text-xs text-stone-600 md:hidden">
+                      {s.customerName} · {dateFmt.format(new Date(s.createdAt))}
+                    </span>
                   </Td>
-                  <Td>
+                  <Td className="hidden md:table-cell">
                     {s.customerName}
                     <span className="block text-xs text-stone-600">{s.siteName}</span>
                   </Td>
                   <Td numeric>{s.recommendedDiameterM === null ? <span className="text-stone-600">none</span> : diameterLabel(s.recommendedDiameterM).cm}</Td>
-                  <Td className="whitespace-nowrap">{dateFmt.format(new Date(s.createdAt))}</Td>
+                  <Td className="hidden whitespace-nowrap sm:table-cell">{dateFmt.format(new Date(s.createdAt))}</Td>
                 </tr>
               ))}
             </TBody>

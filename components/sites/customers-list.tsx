@@ -26,7 +26,7 @@ export function CustomersList() {
             {items.length === 0 && <EmptyRow colSpan={5}>{loading ? 'Loading customers…' : 'No customers match.'}</EmptyRow>}
             {items.map((c) => (
               <tr key={c.id}>
-                <Th scope="row" className="font-medium text-stone-900">
+                <Th scope="row" className="align-top font-medium text-stone-900">
                   {c.name}
                 </Th>
                 <Td>{c.email ?? '—'}</Td>

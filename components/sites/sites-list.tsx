@@ -19,11 +19,11 @@ export function SitesList({ canStudy }: { canStudy: boolean }) {
           <THead>
             <tr>
               <Th>Site</Th>
-              <Th>Customer</Th>
+              <Th className="hidden md:table-cell">Customer</Th>
               <Th numeric>Latitude</Th>
               <Th numeric>Longitude</Th>
-              <Th numeric>Altitude</Th>
-              <Th numeric>Studies</Th>
+              <Th numeric className="hidden sm:table-cell">Altitude</Th>
+              <Th numeric className="hidden sm:table-cell">Studies</Th>
               {canStudy && <Th><span className="sr-only">Actions</span></Th>}
             </tr>
           </THead>
@@ -31,11 +31,12 @@ export function SitesList({ canStudy }: { canStudy: boolean }) {
             {items.length === 0 && <EmptyRow colSpan={canStudy ? 7 : 6}>{loading ? 'Loading sites…' : 'No sites match.'}</EmptyRow>}
             {items.map((s) => (
               <tr key={s.id}>
-                <Th scope="row" className="font-medium text-stone-900">
+                <Th scope="row" className="align-top font-medium text-stone-900">
                   {s.name}
                   {s.address && <span className="block text-xs font-normal text-stone-600">{s.address}</span>}
+                  <span className="block text-xs font-normal text-stone-600 md:hidden">{s.customerName}</span>
                 </Th>
-                <Td>{s.customerName}</Td>
+                <Td className="hidden md:table-cell">{s.customerName}</Td>
                 <Td numeric className="whitespace-nowrap">
                   {formatDms(s.latDeg, 'lat')}
                   <span className="block text-xs text-stone-600">{fixed(s.latDeg, 5)}</span>
@@ -44,8 +45,8 @@ export function SitesList({ canStudy }: { canStudy: boolean }) {
                   {formatDms(s.lonDeg, 'lon')}
                   <span className="block text-xs text-stone-600">{fixed(s.lonDeg, 5)}</span>
                 </Td>
-                <Td numeric>{fixed(s.altitudeM, 0)} m</Td>
-                <Td numeric>{s.studyCount}</Td>
+                <Td numeric className="hidden sm:table-cell">{fixed(s.altitudeM, 0)} m</Td>
+                <Td numeric className="hidden sm:table-cell">{s.studyCount}</Td>
                 {canStudy && (
                   <Td className="whitespace-nowrap">
                     <Link href={`/studies/new?site=${s.id}`} className="text-sm font-medium text-ledger-700 hover:underline">

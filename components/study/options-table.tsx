@@ -47,7 +47,7 @@ export function OptionsTable({ studyId, inputs, result, canQuote }: { studyId: n
           const closes = closesOnBasis(o, rec.basis);
           return (
             <tr key={o.index} className={rec.smallestMeetingTargetIndex === i ? 'bg-ledger-50' : undefined}>
-              <Th scope="row" className={`sticky left-0 z-[1] whitespace-nowrap font-normal ${rec.smallestMeetingTargetIndex === i ? 'bg-ledger-50' : 'bg-white'}`}>
+              <Th scope="row" className={`sticky left-0 z-[1] whitespace-nowrap align-top font-normal ${rec.smallestMeetingTargetIndex === i ? 'bg-ledger-50' : 'bg-white'}`}>
                 <span className="block font-medium text-stone-900">{dish?.name ?? size.cm}</span>
                 <span className="num block text-left text-xs text-stone-600">
                   {size.cm} <span className="text-stone-600">({size.inches})</span>

@@ -18,12 +18,12 @@ export function StudiesList() {
           <THead>
             <tr>
               <Th>Study</Th>
-              <Th>Customer · site</Th>
-              <Th>Service</Th>
-              <Th numeric>Dishes</Th>
-              <Th numeric>Target</Th>
+              <Th className="hidden md:table-cell">Customer · site</Th>
+              <Th className="hidden lg:table-cell">Service</Th>
+              <Th numeric className="hidden sm:table-cell">Dishes</Th>
+              <Th numeric className="hidden sm:table-cell">Target</Th>
               <Th numeric>Smallest meeting it</Th>
-              <Th>Made</Th>
+              <Th className="hidden sm:table-cell">Made</Th>
             </tr>
           </THead>
           <TBody>
@@ -35,16 +35,19 @@ export function StudiesList() {
                     {s.title}
                   </Link>
                   {s.revision > 1 && <span className="ml-1 text-xs text-stone-600">rev. {s.revision}</span>}
+                  <span className="block text-xs text-stone-600 md:hidden">
+                    {s.customerName} · {s.siteName} · {dateFmt.format(new Date(s.createdAt))}
+                  </span>
                 </Td>
-                <Td>
+                <Td className="hidden md:table-cell">
                   {s.customerName}
                   <span className="block text-xs text-stone-600">{s.siteName}</span>
                 </Td>
-                <Td>{s.serviceName}</Td>
-                <Td numeric>{s.dishCount}</Td>
-                <Td numeric>{fixed(s.targetAvailabilityPercent, 3)} %</Td>
+                <Td className="hidden lg:table-cell">{s.serviceName}</Td>
+                <Td numeric className="hidden sm:table-cell">{s.dishCount}</Td>
+                <Td numeric className="hidden whitespace-nowrap sm:table-cell">{fixed(s.targetAvailabilityPercent, 3)} %</Td>
                 <Td numeric>{s.recommendedDiameterM === null ? <span className="text-stone-600">none</span> : diameterLabel(s.recommendedDiameterM).cm}</Td>
-                <Td className="whitespace-nowrap text-stone-700">
+                <Td className="hidden whitespace-nowrap text-stone-700 sm:table-cell">
                   {dateFmt.format(new Date(s.createdAt))}
                   {s.createdByName && <span className="block text-xs text-stone-600">{s.createdByName}</span>}
                 </Td>

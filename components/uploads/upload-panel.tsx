@@ -131,7 +131,7 @@ export function UploadPanel({ kinds, preview, confirm, needsProfileFields }: { k
         )}
       </div>
       {needsProfileFields && kind !== 'dish-catalogue' && (
-        <div className="grid gap-4 md:grid-cols-3">
+        <div className="grid gap-4 sm:grid-cols-2">
           <TextInput label="Profile name" name="name" errors={fieldErrors.name} />
           <TextInput label="Source of the figures" name="sourceNote" placeholder="Weather service, station, years" errors={fieldErrors.sourceNote} />
           <TextInput label="0 °C isotherm height (km, optional)" name="zeroIsothermKm" inputMode="decimal" errors={fieldErrors.zeroIsothermKm} hint="ITU-R P.839-4 h0; blank uses the labelled latitude approximation." />

@@ -46,7 +46,7 @@ export default async function ClimatePage() {
                 <tr>
                   <Th>Profile</Th>
                   <Th>Kind</Th>
-                  <Th numeric>R0.01</Th>
+                  <Th numeric className="normal-case">R0.01</Th>
                   <Th numeric>0 °C isotherm</Th>
                   <Th>Source</Th>
                   {admin && <Th><span className="sr-only">Actions</span></Th>}
@@ -56,7 +56,7 @@ export default async function ClimatePage() {
                 {profiles.length === 0 && <EmptyRow colSpan={admin ? 6 : 5}>No climate profiles yet.</EmptyRow>}
                 {profiles.map((p) => (
                   <tr key={p.id}>
-                    <Th scope="row" className="font-medium text-stone-900">
+                    <Th scope="row" className="align-top font-medium text-stone-900">
                       {p.name}
                     </Th>
                     <Td>{CLIMATE_KIND_LABELS[p.kind]}</Td>

@@ -34,12 +34,12 @@ export default async function DishesPage() {
                 <tr>
                   <Th>Dish</Th>
                   <Th numeric>Diameter</Th>
-                  <Th numeric>Efficiency</Th>
-                  <Th numeric>Hardware</Th>
-                  <Th numeric>Labour</Th>
+                  <Th numeric className="hidden sm:table-cell">Efficiency</Th>
+                  <Th numeric className="hidden md:table-cell">Hardware</Th>
+                  <Th numeric className="hidden md:table-cell">Labour</Th>
                   <Th numeric>Installed</Th>
-                  <Th>Mount</Th>
-                  <Th>Status</Th>
+                  <Th className="hidden lg:table-cell">Mount</Th>
+                  <Th className="hidden sm:table-cell">Status</Th>
                   {admin && <Th><span className="sr-only">Actions</span></Th>}
                 </tr>
               </THead>
@@ -49,18 +49,18 @@ export default async function DishesPage() {
                   const size = diameterLabel(Number(d.diameterM));
                   return (
                     <tr key={d.id} className={d.active ? '' : 'text-stone-600'}>
-                      <Th scope="row" className="font-medium text-stone-900">
+                      <Th scope="row" className="whitespace-nowrap align-top font-medium text-stone-900">
                         {d.name}
                       </Th>
                       <Td numeric className="whitespace-nowrap">
                         {size.cm} <span className="text-xs text-stone-600">({size.inches})</span>
                       </Td>
-                      <Td numeric>{fixed(Number(d.efficiency), 2)}</Td>
-                      <Td numeric>{usd(d.hardwarePrice)}</Td>
-                      <Td numeric>{usd(d.labourPrice)}</Td>
+                      <Td numeric className="hidden sm:table-cell">{fixed(Number(d.efficiency), 2)}</Td>
+                      <Td numeric className="hidden md:table-cell">{usd(d.hardwarePrice)}</Td>
+                      <Td numeric className="hidden md:table-cell">{usd(d.labourPrice)}</Td>
                       <Td numeric>{usd((Number(d.hardwarePrice) + Number(d.labourPrice)).toFixed(2))}</Td>
-                      <Td className="max-w-xs text-stone-700">{d.mountNotes ?? '—'}</Td>
-                      <Td>{d.active ? 'offered' : 'not offered'}</Td>
+                      <Td className="hidden max-w-xs text-stone-700 lg:table-cell">{d.mountNotes ?? '—'}</Td>
+                      <Td className="hidden sm:table-cell">{d.active ? 'offered' : 'not offered'}</Td>
                       {admin && (
                         <Td className="whitespace-nowrap">
                           <details className="group">

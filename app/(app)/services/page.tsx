@@ -65,10 +65,10 @@ export default async function ServicesPage() {
                   <Th>Service</Th>
                   <Th>Satellite</Th>
                   <Th numeric>Downlink</Th>
-                  <Th numeric>EIRP</Th>
+                  <Th numeric className="normal-case">EIRP</Th>
                   <Th numeric>Symbol rate</Th>
-                  <Th>MODCOD</Th>
-                  <Th numeric>Required Es/N0</Th>
+                  <Th className="normal-case">MODCOD</Th>
+                  <Th numeric className="normal-case">Required Es/N0</Th>
                   <Th>Return link</Th>
                   {write && <Th><span className="sr-only">Actions</span></Th>}
                 </tr>
@@ -79,7 +79,7 @@ export default async function ServicesPage() {
                   const s = serviceSnapshotOf(row);
                   return (
                     <tr key={row.id}>
-                      <Th scope="row" className="font-medium text-stone-900">
+                      <Th scope="row" className="align-top font-medium text-stone-900">
                         {s.name}
                       </Th>
                       <Td>
