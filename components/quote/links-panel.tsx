@@ -60,7 +60,7 @@ export function LinksPanel({ quoteId, links, canShare, shareable }: { quoteId: n
   return (
     <div className="space-y-4">
       {canShare && shareable && (
-        <ActionForm action={createShareLink} aria-label="Make a comparison link" statusClassName="mt-2">
+        <ActionForm action={createShareLink} aria-label="Make a comparison link" statusClassName="mt-2" showSuccess={false}>
           <input type="hidden" name="quoteId" value={quoteId} />
           <div className="flex flex-wrap items-end gap-3">
             <SelectField label="Link works for" name="expiresInDays" defaultValue="30" options={LINK_DAYS_OPTIONS} className="w-40" />

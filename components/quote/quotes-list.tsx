@@ -65,11 +65,11 @@ export function QuotesList() {
               <tr>
                 <Th>Quote</Th>
                 <Th>Customer · site</Th>
-                <Th>Dish</Th>
+                <Th className="hidden md:table-cell">Dish</Th>
                 <Th numeric>Total</Th>
-                <Th>Status</Th>
-                <Th numeric>Views</Th>
-                <Th>Valid until</Th>
+                <Th className="hidden sm:table-cell">Status</Th>
+                <Th numeric className="hidden md:table-cell">Views</Th>
+                <Th className="hidden md:table-cell">Valid until</Th>
               </tr>
             </THead>
             <TBody>
@@ -81,18 +81,22 @@ export function QuotesList() {
                       {quoteReference(q.number)}
                     </Link>
                     {q.createdByName && <span className="block text-xs text-stone-600">{q.createdByName}</span>}
+                    {/* On phones the status rides under the number; the status column is hidden there. */}
+                    <span className="mt-1 block sm:hidden">
+                      <QuoteStatusBadge status={q.status} />
+                    </span>
                   </Td>
                   <Td>
                     {q.customerName}
                     <span className="block text-xs text-stone-600">{q.siteName}</span>
                   </Td>
-                  <Td>{q.chosenDishName}</Td>
+                  <Td className="hidden md:table-cell">{q.chosenDishName}</Td>
                   <Td numeric className="whitespace-nowrap">{money(q.total, q.currency)}</Td>
-                  <Td>
+                  <Td className="hidden sm:table-cell">
                     <QuoteStatusBadge status={q.status} />
                   </Td>
-                  <Td numeric>{q.views}</Td>
-                  <Td className="whitespace-nowrap text-stone-700">{day(q.validUntil)}</Td>
+                  <Td numeric className="hidden md:table-cell">{q.views}</Td>
+                  <Td className="hidden whitespace-nowrap text-stone-700 md:table-cell">{day(q.validUntil)}</Td>
                 </tr>
               ))}
             </TBody>

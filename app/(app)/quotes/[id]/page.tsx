@@ -134,16 +134,12 @@ export default async function QuotePage({ params }: { params: Promise<{ id: stri
 
         <div className="min-w-0 space-y-6">
           <Card aria-labelledby="links-title">
-            <CardHeader id="links-title" title="Comparison links" description="Each link opens this quote for the customer, without an account. Only you see the view counts." />
-            <CardBody className="px-0 sm:px-0">
-              <div className="px-4 sm:px-5">
-                {!shareable && quote.status !== 'accepted' && quote.status !== 'declined' && (
-                  <p className="mb-3 text-sm text-stone-700">{quote.status === 'draft' ? 'Set a valid-until date from today on to share this draft.' : 'This quote can no longer be shared.'}</p>
-                )}
-              </div>
-              <div className="px-4 sm:px-5">
-                <LinksPanel quoteId={quote.id} links={links} canShare={canShare} shareable={shareable} />
-              </div>
+            <CardHeader id="links-title" title="Comparison links" description="Each link opens this quote for the customer, without an account. Only your team sees the view counts." />
+            <CardBody>
+              {!shareable && quote.status !== 'accepted' && quote.status !== 'declined' && (
+                <p className="mb-3 text-sm text-stone-700">{quote.status === 'draft' ? 'Set a valid-until date from today on to share this draft.' : 'This quote can no longer be shared.'}</p>
+              )}
+              <LinksPanel quoteId={quote.id} links={links} canShare={canShare} shareable={shareable} />
             </CardBody>
           </Card>
 
