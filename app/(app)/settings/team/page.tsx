@@ -99,10 +99,10 @@ export default async function TeamPage() {
                   <Td>
                     <span className="font-medium text-stone-900">{m.name}</span>
                     {self && <span className="ml-1.5 rounded bg-stone-100 px-1.5 py-0.5 text-xs text-stone-600">you</span>}
-                    <span className="block truncate text-xs text-stone-500 md:hidden">{m.email}</span>
+                    <span className="block max-w-[10rem] truncate text-xs text-stone-500 sm:max-w-xs md:hidden">{m.email}</span>
                     {manage && removable && (
                       // On phones the remove control sits under the name, so nothing hides off-screen.
-                      <div className="mt-1 flex sm:hidden">
+                      <div className="-ml-2.5 mt-1 flex sm:hidden">
                         <RemoveMemberForm membershipId={m.membershipId} name={m.name} self={self} />
                       </div>
                     )}
@@ -132,25 +132,32 @@ export default async function TeamPage() {
               <Th className="hidden sm:table-cell">Invited by</Th>
               <Th className="hidden sm:table-cell">Expires</Th>
               {manage && (
-                <Th className="text-right">
+                <Th className="hidden text-right sm:table-cell">
                   <span className="sr-only">Actions</span>
                 </Th>
               )}
             </tr>
           </THead>
           <TBody>
-            {invitations.length === 0 && <EmptyRow colSpan={manage ? 5 : 4}>No open invitations.</EmptyRow>}
+            {invitations.length === 0 && <EmptyRow colSpan={5}>No open invitations.</EmptyRow>}
             {invitations.map((i) => (
               <tr key={i.id}>
-                <Td className="max-w-[14rem] truncate font-medium text-stone-900">
-                  {i.email}
-                  {i.expired && <span className="ml-1.5 rounded bg-amber-50 px-1.5 py-0.5 text-xs font-normal text-amber-800">expired</span>}
+                <Td className="font-medium text-stone-900">
+                  <span className="block max-w-[11rem] truncate sm:max-w-[16rem]" title={i.email}>
+                    {i.email}
+                  </span>
+                  {i.expired && <span className="rounded bg-amber-50 px-1.5 py-0.5 text-xs font-normal text-amber-800">expired</span>}
+                  {manage && (
+                    <div className="-ml-2.5 mt-1 sm:hidden">
+                      <InvitationActions invitationId={i.id} email={i.email} />
+                    </div>
+                  )}
                 </Td>
                 <Td>{ROLE_LABELS[i.role]}</Td>
                 <Td className="hidden sm:table-cell text-stone-600">{i.invitedByName ?? '—'}</Td>
                 <Td className="hidden sm:table-cell whitespace-nowrap text-stone-600">{dateFmt.format(i.expiresAt)}</Td>
                 {manage && (
-                  <Td className="text-right">
+                  <Td className="hidden text-right sm:table-cell">
                     <InvitationActions invitationId={i.id} email={i.email} />
                   </Td>
                 )}
