@@ -19,7 +19,8 @@ let sales: TestUser;
 let admin: TestUser;
 let foreignInstaller: TestUser;
 
-const params = (p: Record<string, string>) => ({ params: Promise.resolve(p) });
+// Route handlers take their segment params as a promise (Next 16).
+const params = <P extends Record<string, string>>(p: P) => ({ params: Promise.resolve(p) });
 
 beforeAll(async () => {
   company = await createCompany();
