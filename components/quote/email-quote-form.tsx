@@ -11,7 +11,7 @@ export function EmailQuoteForm({ quoteId, customerEmail }: { quoteId: number; cu
   return (
     <ActionForm action={emailQuote} aria-label="E-mail the quote" className="space-y-3">
       <input type="hidden" name="quoteId" value={quoteId} />
-      <div className="grid gap-3 sm:grid-cols-[1fr_10rem]">
+      <div className="grid gap-3">
         <Field label="Send to" name="to" type="email" defaultValue={customerEmail ?? ''} autoComplete="off" hint={customerEmail ? undefined : 'The quote has no customer e-mail yet.'} />
         <SelectField label="Link works for" name="expiresInDays" defaultValue="30" options={LINK_DAYS_OPTIONS} />
       </div>
