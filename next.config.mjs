@@ -4,6 +4,8 @@ const nextConfig = {
   // bundling either breaks the build, so they stay plain Node requires.
   serverExternalPackages: ['sequelize', 'mariadb', '@node-rs/argon2', 'nodemailer', '@react-pdf/renderer'],
   poweredByHeader: false,
+  // The build type-checks the app only; `npm test` type-checks everything (tests included) with tsc.
+  typescript: { tsconfigPath: 'tsconfig.build.json' },
   typedRoutes: false,
   experimental: { serverActions: { bodySizeLimit: '4mb' } },
 };

@@ -14,12 +14,14 @@ start_mariadb
 ensure_database fresh
 migrate_and_seed
 # Integration tests and single-file runs read the test environment from here.
-env | grep -E '^(APP_|DATABASE_|SMTP_|MAIL_|STRIPE_|NODE_ENV|TRUST_PROXY)' | sed 's/^\([^=]*\)=\(.*\)$/\1='"'"'\2'"'"'/' > "$LOCAL/test.env"
+env | grep -E '^(APP_|DATABASE_|SMTP_|MAIL_|STRIPE_|TRUST_PROXY)' | sed 's/^\([^=]*\)=\(.*\)$/\1='"'"'\2'"'"'/' > "$LOCAL/test.env"
 start_mail
 start_payments
 
 results=()
 status=0
+say "type check (tsc --noEmit, tests included)"
+if node node_modules/typescript/bin/tsc --noEmit -p tsconfig.json; then results+=("types: ok"); else results+=("types: FAILED"); status=1; fi
 say "vitest: unit and integration tests"
 if node node_modules/vitest/vitest.mjs run; then results+=("vitest: passed"); else results+=("vitest: FAILED"); status=1; fi
 

@@ -2,6 +2,8 @@ import type { ReactNode } from 'react';
 import { AppShell } from '@/components/app-shell/app-shell';
 import { requireCompanyUser } from '@/server/auth/guards';
 import { listMembershipsOfUser } from '@/db/queries/team';
+import { BillingBanner } from '@/components/billing/billing-banner';
+import { can } from '@/server/auth/permissions';
 
 export const dynamic = 'force-dynamic';
 
@@ -11,6 +13,7 @@ export default async function AppLayout({ children }: { children: ReactNode }) {
   const companies = await listMembershipsOfUser(ctx.user.id);
   return (
     <AppShell user={{ name: ctx.user.name, email: ctx.user.email, role: ctx.role, companyName: ctx.company.name, companyId: ctx.companyId, companies }}>
+      <BillingBanner companyId={ctx.companyId} canManage={can(ctx.role, 'billing.manage')} />
       {children}
     </AppShell>
   );
