@@ -7,6 +7,18 @@ const nextConfig = {
   // The build type-checks the app only; `npm test` type-checks everything (tests included) with tsc.
   typescript: { tsconfigPath: 'tsconfig.build.json' },
   typedRoutes: false,
+  // The customer's comparison page is reached by an unguessable link: never index it, never leak it in Referer.
+  async headers() {
+    return [
+      {
+        source: '/share/:path*',
+        headers: [
+          { key: 'X-Robots-Tag', value: 'noindex, nofollow' },
+          { key: 'Referrer-Policy', value: 'no-referrer' },
+        ],
+      },
+    ];
+  },
   experimental: { serverActions: { bodySizeLimit: '4mb' } },
 };
 

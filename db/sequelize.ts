@@ -20,9 +20,13 @@ export function getSequelize(): Sequelize {
       define: { underscored: true },
       dialectOptions: {
         connectTimeout: 3000,
-        // Money and coordinates stay exact strings; decimal.js takes them from there.
+        // Money and coordinates stay exact strings; decimal.js takes them from there. Sequelize
+        // turns supportBigNumbers on, which makes the connector return a whole DECIMAL (189.00)
+        // as the number 189 but 189.50 as a string: off, every DECIMAL is a string.
+        supportBigNumbers: false,
         decimalAsNumber: false,
         bigIntAsNumber: true,
+        insertIdAsNumber: true,
       },
       timezone: '+00:00',
       pool: {
