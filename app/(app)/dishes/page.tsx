@@ -27,7 +27,7 @@ export default async function DishesPage() {
       />
       <div className="space-y-6">
         <Card aria-labelledby="catalogue-title">
-          <CardHeader id="catalogue-title" title={`${dishes.length} dish${dishes.length === 1 ? '' : 'es'}`} description={admin ? 'Edit a row to change its price or take it out of new studies.' : 'Only an admin can change the catalogue.'} />
+          <CardHeader id="catalogue-title" title={`${dishes.length} dish${dishes.length === 1 ? '' : 'es'}`} description={admin ? 'Change a dish under “Edit the catalogue” below; prices are in USD.' : 'Only an admin can change the catalogue.'} />
           <CardBody className="px-0 sm:px-0">
             <Table caption="Dish catalogue">
               <THead>
@@ -40,11 +40,10 @@ export default async function DishesPage() {
                   <Th numeric>Installed</Th>
                   <Th className="hidden lg:table-cell">Mount</Th>
                   <Th className="hidden sm:table-cell">Status</Th>
-                  {admin && <Th><span className="sr-only">Actions</span></Th>}
                 </tr>
               </THead>
               <TBody>
-                {dishes.length === 0 && <EmptyRow colSpan={admin ? 9 : 8}>No dishes yet.</EmptyRow>}
+                {dishes.length === 0 && <EmptyRow colSpan={8}>No dishes yet.</EmptyRow>}
                 {dishes.map((d) => {
                   const size = diameterLabel(Number(d.diameterM));
                   return (
@@ -61,19 +60,6 @@ export default async function DishesPage() {
                       <Td numeric>{usd((Number(d.hardwarePrice) + Number(d.labourPrice)).toFixed(2))}</Td>
                       <Td className="hidden max-w-xs text-stone-700 lg:table-cell">{d.mountNotes ?? '—'}</Td>
                       <Td className="hidden sm:table-cell">{d.active ? 'offered' : 'not offered'}</Td>
-                      {admin && (
-                        <Td className="whitespace-nowrap">
-                          <details className="group">
-                            <summary className="cursor-pointer text-sm font-medium text-ledger-700">Edit<span className="sr-only"> {d.name}</span></summary>
-                            <div className="absolute left-4 right-4 z-10 mt-2 rounded-md border border-stone-200 bg-white p-4 shadow-lg sm:left-auto sm:right-8 sm:w-[42rem]">
-                              <DishForm dish={{ id: d.id, name: d.name, diameterM: d.diameterM, efficiency: d.efficiency, hardwarePrice: d.hardwarePrice, labourPrice: d.labourPrice, mountNotes: d.mountNotes, active: d.active }} />
-                              <div className="mt-3 border-t border-stone-200 pt-3">
-                                <DeleteRowButton action={deleteDish} id={d.id} label={`Delete ${d.name}`} confirmText={`Delete ${d.name} from the catalogue? Studies made with it keep their own copy.`} />
-                              </div>
-                            </div>
-                          </details>
-                        </Td>
-                      )}
                     </tr>
                   );
                 })}
@@ -81,6 +67,30 @@ export default async function DishesPage() {
             </Table>
           </CardBody>
         </Card>
+        {admin && dishes.length > 0 && (
+          <Card aria-labelledby="edit-dishes-title">
+            <CardHeader id="edit-dishes-title" title="Edit the catalogue" description="Open a dish to change it, take it out of new studies, or delete it." />
+            <CardBody>
+              <ul className="divide-y divide-stone-200">
+                {dishes.map((d) => (
+                  <li key={d.id}>
+                    <details className="group py-2">
+                      <summary className="flex cursor-pointer items-center justify-between gap-3 text-sm">
+                        <span className="font-medium text-stone-900">{d.name}</span>
+                        <span className="text-ledger-700 group-open:hidden">Edit</span>
+                        <span className="hidden text-stone-600 group-open:inline">Close</span>
+                      </summary>
+                      <div className="mt-3 space-y-3">
+                        <DishForm dish={{ id: d.id, name: d.name, diameterM: d.diameterM, efficiency: d.efficiency, hardwarePrice: d.hardwarePrice, labourPrice: d.labourPrice, mountNotes: d.mountNotes, active: d.active }} />
+                        <DeleteRowButton action={deleteDish} id={d.id} label={`Delete ${d.name}`} confirmText={`Delete ${d.name} from the catalogue? Studies made with it keep their own copy.`} />
+                      </div>
+                    </details>
+                  </li>
+                ))}
+              </ul>
+            </CardBody>
+          </Card>
+        )}
         {admin && (
           <div className="grid gap-6 xl:grid-cols-2">
             <Card aria-labelledby="add-dish-title">

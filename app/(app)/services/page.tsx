@@ -70,11 +70,10 @@ export default async function ServicesPage() {
                   <Th className="normal-case">MODCOD</Th>
                   <Th numeric className="normal-case">Required Es/N0</Th>
                   <Th>Return link</Th>
-                  {write && <Th><span className="sr-only">Actions</span></Th>}
                 </tr>
               </THead>
               <TBody>
-                {rows.length === 0 && <EmptyRow colSpan={write ? 9 : 8}>No services yet.</EmptyRow>}
+                {rows.length === 0 && <EmptyRow colSpan={8}>No services yet.</EmptyRow>}
                 {rows.map((row) => {
                   const s = serviceSnapshotOf(row);
                   return (
@@ -98,19 +97,6 @@ export default async function ServicesPage() {
                         {fixed(s.requiredEsN0Db, 2)} + {fixed(s.implementationMarginDb, 1)} dB
                       </Td>
                       <Td>{s.uplink ? `${fixed(s.uplink.frequencyGHz, 2)} GHz, ${s.uplink.hpaPowerW !== undefined ? `${fixed(s.uplink.hpaPowerW, 1)} W HPA` : `${fixed(s.uplink.terminalEirpDbw ?? 0, 1)} dBW`}` : 'receive only'}</Td>
-                      {write && (
-                        <Td className="whitespace-nowrap">
-                          <details>
-                            <summary className="cursor-pointer text-sm font-medium text-ledger-700">Edit<span className="sr-only"> {s.name}</span></summary>
-                            <div className="absolute left-4 right-4 z-10 mt-2 rounded-md border border-stone-200 bg-white p-4 shadow-lg sm:left-auto sm:right-8 sm:w-[52rem]">
-                              <ServiceForm values={formValuesOf(row)} />
-                              <div className="mt-3 border-t border-stone-200 pt-3">
-                                <DeleteRowButton action={deleteServiceProfile} id={row.id} label={`Delete ${s.name}`} confirmText={`Delete the service ${s.name}? Studies made with it keep their own copy.`} />
-                              </div>
-                            </div>
-                          </details>
-                        </Td>
-                      )}
                     </tr>
                   );
                 })}
@@ -118,6 +104,30 @@ export default async function ServicesPage() {
             </Table>
           </CardBody>
         </Card>
+        {write && rows.length > 0 && (
+          <Card aria-labelledby="edit-services-title">
+            <CardHeader id="edit-services-title" title="Edit a service" description="Studies made earlier keep the figures they were computed with." />
+            <CardBody>
+              <ul className="divide-y divide-stone-200">
+                {rows.map((row) => (
+                  <li key={row.id}>
+                    <details className="group py-2">
+                      <summary className="flex cursor-pointer items-center justify-between gap-3 text-sm">
+                        <span className="font-medium text-stone-900">{row.name}</span>
+                        <span className="text-ledger-700 group-open:hidden">Edit</span>
+                        <span className="hidden text-stone-600 group-open:inline">Close</span>
+                      </summary>
+                      <div className="mt-3 space-y-3">
+                        <ServiceForm values={formValuesOf(row)} />
+                        <DeleteRowButton action={deleteServiceProfile} id={row.id} label={`Delete ${row.name}`} confirmText={`Delete the service ${row.name}? Studies made with it keep their own copy.`} />
+                      </div>
+                    </details>
+                  </li>
+                ))}
+              </ul>
+            </CardBody>
+          </Card>
+        )}
         {write && (
           <Card aria-labelledby="add-service-title">
             <CardHeader id="add-service-title" title="Add a service" />
