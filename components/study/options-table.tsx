@@ -18,6 +18,8 @@ export function OptionsTable({ studyId, inputs, result, canQuote }: { studyId: n
   const t = result.tradeoff;
   const rec = t.recommendation;
   const twoWay = rec.basis === 'two-way';
+  const hasUplink = t.options.some((o) => o.uplink !== null);
+  const hasAcm = t.options.some((o) => o.acm !== null);
   return (
     <Table caption="Trade-off per dish">
       <THead>
@@ -27,6 +29,8 @@ export function OptionsTable({ studyId, inputs, result, canQuote }: { studyId: n
           <Th numeric className="normal-case">G/T dB/K</Th>
           <Th numeric className="normal-case">Clear-sky Es/N0 dB</Th>
           <Th numeric className="normal-case">Margin dB</Th>
+          {hasUplink && <Th numeric className="normal-case">Uplink margin dB</Th>}
+          {hasAcm && <Th numeric className="normal-case">ACM expected Mbit/s</Th>}
           <Th numeric className="normal-case">Fade threshold dB</Th>
           <Th numeric className="normal-case">Availability{twoWay ? ' (two-way)' : ''}</Th>
           <Th numeric className="normal-case">Outage / year</Th>
@@ -60,6 +64,13 @@ export function OptionsTable({ studyId, inputs, result, canQuote }: { studyId: n
               <Td numeric>{fixed(o.gOverTDbK, 1)}</Td>
               <Td numeric>{fixed(o.clearSkyEsN0Db, 2)}</Td>
               <Td numeric className={o.marginDb <= 0 ? 'text-red-700' : ''}>{fixed(o.marginDb, 2)}</Td>
+              {hasUplink && <Td numeric className={o.uplink && o.uplink.marginDb <= 0 ? 'text-red-700' : ''}>{o.uplink ? fixed(o.uplink.marginDb, 2) : '—'}</Td>}
+              {hasAcm && (
+                <Td numeric className="whitespace-nowrap">
+                  {o.acm ? `${o.acm.modelRangeLimited ? '≤ ' : ''}${fixed(o.acm.expectedThroughputMbps, 1)}` : '—'}
+                  {o.acm?.clearSkyModcod && <span className="block text-xs text-stone-600">clear sky {o.acm.clearSkyModcod}</span>}
+                </Td>
+              )}
               {closes ? (
                 <>
                   <Td numeric>{o.fadeThresholdDb === null ? '—' : fixed(o.fadeThresholdDb, 2)}</Td>

@@ -161,6 +161,14 @@ describe('POST /api/v1/tradeoff', () => {
     expect((await post(scenario)).status).toBe(401);
   });
 
+  it('is refused with plan_limit on a plan without API access (crew: api_access false in the plan catalogue migration)', async () => {
+    const crew = await createCompany({ planCode: 'crew' });
+    asUser(await signInAs(await createUserWithRole(crew.id, 'installer')));
+    const res = await json(await post(scenario));
+    expect(res.status).toBe(403);
+    expect(res.body.error.code).toBe('plan_limit');
+  });
+
   it('422 with the field named for a bad shape or a value the engine refuses', async () => {
     asUser(tok.installer);
     const shape = await json(await post({ ...scenario, dishes: [{ diameterM: 'big', efficiency: 0.6 }] }));

@@ -128,3 +128,18 @@ describe('good files', () => {
     expect(normals.state).toMatchObject({ ok: true, data: { kind: 'climate-normals' } });
   });
 });
+
+describe('the plan’s upload limit', () => {
+  it('refuses the upload over the limit (bench: 2 a month) and saves nothing of it', async () => {
+    const small = await createCompany({ planCode: 'bench' });
+    asUser(await signInAs(await createUserWithRole(small.id, 'admin')));
+    for (const n of [1, 2]) {
+      const ok = await callAction(confirmUpload, { kind: 'dish-catalogue', file: file(`name,diameter_m,efficiency,hardware_price,labour_price\nSmall ${n},0.6,0.65,80,60\n`) });
+      expect(ok.state).toMatchObject({ ok: true });
+    }
+    const third = await callAction(confirmUpload, { kind: 'dish-catalogue', file: file('name,diameter_m,efficiency,hardware_price,labour_price\nSmall 3,0.6,0.65,80,60\n') });
+    expect(third.state).toMatchObject({ ok: false, code: 'plan_limit' });
+    expect(await countRows('uploads', small.id)).toBe(2);
+    expect(await countRows('dishes', small.id)).toBe(2);
+  });
+});
