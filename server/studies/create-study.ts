@@ -44,27 +44,26 @@ export async function createStudy(actor: StudyActor, input: NewStudyInput): Prom
     const dishes = await getDishesByIds(companyId, input.dishIds, t);
     if (dishes.length !== input.dishIds.length) throw new NotFoundError('One of the chosen dishes');
 
-    let customer;
-    if ('id' in input.customer) {
-      customer = await getCustomer(companyId, input.customer.id, t);
-      if (!customer) throw new NotFoundError('That customer');
-    } else {
+    // Read-only look-ups first (404 before anything else), then the plan limit, which locks the
+    // company row FOR UPDATE: an insert before it would take a shared lock on that row and two
+    // parallel requests would deadlock instead of one getting a clear limit error.
+    let customer = 'id' in input.customer ? await getCustomer(companyId, input.customer.id, t) : null;
+    if ('id' in input.customer && !customer) throw new NotFoundError('That customer');
+    let site = 'id' in input.site ? await getSite(companyId, input.site.id, t) : null;
+    if ('id' in input.site && !site) throw new NotFoundError('That site');
+    if (site && site.customerId !== customer?.id) {
+      throw new InvalidInputError('That site belongs to another customer.', { siteId: ['That site belongs to another customer.'] });
+    }
+
+    await assertStudyWithinPlan(companyId, t);
+    if (!('id' in input.customer)) {
       customer = await createCustomer(companyId, { name: input.customer.name, email: null, phone: null, notes: null }, t);
     }
-
-    let site;
-    if ('id' in input.site) {
-      site = await getSite(companyId, input.site.id, t);
-      if (!site) throw new NotFoundError('That site');
-      if (site.customerId !== customer.id) {
-        throw new InvalidInputError('That site belongs to another customer.', { siteId: ['That site belongs to another customer.'] });
-      }
-    } else {
-      site = await createSite(companyId, customer.id, { name: input.site.name, latDeg: input.site.latDeg, lonDeg: input.site.lonDeg, altitudeM: input.site.altitudeM }, t);
+    if (!('id' in input.site)) {
+      const { name, latDeg, lonDeg, altitudeM } = input.site;
+      site = await createSite(companyId, customer!.id, { name, latDeg, lonDeg, altitudeM }, t);
     }
-
-    // After the references are known to be ours (404 first), before anything is written.
-    await assertStudyWithinPlan(companyId, t);
+    if (!customer || !site) throw new Error('createStudy: customer and site are resolved above');
     let computed;
     try {
       computed = computeStudy({
