@@ -8,10 +8,9 @@ import { getDishesByIds } from '@/db/queries/dishes';
 import { insertStudy } from '@/db/queries/studies';
 import { InvalidInputError, NotFoundError } from '@/server/errors';
 import type { NewStudyInput } from '@/server/validation/study';
-import { computeStudy } from './compute-study';
 import { toStudyInputError } from './engine-errors';
 import { assertStudyWithinPlan } from './plan-limit';
-import { climateSnapshotOf, dishSnapshotOf, serviceSnapshotOf, siteSnapshotOf } from './snapshot-of';
+import { computeStudyFromRows } from './snapshot-of';
 import type { StudyInputsSnapshot, StudyResultSnapshot } from './snapshot';
 
 export interface StudyActor {
@@ -66,13 +65,7 @@ export async function createStudy(actor: StudyActor, input: NewStudyInput): Prom
     if (!customer || !site) throw new Error('createStudy: customer and site are resolved above');
     let computed;
     try {
-      computed = computeStudy({
-        site: siteSnapshotOf(site, customer.name),
-        service: serviceSnapshotOf(service),
-        climate: climateSnapshotOf(climate),
-        dishes: dishes.map(dishSnapshotOf),
-        targetAvailabilityPercent: input.targetAvailabilityPercent,
-      });
+      computed = computeStudyFromRows({ site, customerName: customer.name, service, climate, dishes, targetAvailabilityPercent: input.targetAvailabilityPercent });
     } catch (e) {
       toStudyInputError(e);
     }

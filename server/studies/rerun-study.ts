@@ -7,11 +7,10 @@ import { getClimateProfile } from '@/db/queries/climate-profiles';
 import { getDishesByIds } from '@/db/queries/dishes';
 import { getStudy, insertStudy, nextRevision } from '@/db/queries/studies';
 import { ConflictError, NotFoundError } from '@/server/errors';
-import { computeStudy } from './compute-study';
 import { recommendedDiameterOf, type StudyActor } from './create-study';
 import { toStudyInputError } from './engine-errors';
 import { assertStudyWithinPlan } from './plan-limit';
-import { climateSnapshotOf, dishSnapshotOf, serviceSnapshotOf, siteSnapshotOf } from './snapshot-of';
+import { computeStudyFromRows } from './snapshot-of';
 
 /**
  * Re-run a study with today's site, service, climate and catalogue rows and today's engine, as
@@ -41,13 +40,7 @@ export async function rerunStudy(actor: StudyActor, studyId: number): Promise<{ 
     await assertStudyWithinPlan(companyId, t);
     let computed;
     try {
-      computed = computeStudy({
-        site: siteSnapshotOf(site, customer.name),
-        service: serviceSnapshotOf(service),
-        climate: climateSnapshotOf(climate),
-        dishes: dishes.map(dishSnapshotOf),
-        targetAvailabilityPercent: old.targetAvailabilityPercent,
-      });
+      computed = computeStudyFromRows({ site, customerName: customer.name, service, climate, dishes, targetAvailabilityPercent: old.targetAvailabilityPercent });
     } catch (e) {
       toStudyInputError(e);
     }

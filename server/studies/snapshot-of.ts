@@ -3,6 +3,7 @@ import type { Dish } from '@/db/models/dish';
 import type { ServiceProfile } from '@/db/models/service-profile';
 import type { Site } from '@/db/models/site';
 import type { ClimateSnapshot, DishSnapshot, ServiceSnapshot, SiteSnapshot } from './snapshot';
+import { computeStudy } from './compute-study';
 
 /** Database rows (exact decimal strings) → the plain snapshot a study keeps (numbers for physics, strings for money). */
 
@@ -66,4 +67,25 @@ export function dishSnapshotOf(d: Dish): DishSnapshot {
 /** MariaDB JSON columns are LONGTEXT: some read paths hand back the text. */
 function jsonOf<T>(v: T | string): T {
   return typeof v === 'string' ? (JSON.parse(v) as T) : v;
+}
+
+/**
+ * The study computed from this company's current rows (as a new study or a re-run takes them):
+ * every row is copied into the snapshot first, so later edits of the rows never reach the study.
+ */
+export function computeStudyFromRows(o: {
+  site: Site;
+  customerName: string;
+  service: ServiceProfile;
+  climate: ClimateProfile;
+  dishes: Dish[];
+  targetAvailabilityPercent: number;
+}): ReturnType<typeof computeStudy> {
+  return computeStudy({
+    site: siteSnapshotOf(o.site, o.customerName),
+    service: serviceSnapshotOf(o.service),
+    climate: climateSnapshotOf(o.climate),
+    dishes: o.dishes.map(dishSnapshotOf),
+    targetAvailabilityPercent: o.targetAvailabilityPercent,
+  });
 }

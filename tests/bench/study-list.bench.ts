@@ -23,9 +23,8 @@ const BATCH = 250;
 
 async function seed(): Promise<{ token: string; studyIds: number[] }> {
   const { models } = await import('../../db/models');
-  const { computeStudy } = await import('../../server/studies/compute-study');
   const { serviceProfileSchema } = await import('../../server/validation/service-profile');
-  const { climateSnapshotOf, dishSnapshotOf, serviceSnapshotOf, siteSnapshotOf } = await import('../../server/studies/snapshot-of');
+  const { computeStudyFromRows } = await import('../../server/studies/snapshot-of');
   const m = models();
   const plan = await m.Plan.findOne({ where: { code: 'fleet' }, rejectOnEmpty: true });
   let company = await m.Company.findOne({ where: { name: COMPANY_NAME } });
@@ -53,7 +52,7 @@ async function seed(): Promise<{ token: string; studyIds: number[] }> {
       dishes.push(await m.Dish.create({ companyId: company.id, name: `Bench ${d * 100} cm`, diameterM: d.toFixed(3), efficiency: '0.650', hardwarePrice: (80 + i * 90).toFixed(2), labourPrice: '120.00', mountNotes: null, active: true }));
     }
     // One real engine result (8 dishes), stored as every study's snapshot: the list and the page read it exactly as they read any study.
-    const { inputs, result } = computeStudy({ site: siteSnapshotOf(site, customer.name), service: serviceSnapshotOf(service), climate: climateSnapshotOf(climate), dishes: dishes.map(dishSnapshotOf), targetAvailabilityPercent: 99.9 });
+    const { inputs, result } = computeStudyFromRows({ site, customerName: customer.name, service, climate, dishes, targetAvailabilityPercent: 99.9 });
     const i = result.tradeoff.recommendation.smallestMeetingTargetIndex;
     const start = Date.now() - STUDIES * 60_000;
     for (let n = have; n < STUDIES; n += BATCH) {
