@@ -9,6 +9,7 @@ export type NavItem = { label: string; href: string; permission: Permission; sec
 export const NAV: readonly NavItem[] = [
   { label: 'Studies', href: '/studies', permission: 'study.read', section: 'work' },
   { label: 'Quotes', href: '/quotes', permission: 'quote.read', section: 'work' },
+  { label: 'Customers', href: '/customers', permission: 'customer.read', section: 'work' },
   { label: 'Sites', href: '/sites', permission: 'customer.read', section: 'work' },
   { label: 'Dishes', href: '/dishes', permission: 'study.read', section: 'setup' },
   { label: 'Climate', href: '/climate', permission: 'study.read', section: 'setup' },

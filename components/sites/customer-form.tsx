@@ -1,25 +1,39 @@
 'use client';
 
-import { createCustomer } from '@/server/actions/customers';
-import { customerSchema } from '@/server/validation/customer';
+import { createCustomer, updateCustomer } from '@/server/actions/customers';
+import { customerSchema, customerUpdateSchema } from '@/server/validation/customer';
 import { Button } from '@/components/ui/button';
 import { FormStatus } from '@/components/ui/form-status';
-import { TextInput } from '@/components/study/form-fields';
+import { TextArea, TextInput } from '@/components/study/form-fields';
 import { useValidatedAction } from '@/components/study/use-validated-action';
+import { useAfterSave } from './use-after-save';
 
-export function CustomerForm() {
-  const { state, formAction, pending, onSubmit, onInput, errors, message, failed } = useValidatedAction(createCustomer, customerSchema, { resetOnSuccess: true });
+export type CustomerFormValues = { id: number; name: string; email: string | null; phone: string | null; notes: string | null };
+
+/** Add a customer, or (with `customer`) change one; `onSaved` runs once the server accepted it. */
+export function CustomerForm({ customer, onSaved, onCancel }: { customer?: CustomerFormValues; onSaved?: () => void; onCancel?: () => void } = {}) {
+  const { state, formAction, pending, onSubmit, onInput, errors, message, failed } = useValidatedAction(customer ? updateCustomer : createCustomer, customer ? customerUpdateSchema : customerSchema, {
+    resetOnSuccess: !customer,
+  });
+  useAfterSave(state, '/api/v1/customers', onSaved);
   return (
-    <form action={formAction} onSubmit={onSubmit} onInput={onInput} noValidate className="space-y-4" aria-label="Add a customer">
+    <form action={formAction} onSubmit={onSubmit} onInput={onInput} noValidate className="space-y-4" aria-label={customer ? `Edit ${customer.name}` : 'Add a customer'}>
+      {customer && <input type="hidden" name="id" value={customer.id} />}
       <div className="grid gap-4 sm:grid-cols-3">
-        <TextInput label="Name" name="name" errors={errors.name} />
-        <TextInput label="E-mail (optional)" name="email" type="email" errors={errors.email} />
-        <TextInput label="Phone (optional)" name="phone" errors={errors.phone} />
+        <TextInput label="Name" name="name" defaultValue={customer?.name} errors={errors.name} />
+        <TextInput label="E-mail (optional)" name="email" type="email" defaultValue={customer?.email ?? ''} errors={errors.email} />
+        <TextInput label="Phone (optional)" name="phone" defaultValue={customer?.phone ?? ''} errors={errors.phone} />
+        {customer && <TextArea label="Notes (optional)" name="notes" defaultValue={customer.notes ?? ''} errors={errors.notes} className="sm:col-span-3" />}
       </div>
       <div className="flex flex-wrap items-center gap-3">
         <Button type="submit" disabled={pending}>
-          {pending ? 'Saving…' : 'Add customer'}
+          {pending ? 'Saving…' : customer ? 'Save customer' : 'Add customer'}
         </Button>
+        {onCancel && (
+          <Button variant="quiet" onClick={onCancel}>
+            Cancel
+          </Button>
+        )}
         <FormStatus state={failed ? { ok: false, error: message } : state} />
       </div>
     </form>

@@ -1,16 +1,24 @@
 'use client';
 
+import { useState } from 'react';
 import Link from 'next/link';
 import type { StudyListItem } from '@/db/queries/studies';
 import { EmptyRow, Table, TBody, THead, Td, Th } from '@/components/ui/table';
 import { PagedList } from './paged-list';
 import { dateFmt, diameterLabel, fixed } from './format';
 
-/** The studies list: search by title, customer, site or service; newest first. */
+/** The studies list: search by title, customer, site or service; newest first; archived ones only on request. */
 export function StudiesList() {
+  const [showArchived, setShowArchived] = useState(false);
   return (
+    <div>
+      <label className="mb-2 inline-flex items-center gap-2 text-sm text-stone-700">
+        <input type="checkbox" checked={showArchived} onChange={(e) => setShowArchived(e.target.checked)} className="accent-ledger-700" />
+        Show archived studies
+      </label>
     <PagedList<StudyListItem>
       endpoint="/api/v1/studies"
+      extraQuery={showArchived ? '&archived=include' : ''}
       searchLabel="Search"
       searchPlaceholder="Title, customer, site or service"
       render={(items, { loading }) => (
@@ -27,7 +35,7 @@ export function StudiesList() {
             </tr>
           </THead>
           <TBody>
-            {items.length === 0 && <EmptyRow colSpan={7}>{loading ? 'Loading studies…' : 'No studies match.'}</EmptyRow>}
+            {items.length === 0 && <EmptyRow colSpan={7}>{loading ? 'Loading studies…' : showArchived ? 'No studies match.' : 'No studies match (archived studies are hidden).'}</EmptyRow>}
             {items.map((s) => (
               <tr key={s.id} className="hover:bg-stone-50">
                 <Td>
@@ -35,6 +43,7 @@ export function StudiesList() {
                     {s.title}
                   </Link>
                   {s.revision > 1 && <span className="ml-1 text-xs text-stone-600">rev. {s.revision}</span>}
+                  {s.status === 'archived' && <span className="ml-1 rounded bg-stone-100 px-1.5 py-0.5 text-xs text-stone-700">archived</span>}
                   <span className="block text-xs text-stone-600 md:hidden">
                     {s.customerName} · {s.siteName} · {dateFmt.format(new Date(s.createdAt))}
                   </span>
@@ -57,5 +66,6 @@ export function StudiesList() {
         </Table>
       )}
     />
+    </div>
   );
 }

@@ -10,6 +10,7 @@ export interface CustomerListItem {
   name: string;
   email: string | null;
   phone: string | null;
+  notes: string | null;
   siteCount: number;
   createdAt: string;
 }
@@ -27,15 +28,15 @@ export async function listCustomers(companyId: number, query: ListQuery): Promis
     replacements,
     type: QueryTypes.SELECT,
   });
-  const rows = await sequelize.query<{ id: number; name: string; email: string | null; phone: string | null; site_count: number; created_at: Date }>(
-    `SELECT c.id, c.name, c.email, c.phone, c.created_at,
+  const rows = await sequelize.query<{ id: number; name: string; email: string | null; phone: string | null; notes: string | null; site_count: number; created_at: Date }>(
+    `SELECT c.id, c.name, c.email, c.phone, c.notes, c.created_at,
             (SELECT COUNT(*) FROM sites s WHERE s.company_id = c.company_id AND s.customer_id = c.id) AS site_count
        FROM customers c WHERE ${where.join(' AND ')}
       ORDER BY c.name, c.id LIMIT :limit OFFSET :offset`,
     { replacements, type: QueryTypes.SELECT },
   );
   return paged(
-    rows.map((r) => ({ id: r.id, name: r.name, email: r.email, phone: r.phone, siteCount: Number(r.site_count), createdAt: new Date(r.created_at).toISOString() })),
+    rows.map((r) => ({ id: r.id, name: r.name, email: r.email, phone: r.phone, notes: r.notes, siteCount: Number(r.site_count), createdAt: new Date(r.created_at).toISOString() })),
     Number(total),
     query.page,
     query.pageSize,

@@ -13,6 +13,7 @@ export interface SiteListItem {
   latDeg: number;
   lonDeg: number;
   altitudeM: number;
+  notes: string | null;
   studyCount: number;
 }
 
@@ -40,8 +41,8 @@ export async function listSites(companyId: number, query: ListQuery & { customer
   }
   const from = `FROM sites s JOIN customers c ON c.id = s.customer_id AND c.company_id = s.company_id WHERE ${where.join(' AND ')}`;
   const [{ total }] = await sequelize.query<{ total: number }>(`SELECT COUNT(*) AS total ${from}`, { replacements, type: QueryTypes.SELECT });
-  const rows = await sequelize.query<{ id: number; name: string; address: string | null; customer_id: number; customer_name: string; lat_deg: string; lon_deg: string; altitude_m: string; study_count: number }>(
-    `SELECT s.id, s.name, s.address, s.customer_id, c.name AS customer_name, s.lat_deg, s.lon_deg, s.altitude_m,
+  const rows = await sequelize.query<{ id: number; name: string; address: string | null; customer_id: number; customer_name: string; lat_deg: string; lon_deg: string; altitude_m: string; notes: string | null; study_count: number }>(
+    `SELECT s.id, s.name, s.address, s.customer_id, c.name AS customer_name, s.lat_deg, s.lon_deg, s.altitude_m, s.notes,
             (SELECT COUNT(*) FROM studies st WHERE st.company_id = s.company_id AND st.site_id = s.id) AS study_count
        ${from} ORDER BY s.name, s.id LIMIT :limit OFFSET :offset`,
     { replacements, type: QueryTypes.SELECT },
@@ -56,6 +57,7 @@ export async function listSites(companyId: number, query: ListQuery & { customer
       latDeg: Number(r.lat_deg),
       lonDeg: Number(r.lon_deg),
       altitudeM: Number(r.altitude_m),
+      notes: r.notes,
       studyCount: Number(r.study_count),
     })),
     Number(total),

@@ -69,15 +69,24 @@ function toListItem(r: StudyListRow): StudyListItem {
   };
 }
 
+/** Which studies a list shows: archived ones are left out unless asked for. */
+export type ArchivedFilter = 'hide' | 'include' | 'only';
+
 /**
- * The company's studies, newest first; `q` matches the title, customer, site or service name.
- * Reads only the summary columns (index studies_company_created), so it stays fast with many
- * thousands of studies per company.
+ * The company's studies, newest first; `q` matches the title, customer, site or service name;
+ * archived studies are left out unless `archived` is 'include' or 'only'. Reads only the summary
+ * columns (indexes studies_company_created / studies_company_status_created), so it stays fast
+ * with many thousands of studies per company.
  */
-export async function listStudies(companyId: number, query: ListQuery & { siteId?: number }): Promise<Paged<StudyListItem>> {
+export async function listStudies(companyId: number, query: ListQuery & { siteId?: number; archived?: ArchivedFilter }): Promise<Paged<StudyListItem>> {
   const { sequelize } = models();
   const where = ['st.company_id = :companyId'];
   const replacements: Record<string, unknown> = { companyId, limit: query.pageSize, offset: (query.page - 1) * query.pageSize };
+  const archived = query.archived ?? 'hide';
+  if (archived !== 'include') {
+    where.push('st.status = :status');
+    replacements.status = archived === 'only' ? 'archived' : 'ready';
+  }
   if (query.q) {
     where.push('(st.title LIKE :q OR st.customer_name LIKE :q OR st.site_name LIKE :q OR st.service_name LIKE :q)');
     replacements.q = containsPattern(query.q);
@@ -128,6 +137,16 @@ export async function getStudy(companyId: number, id: number, t?: Transaction): 
     inputs: parseJson<StudyInputsSnapshot>(row.inputs),
     result: parseJson<StudyResultSnapshot>(row.result),
   };
+}
+
+/**
+ * Archives or restores a study: only its status changes; the input and result snapshots are
+ * never written here. False when this company has no study with that id.
+ */
+export async function setStudyArchived(companyId: number, id: number, archived: boolean): Promise<boolean> {
+  const { Study } = models();
+  const [n] = await Study.update({ status: archived ? 'archived' : 'ready' }, { where: { id, companyId }, fields: ['status'] });
+  return n > 0 || (await Study.count({ where: { id, companyId } })) > 0;
 }
 
 export interface NewStudyRow {

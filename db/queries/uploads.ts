@@ -24,8 +24,8 @@ export async function createUpload(
   );
 }
 
-/** Recent uploads without their bytes. */
-export async function listUploads(companyId: number, o: { kind?: UploadKind; limit?: number } = {}) {
+/** Recent uploads (of one kind or several) without their bytes. */
+export async function listUploads(companyId: number, o: { kind?: UploadKind | UploadKind[]; limit?: number } = {}) {
   const { Upload } = models();
   return Upload.findAll({
     where: { companyId, ...(o.kind ? { kind: o.kind } : {}) },

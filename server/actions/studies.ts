@@ -5,6 +5,8 @@ import { safeAction } from './safe-action';
 import { newStudySchema, studyIdSchema } from '@/server/validation/study';
 import * as studies from '@/server/studies/create-study';
 import { rerunStudy as rerun } from '@/server/studies/rerun-study';
+import { setStudyArchived } from '@/db/queries/studies';
+import { NotFoundError } from '@/server/errors';
 
 /** Returns the new study's id; the form navigates to it (no redirect, so tests and scripts can call it too). */
 export const createStudy = safeAction({ schema: newStudySchema, permission: 'study.write' }, async (input, ctx) => {
@@ -18,4 +20,20 @@ export const rerunStudy = safeAction({ schema: studyIdSchema, permission: 'study
   const { id, revision } = await rerun({ companyId: ctx.companyId, userId: ctx.user.id }, input.id);
   revalidatePath('/studies');
   return { data: { id, revision }, message: `Revision ${revision} computed.` };
+});
+
+/** Takes a study out of the default list; its snapshots (and any quote made from it) stay as they were. */
+export const archiveStudy = safeAction({ schema: studyIdSchema, permission: 'study.write' }, async (input, ctx) => {
+  if (!(await setStudyArchived(ctx.companyId, input.id, true))) throw new NotFoundError('That study');
+  revalidatePath('/studies');
+  revalidatePath(`/studies/${input.id}`);
+  return { data: { id: input.id }, message: 'Study archived. It no longer shows in the studies list unless archived studies are shown.' };
+});
+
+/** Puts an archived study back in the list. */
+export const unarchiveStudy = safeAction({ schema: studyIdSchema, permission: 'study.write' }, async (input, ctx) => {
+  if (!(await setStudyArchived(ctx.companyId, input.id, false))) throw new NotFoundError('That study');
+  revalidatePath('/studies');
+  revalidatePath(`/studies/${input.id}`);
+  return { data: { id: input.id }, message: 'Study restored to the list.' };
 });

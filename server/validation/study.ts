@@ -2,6 +2,7 @@ import { z } from 'zod';
 import { parseCoordinate } from './coordinates';
 import { idField, idListField, numberIn, optionalText } from './fields';
 import { SITE_ALTITUDE_M } from './site';
+import { listQuerySchema } from './paging';
 
 /** Availability targets a study may aim at, %: below 90 % nobody sells a service; P.618 ends at 99.999 %. */
 export const TARGET_AVAILABILITY_PERCENT = { min: 90, max: 99.999, default: 99.9 } as const;
@@ -92,3 +93,8 @@ export const newStudySchema = z
 export type NewStudyInput = z.infer<typeof newStudySchema>;
 
 export const studyIdSchema = z.object({ id: idField('study') });
+
+/** The studies list query: search and paging, plus whether archived studies show (`hide` by default). */
+export const studyListQuerySchema = listQuerySchema.extend({
+  archived: z.enum(['hide', 'include', 'only'], { error: 'archived is hide, include or only' }).default('hide'),
+});

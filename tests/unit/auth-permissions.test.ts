@@ -50,7 +50,7 @@ describe('permission map', () => {
 describe('navigation follows the map', () => {
   it('installers and sales see no Team or Billing; admins see both; staff see no company nav', () => {
     expect(navFor('installer').map((i) => i.label)).not.toContain('Team');
-    expect(navFor('sales').map((i) => i.label)).toEqual(['Studies', 'Quotes', 'Sites', 'Dishes', 'Climate', 'Services']);
+    expect(navFor('sales').map((i) => i.label)).toEqual(['Studies', 'Quotes', 'Customers', 'Sites', 'Dishes', 'Climate', 'Services']);
     expect(navFor('admin').map((i) => i.label)).toEqual(expect.arrayContaining(['Team', 'Billing']));
     expect(navFor('staff')).toEqual([]);
     expect(settingsNavFor('sales').map((i) => i.label)).toEqual(['Your security']);

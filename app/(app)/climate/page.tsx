@@ -5,12 +5,14 @@ import { EmptyRow, Table, TBody, THead, Td, Th } from '@/components/ui/table';
 import { ClimateForm } from '@/components/climate/climate-form';
 import { DeleteRowButton } from '@/components/catalogue/delete-button';
 import { UploadPanel } from '@/components/uploads/upload-panel';
+import { RecentUploads } from '@/components/uploads/recent-uploads';
 import { fixed } from '@/components/study/format';
 import { requirePermission } from '@/server/auth/guards';
 import { can } from '@/server/auth/permissions';
 import { deleteClimateProfile } from '@/server/actions/climate';
 import { confirmClimateUpload, previewClimateUpload } from '@/server/actions/uploads';
 import { listClimateProfiles } from '@/db/queries/climate-profiles';
+import { listUploads } from '@/db/queries/uploads';
 import { CLIMATE_KIND_LABELS } from '@/server/validation/climate';
 import { resolveRainClimate } from '@/server/engine';
 import { rainInputOf } from '@/server/studies/build-scenario';
@@ -30,7 +32,10 @@ function r001Of(profile: Parameters<typeof climateSnapshotOf>[0]): string {
 export default async function ClimatePage() {
   const ctx = await requirePermission('study.read');
   const admin = can(ctx.role, 'climate.write');
-  const profiles = await listClimateProfiles(ctx.companyId);
+  const [profiles, uploads] = await Promise.all([
+    listClimateProfiles(ctx.companyId),
+    admin ? listUploads(ctx.companyId, { kind: ['rain-curve', 'climate-normals'], limit: 5 }) : Promise.resolve([]),
+  ]);
   return (
     <>
       <PageHeader
@@ -91,6 +96,12 @@ export default async function ClimatePage() {
                   confirm={confirmClimateUpload}
                   needsProfileFields
                 />
+                {uploads.length > 0 && (
+                  <div className="mt-6">
+                    <h3 className="text-sm font-semibold text-stone-900">Recent uploads</h3>
+                    <RecentUploads uploads={uploads} showKind />
+                  </div>
+                )}
               </CardBody>
             </Card>
             <Card aria-labelledby="add-climate-title">

@@ -11,6 +11,7 @@ export const metadata: Metadata = { title: 'Customers' };
 
 export default async function CustomersPage() {
   const ctx = await requirePermission('customer.read');
+  const write = can(ctx.role, 'customer.write');
   return (
     <>
       <PageHeader
@@ -25,10 +26,10 @@ export default async function CustomersPage() {
       <div className="space-y-6">
         <Card>
           <CardBody>
-            <CustomersList />
+            <CustomersList canEdit={write} />
           </CardBody>
         </Card>
-        {can(ctx.role, 'customer.write') && (
+        {write && (
           <Card aria-labelledby="add-customer-title">
             <CardHeader id="add-customer-title" title="Add a customer" />
             <CardBody>

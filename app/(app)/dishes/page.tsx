@@ -5,7 +5,8 @@ import { EmptyRow, Table, TBody, THead, Td, Th } from '@/components/ui/table';
 import { DishForm } from '@/components/catalogue/dish-form';
 import { DeleteRowButton } from '@/components/catalogue/delete-button';
 import { UploadPanel } from '@/components/uploads/upload-panel';
-import { diameterLabel, fixed, usd, dateFmt } from '@/components/study/format';
+import { RecentUploads } from '@/components/uploads/recent-uploads';
+import { diameterLabel, fixed, usd } from '@/components/study/format';
 import { requirePermission } from '@/server/auth/guards';
 import { can } from '@/server/auth/permissions';
 import { deleteDish } from '@/server/actions/catalogue';
@@ -111,13 +112,7 @@ export default async function DishesPage() {
                 {uploads.length > 0 && (
                   <div className="mt-6">
                     <h3 className="text-sm font-semibold text-stone-900">Recent uploads</h3>
-                    <ul className="mt-2 space-y-1 text-sm text-stone-700">
-                      {uploads.map((u) => (
-                        <li key={u.id}>
-                          {u.originalFilename} · {Math.ceil(u.sizeBytes / 1024)} KiB · {dateFmt.format(u.createdAt)}
-                        </li>
-                      ))}
-                    </ul>
+                    <RecentUploads uploads={uploads} />
                   </div>
                 )}
               </CardBody>

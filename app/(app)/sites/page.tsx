@@ -28,7 +28,7 @@ export default async function SitesPage() {
       <div className="space-y-6">
         <Card>
           <CardBody>
-            <SitesList canStudy={can(ctx.role, 'study.write')} />
+            <SitesList canStudy={can(ctx.role, 'study.write')} canEdit={write} customers={customers} />
           </CardBody>
         </Card>
         {write && (

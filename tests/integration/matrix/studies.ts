@@ -11,8 +11,9 @@ import { GET as listSitesRoute } from '@/app/api/v1/sites/route';
 import { GET as listCustomersRoute } from '@/app/api/v1/customers/route';
 import { GET as dashboardRoute } from '@/app/api/v1/dashboard/route';
 import { POST as tradeoffRoute } from '@/app/api/v1/tradeoff/route';
+import { GET as uploadFileRoute } from '@/app/api/v1/uploads/[id]/route';
 import { models } from '@/db/models';
-import { callAction } from '../support/next-request';
+import { apiRequest as apiRequestOf, callAction } from '../support/next-request';
 import { actionCase, routeCase, type CrossCompanyCase, type MatrixCase, type MatrixWorld } from '../support/action-matrix';
 import { suffix } from '../support/factories';
 import { createStudyWorld, insertTestStudy, TEST_SERVICE_FORM, type StudyWorld } from '../studies-fixtures';
@@ -33,6 +34,21 @@ const fresh = (w: MatrixWorld, companyId = w.company.id) => createStudyWorld(com
 async function studyIn(companyId: number, userId: string): Promise<{ id: number; world: StudyWorld }> {
   const world = await worldOf(companyId);
   return { id: await insertTestStudy(companyId, userId, world), world };
+}
+
+/** A kept upload of the company, written directly (the upload actions have their own rows above). */
+async function uploadIn(companyId: number, kind: 'dish-catalogue' | 'rain-curve' = 'dish-catalogue'): Promise<{ id: number }> {
+  const text = kind === 'dish-catalogue' ? DISH_CSV() : CURVE_CSV;
+  const row = await models().Upload.create({
+    companyId,
+    kind,
+    originalFilename: 'matrix.csv',
+    originalBytes: Buffer.from(text),
+    sizeBytes: Buffer.byteLength(text),
+    parseReport: { kind, summary: 'matrix upload', rowCount: 1 },
+    createdByUserId: null,
+  });
+  return { id: row.id };
 }
 
 const csv = (text: string, name = 'matrix.csv') => new File([text], name, { type: 'text/csv' });
@@ -70,6 +86,8 @@ export const cases: MatrixCase<never>[] = [
   actionCase({ file: 'climate', exportName: 'deleteClimateProfile', action: climate.deleteClimateProfile, access: 'climate.write', allow: ADMIN, prepare: (w) => fresh(w), input: (_w, s: StudyWorld) => ({ id: s.climateId }) }),
   actionCase({ file: 'studies', exportName: 'createStudy', action: studies.createStudy, access: 'study.write', allow: MAKERS, prepare: (w) => worldOf(w.company.id), input: (_w, s: StudyWorld) => studyInput(s) }),
   actionCase({ file: 'studies', exportName: 'rerunStudy', action: studies.rerunStudy, access: 'study.write', allow: MAKERS, prepare: (w) => studyIn(w.company.id, w.users.admin.id), input: (_w, s: { id: number }) => ({ id: s.id }) }),
+  actionCase({ file: 'studies', exportName: 'archiveStudy', action: studies.archiveStudy, access: 'study.write', allow: MAKERS, prepare: (w) => studyIn(w.company.id, w.users.admin.id), input: (_w, s: { id: number }) => ({ id: s.id }) }),
+  actionCase({ file: 'studies', exportName: 'unarchiveStudy', action: studies.unarchiveStudy, access: 'study.write', allow: MAKERS, prepare: (w) => studyIn(w.company.id, w.users.admin.id), input: (_w, s: { id: number }) => ({ id: s.id }) }),
   actionCase({ file: 'uploads', exportName: 'previewCatalogueUpload', action: uploads.previewCatalogueUpload, access: 'catalogue.write', allow: ADMIN, input: () => ({ file: csv(DISH_CSV()) }) }),
   actionCase({ file: 'uploads', exportName: 'confirmCatalogueUpload', action: uploads.confirmCatalogueUpload, access: 'catalogue.write', allow: ADMIN, input: () => ({ file: csv(DISH_CSV()) }) }),
   actionCase({ file: 'uploads', exportName: 'previewClimateUpload', action: uploads.previewClimateUpload, access: 'climate.write', allow: ADMIN, input: () => ({ kind: 'rain-curve', file: csv(CURVE_CSV) }) }),
@@ -84,6 +102,11 @@ export const cases: MatrixCase<never>[] = [
   routeCase({ method: 'GET', path: '/api/v1/sites', handler: listSitesRoute as never, access: 'customer.read', allow: COMPANY, request: () => ({ url: '/api/v1/sites?q=barn' }) }),
   routeCase({ method: 'GET', path: '/api/v1/customers', handler: listCustomersRoute as never, access: 'customer.read', allow: COMPANY, request: () => ({ url: '/api/v1/customers' }) }),
   routeCase({ method: 'GET', path: '/api/v1/dashboard', handler: dashboardRoute as never, access: 'study.read', allow: COMPANY, request: () => ({ url: '/api/v1/dashboard' }) }),
+  routeCase({
+    method: 'GET', path: '/api/v1/uploads/[id]', handler: uploadFileRoute as never, access: 'catalogue.write', allow: ADMIN,
+    prepare: (w) => uploadIn(w.company.id),
+    request: (_w, u: { id: number }) => ({ url: `/api/v1/uploads/${u.id}`, params: { id: String(u.id) } }),
+  }),
   routeCase({ method: 'POST', path: '/api/v1/tradeoff', handler: tradeoffRoute as never, access: 'tradeoff.api', allow: MAKERS, request: () => ({ url: '/api/v1/tradeoff', json: SCENARIO }) }),
 ] as MatrixCase<never>[];
 
@@ -107,6 +130,31 @@ export const crossCompany: CrossCompanyCase<never>[] = [
   { name: 'climate#deleteClimateProfile', prepare: theirs, run: (_w, s: StudyWorld) => callAction(climate.deleteClimateProfile, { id: s.climateId }), unchanged: (_w, s: StudyWorld) => unchangedRow('ClimateProfile', s.climateId, 'kind', 'known-r001') },
   { name: 'studies#createStudy from their site, service, climate and dishes', prepare: theirs, run: (_w, s: StudyWorld) => callAction(studies.createStudy, studyInput(s)) },
   { name: 'studies#rerunStudy of their study', prepare: (w) => studyIn(w.otherCompany.id, w.otherAdmin.id), run: (_w, s: { id: number }) => callAction(studies.rerunStudy, { id: s.id }) },
+  {
+    name: 'studies#archiveStudy of their study',
+    prepare: (w) => studyIn(w.otherCompany.id, w.otherAdmin.id),
+    run: (_w, s: { id: number }) => callAction(studies.archiveStudy, { id: s.id }),
+    unchanged: async (_w, s: { id: number }) => {
+      if ((await models().Study.findByPk(s.id))?.status !== 'ready') throw new Error(`study ${s.id} was archived`);
+    },
+  },
+  {
+    name: 'studies#unarchiveStudy of their archived study',
+    prepare: async (w) => {
+      const s = await studyIn(w.otherCompany.id, w.otherAdmin.id);
+      await models().Study.update({ status: 'archived' }, { where: { id: s.id } });
+      return s;
+    },
+    run: (_w, s: { id: number }) => callAction(studies.unarchiveStudy, { id: s.id }),
+    unchanged: async (_w, s: { id: number }) => {
+      if ((await models().Study.findByPk(s.id))?.status !== 'archived') throw new Error(`study ${s.id} was restored`);
+    },
+  },
+  {
+    name: 'GET /api/v1/uploads/[id] of their file',
+    prepare: (w) => uploadIn(w.otherCompany.id),
+    run: (_w, u: { id: number }) => uploadFileRoute(apiRequestOf(`/api/v1/uploads/${u.id}`), { params: Promise.resolve({ id: String(u.id) }) }),
+  },
   {
     name: 'GET /api/v1/studies/[id] of their study',
     prepare: (w) => studyIn(w.otherCompany.id, w.otherAdmin.id),

@@ -12,6 +12,8 @@ import { StudyWarnings } from '@/components/study/study-warnings';
 import { StudyCautions } from '@/components/study/cautions';
 import { StudyCharts } from '@/components/study/study-charts';
 import { RerunButton } from '@/components/study/rerun-button';
+import { ArchiveButton } from '@/components/study/archive-button';
+import { Notice } from '@/components/ui/notice';
 import { dateTimeFmt } from '@/components/study/format';
 import { requirePermission } from '@/server/auth/guards';
 import { can } from '@/server/auth/permissions';
@@ -42,10 +44,16 @@ export default async function StudyPage({ params }: { params: Promise<{ id: stri
               All studies
             </LinkButton>
             {canWrite && <RerunButton studyId={study.id} />}
+            {canWrite && <ArchiveButton key={study.status} studyId={study.id} archived={study.status === 'archived'} />}
           </>
         }
       />
       <div className="space-y-6">
+        {study.status === 'archived' && (
+          <Notice title="Archived">
+            This study is left out of the studies list unless archived studies are shown. Its figures and any quote made from it are unchanged.
+          </Notice>
+        )}
         <Recommendation studyId={study.id} inputs={inputs} result={result} canQuote={canQuote} />
         <StudyWarnings warnings={result.tradeoff.warnings} />
         <PointingSummary inputs={inputs} result={result} />

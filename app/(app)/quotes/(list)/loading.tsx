@@ -1,4 +1,8 @@
-/** The quotes pages' shell while the server answers. */
+/**
+ * The quotes list's shell while the page loads. It sits in the (list) route group so it wraps the
+ * list only: a loading boundary above /quotes/[id] would start streaming (status 200 fixed) before
+ * that page could call notFound(), and another company's id must answer a real 404.
+ */
 export default function QuotesLoading() {
   return (
     <div aria-busy="true" aria-live="polite">
