@@ -1,5 +1,5 @@
 import { test, expect, type Browser, type Page } from '@playwright/test';
-import AxeBuilder from '@axe-core/playwright';
+import { seriousViolations } from './support/axe';
 import { mkdirSync } from 'node:fs';
 import { DEMO_PASSWORD, DEMO_USERS } from '../../db/demo/accounts';
 import { DEMO_CLIMATES, DEMO_SERVICES } from '../../db/demo/studies';
@@ -26,10 +26,6 @@ async function signIn(page: Page, email: string) {
   await page.waitForURL((u) => !u.pathname.startsWith('/sign-in'));
 }
 
-async function seriousViolations(page: Page) {
-  const results = await new AxeBuilder({ page }).withTags(['wcag2a', 'wcag2aa']).analyze();
-  return results.violations.filter((v) => v.impact === 'serious' || v.impact === 'critical').map((v) => `${v.id}: ${v.nodes.map((n) => n.target.join(' ')).join(', ')}`);
-}
 
 /** Full-page screenshots at a desktop and a phone width. */
 async function shoot(page: Page, name: string) {

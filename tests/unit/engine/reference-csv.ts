@@ -3,20 +3,26 @@ import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { expect } from 'vitest';
 
+/** The repository's verbatim copy of the shared reference figures (tests/fixtures/reference). */
+export const REFERENCE_COPY_DIR = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../../fixtures/reference');
+
 /**
- * Where the published reference figures live: $FADELEDGER_REFERENCE_DIR, else `../shared/reference`
- * next to the repository (found by walking up from this file, so it works from any cwd).
+ * The shared reference folder `../shared/reference` beside the repository, found by walking up
+ * from this file (so it works from any cwd), or null where the clone has none beside it.
  */
-export function referenceDir(): string {
-  const fromEnv = process.env.FADELEDGER_REFERENCE_DIR;
-  if (fromEnv) return fromEnv;
+export function sharedReferenceDir(): string | null {
   let dir = path.dirname(fileURLToPath(import.meta.url));
   for (let i = 0; i < 8; i++) {
     const candidate = path.join(dir, 'shared', 'reference');
     if (fs.existsSync(path.join(candidate, 'README.md'))) return candidate;
     dir = path.dirname(dir);
   }
-  throw new Error('reference figures not found: set FADELEDGER_REFERENCE_DIR to the shared/reference folder');
+  return null;
+}
+
+/** Where the published reference figures are read: $FADELEDGER_REFERENCE_DIR, the shared folder, else the copy. */
+export function referenceDir(): string {
+  return process.env.FADELEDGER_REFERENCE_DIR || sharedReferenceDir() || REFERENCE_COPY_DIR;
 }
 
 /** Read a reference CSV (plain comma-separated, header row, no quoting) as rows of strings. */

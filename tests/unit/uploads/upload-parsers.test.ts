@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { parseUpload } from '@/server/uploads/parse-upload';
 import { MAX_UPLOAD_BYTES } from '@/server/uploads/upload-limits';
 import { readCsvTable } from '@/server/uploads/csv-table';
+import { referenceDir } from '../engine/reference-csv';
 
 const bytes = (s: string) => new TextEncoder().encode(s);
 const DISH_HEADER = 'name,diameter_m,efficiency,hardware_price,labour_price,mount_notes,active';
@@ -129,7 +130,7 @@ describe('monthly climate normals CSV', () => {
   // whose R0.01 by Annex 1 is given in itu-p837-7-rain-rate.csv.
   const fs = require('node:fs') as typeof import('node:fs');
   const path = require('node:path') as typeof import('node:path');
-  const refDir = path.resolve(__dirname, '../../../../shared/reference');
+  const refDir = referenceDir();
   const monthly = fs.readFileSync(path.join(refDir, 'itu-p837-7-monthly-climate.csv'), 'utf8').trim().split('\n').slice(1).map((l) => l.split(','));
   const rates = fs.readFileSync(path.join(refDir, 'itu-p837-7-rain-rate.csv'), 'utf8').trim().split('\n');
   const rateHeader = rates[0].split(',');
