@@ -7,17 +7,14 @@ const nextConfig = {
   // The build type-checks the app only; `npm test` type-checks everything (tests included) with tsc.
   typescript: { tsconfigPath: 'tsconfig.build.json' },
   typedRoutes: false,
-  // The customer's comparison page is reached by an unguessable link: never index it, never leak it in Referer.
+  // Pages reached by an unguessable link carry the token in their path: never index them, never
+  // leak the token in a Referer header.
   async headers() {
-    return [
-      {
-        source: '/share/:path*',
-        headers: [
-          { key: 'X-Robots-Tag', value: 'noindex, nofollow' },
-          { key: 'Referrer-Policy', value: 'no-referrer' },
-        ],
-      },
+    const tokenPage = [
+      { key: 'X-Robots-Tag', value: 'noindex, nofollow' },
+      { key: 'Referrer-Policy', value: 'no-referrer' },
     ];
+    return ['/share/:path*', '/reset-password/:path*', '/invite/:path*'].map((source) => ({ source, headers: tokenPage }));
   },
   experimental: { serverActions: { bodySizeLimit: '4mb' } },
 };

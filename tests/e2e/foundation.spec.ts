@@ -19,3 +19,11 @@ test('an unknown page answers with our 404', async ({ page }) => {
   expect(res?.status()).toBe(404);
   await expect(page.getByRole('heading', { name: 'We could not find that page' })).toBeVisible();
 });
+
+test('pages opened from a mailed token link never leak the token in a Referer, nor get indexed', async ({ request }) => {
+  for (const path of [`/reset-password/${'B'.repeat(43)}`, `/invite/${'C'.repeat(43)}`]) {
+    const res = await request.get(path);
+    expect(res.headers()['referrer-policy'], path).toBe('no-referrer');
+    expect(res.headers()['x-robots-tag'], path).toBe('noindex, nofollow');
+  }
+});
