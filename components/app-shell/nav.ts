@@ -22,7 +22,7 @@ export const NAV: readonly NavItem[] = [
 export const SETTINGS_NAV: readonly { label: string; href: string; permission: Permission | 'signed-in' }[] = [
   { label: 'Team', href: '/settings/team', permission: 'team.read' },
   { label: 'Billing', href: '/settings/billing', permission: 'billing.manage' },
-  { label: 'Branding', href: '/settings/branding', permission: 'billing.manage' },
+  { label: 'Branding', href: '/settings/branding', permission: 'branding.manage' },
   { label: 'Audit log', href: '/settings/audit', permission: 'audit.read' },
   { label: 'Your security', href: '/settings/security', permission: 'signed-in' },
 ];

@@ -16,15 +16,14 @@ const logoSchema = z.object({
     .refine((f) => f.size <= LOGO_MAX_BYTES, `The logo must be at most ${LOGO_MAX_BYTES / 1024} KiB.`),
 });
 
-// Branding is an admin matter (product.md); the permission map has no branding entry, so the
-// admin-only billing permission stands for it (see the report to the lead).
-export const uploadLogo = safeAction({ schema: logoSchema, permission: 'billing.manage' }, async (input, ctx) => {
+// Branding is an admin matter (product.md); the plan decides separately whether quotes show it.
+export const uploadLogo = safeAction({ schema: logoSchema, permission: 'branding.manage' }, async (input, ctx) => {
   const image = await upload(ctx.companyId, Buffer.from(await input.logo.arrayBuffer()));
   revalidatePath(BRANDING_PAGE);
   return { message: `Logo saved (${image.width} × ${image.height} px). It appears on quote PDFs and customer pages.` };
 });
 
-export const removeLogo = safeAction({ schema: z.object({}), permission: 'billing.manage' }, async (_input, ctx) => {
+export const removeLogo = safeAction({ schema: z.object({}), permission: 'branding.manage' }, async (_input, ctx) => {
   await remove(ctx.companyId);
   revalidatePath(BRANDING_PAGE);
   return { message: 'Logo removed.' };

@@ -32,6 +32,7 @@ export const PERMISSIONS = {
   'team.read': ADMIN,
   'team.manage': ADMIN,
   'billing.manage': ADMIN,
+  'branding.manage': ADMIN,
   'audit.read': ADMIN,
   'plans.manage': STAFF,
   'accounts.read': STAFF,

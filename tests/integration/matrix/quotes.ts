@@ -57,8 +57,8 @@ export const cases: MatrixCase<never>[] = [
   }),
   // The customer has no account: everyone passes the guard; the link token is the credential.
   actionCase({ file: 'customer-decision', exportName: 'decideQuote', action: decision.decideQuote, access: 'public', allow: EVERYONE, prepare: sentIn, input: (_w, s: S) => ({ token: s.token, decision: 'decline', name: 'Matrix Customer' }) }),
-  actionCase({ file: 'branding', exportName: 'uploadLogo', action: branding.uploadLogo, access: 'billing.manage', allow: ADMIN, input: () => ({ logo: png() }) }),
-  actionCase({ file: 'branding', exportName: 'removeLogo', action: branding.removeLogo, access: 'billing.manage', allow: ADMIN, input: () => ({}) }),
+  actionCase({ file: 'branding', exportName: 'uploadLogo', action: branding.uploadLogo, access: 'branding.manage', allow: ADMIN, input: () => ({ logo: png() }) }),
+  actionCase({ file: 'branding', exportName: 'removeLogo', action: branding.removeLogo, access: 'branding.manage', allow: ADMIN, input: () => ({}) }),
 
   routeCase({ method: 'GET', path: '/api/v1/quotes', handler: listQuotesRoute as never, access: 'quote.read', allow: COMPANY, request: () => ({ url: '/api/v1/quotes?status=open&page=1&pageSize=10' }) }),
   routeCase({ method: 'GET', path: '/api/v1/quotes/[id]', handler: getQuoteRoute as never, access: 'quote.read', allow: COMPANY, prepare: draftIn, request: (_w, q: Q) => ({ url: `/api/v1/quotes/${q.quoteId}`, params: p({ id: String(q.quoteId) }) }) }),

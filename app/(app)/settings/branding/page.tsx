@@ -11,7 +11,7 @@ import { getCompanyLogoInfo } from '@/db/queries/branding';
 export const metadata: Metadata = { title: 'Quote branding' };
 
 export default async function BrandingPage() {
-  const ctx = await requirePermission('billing.manage');
+  const ctx = await requirePermission('branding.manage');
   const [limits, logo] = await Promise.all([getPlanLimits(ctx.companyId), getCompanyLogoInfo(ctx.companyId)]);
   return (
     <>
