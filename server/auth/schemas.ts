@@ -61,8 +61,5 @@ export const acceptExistingAccountSchema = z.object({ token: tokenField, passwor
 export const sessionDigestSchema = z.object({ session: z.string().regex(/^[a-f0-9]{64}$/, { error: 'Unknown session.' }) });
 export const switchCompanySchema = z.object({ companyId: id });
 
-/** Only same-site paths may be used as "where to go after signing in". */
-export function safeNextPath(next: string | undefined | null): string | null {
-  if (!next || !next.startsWith('/') || next.startsWith('//') || next.startsWith('/\\')) return null;
-  return next.slice(0, 500);
-}
+/** Kept here so forms and actions import every account-input rule from one place. */
+export { safeNextPath } from './next-path';

@@ -54,12 +54,12 @@ describe('schemas', () => {
 
   describe('edge cases', () => {
     it('"next" after sign-in is a same-site path only', () => {
-      expect(safeNextPath('/studies/4')).toBe('/studies/4');
-      expect(safeNextPath('//evil.example')).toBeNull();
-      expect(safeNextPath('/\\evil.example')).toBeNull();
-      expect(safeNextPath('https://evil.example')).toBeNull();
-      expect(safeNextPath('')).toBeNull();
-      expect(safeNextPath(undefined)).toBeNull();
+      expect(safeNextPath('/studies/4', 'http://localhost:3100')).toBe('/studies/4');
+      expect(safeNextPath('//evil.example', 'http://localhost:3100')).toBeNull();
+      expect(safeNextPath('/\\evil.example', 'http://localhost:3100')).toBeNull();
+      expect(safeNextPath('https://evil.example', 'http://localhost:3100')).toBeNull();
+      expect(safeNextPath('', 'http://localhost:3100')).toBeNull();
+      expect(safeNextPath(undefined, 'http://localhost:3100')).toBeNull();
     });
   });
 });
