@@ -1,7 +1,9 @@
 /**
- * The invented demo scenario of the studies part: customers in places of our own making,
- * invented coordinates, two invented satellites, an invented dish catalogue and price list, and
- * climate profiles of each kind with invented figures. Nothing here names a real person, brand,
+ * The invented demo scenario of the studies part: customers in places of our own making, at
+ * coordinates on an island of our own making in the open North Atlantic (about 48–50° N,
+ * 20–23° W, where there is no land and so no real town), two invented satellites at unremarkable
+ * slots, an invented dish catalogue and price list, and climate profiles of each kind with
+ * invented figures. Nothing here names a real person, brand,
  * town or satellite. PART B (quotes) finds the demo studies by the titles below.
  */
 export const DEMO_SERVICES = [
@@ -25,7 +27,7 @@ export const DEMO_SERVICES = [
     key: 'halcyon-broadband',
     name: 'Halcyon two-way broadband',
     satelliteName: 'Halcyon-4',
-    satelliteLongitudeDeg: '9.0 E',
+    satelliteLongitudeDeg: '6.3 E',
     downlinkFrequencyGHz: '19.950',
     polarization: 'circular',
     eirpDbw: '55',
@@ -83,14 +85,14 @@ export const DEMO_CLIMATES = [
 ] as const;
 
 export const DEMO_CUSTOMERS = [
-  { key: 'ottermere', name: 'Ottermere Lodge', email: 'bookings@ottermere-lodge.example', phone: '+00 1000 200 301', sites: [{ key: 'lodge', name: 'Lodge roof, north gable', address: '1 Lakeside Track, Lower Ottermere', latDeg: 51.842, lonDeg: -3.276, altitudeM: 212 }] },
+  { key: 'ottermere', name: 'Ottermere Lodge', email: 'bookings@ottermere-lodge.example', phone: '+00 1000 200 301', sites: [{ key: 'lodge', name: 'Lodge roof, north gable', address: '1 Lakeside Track, Lower Ottermere', latDeg: 48.612, lonDeg: -21.847, altitudeM: 212 }] },
   { key: 'brindlewick', name: 'Brindlewick Farm Cooperative', email: 'office@brindlewick-coop.example', phone: '+00 1000 200 302', sites: [
-    { key: 'barn', name: 'Grain barn', address: 'Top Field Lane, Brindlewick', latDeg: 52.417, lonDeg: -1.932, altitudeM: 118 },
-    { key: 'farmhouse', name: 'Farmhouse chimney breast', address: 'Brindlewick Farmhouse', latDeg: 52.4183, lonDeg: -1.9301, altitudeM: 121 },
+    { key: 'barn', name: 'Grain barn', address: 'Top Field Lane, Brindlewick', latDeg: 49.103, lonDeg: -22.416, altitudeM: 118 },
+    { key: 'farmhouse', name: 'Farmhouse chimney breast', address: 'Brindlewick Farmhouse', latDeg: 49.1043, lonDeg: -22.4141, altitudeM: 121 },
   ] },
-  { key: 'saltmarrow', name: 'Saltmarrow Boatyard', email: 'yard@saltmarrow.example', phone: '+00 1000 200 303', sites: [{ key: 'yard', name: 'Chandlery roof', address: 'The Hard, Saltmarrow Quay', latDeg: 50.402, lonDeg: -4.116, altitudeM: 6 }] },
-  { key: 'fennick', name: 'Fennick & Daughters Garage', email: null, phone: '+00 1000 200 304', sites: [{ key: 'garage', name: 'Workshop wall', address: 'Old Turnpike, Fennick End', latDeg: 53.108, lonDeg: -2.447, altitudeM: 74 }] },
-  { key: 'cobblestep', name: 'Cobblestep Village School', email: 'bursar@cobblestep-school.example', phone: null, sites: [{ key: 'school', name: 'Hall flat roof', address: 'School Lane, Cobblestep', latDeg: 54.221, lonDeg: -1.598, altitudeM: 165 }] },
+  { key: 'saltmarrow', name: 'Saltmarrow Boatyard', email: 'yard@saltmarrow.example', phone: '+00 1000 200 303', sites: [{ key: 'yard', name: 'Chandlery roof', address: 'The Hard, Saltmarrow Quay', latDeg: 47.905, lonDeg: -20.733, altitudeM: 6 }] },
+  { key: 'fennick', name: 'Fennick & Daughters Garage', email: null, phone: '+00 1000 200 304', sites: [{ key: 'garage', name: 'Workshop wall', address: 'Old Turnpike, Fennick End', latDeg: 49.388, lonDeg: -21.162, altitudeM: 74 }] },
+  { key: 'cobblestep', name: 'Cobblestep Village School', email: 'bursar@cobblestep-school.example', phone: null, sites: [{ key: 'school', name: 'Hall flat roof', address: 'School Lane, Cobblestep', latDeg: 49.702, lonDeg: -22.905, altitudeM: 165 }] },
 ] as const;
 
 /** The demo studies: customer site × service × climate, with the dishes (by name) they compare. */
@@ -106,7 +108,7 @@ export const DEMO_STUDIES = [
 /** Bramblecote Aerials' little world (to show that companies never see each other's rows). */
 export const BRAMBLECOTE_DEMO = {
   customer: { name: 'Hollin Row Allotments', email: 'secretary@hollin-row.example' },
-  site: { name: 'Tool shed', address: 'Hollin Row, Bramblecote', latDeg: 53.71, lonDeg: -1.02, altitudeM: 40 },
+  site: { name: 'Tool shed', address: 'Hollin Row, Bramblecote', latDeg: 48.955, lonDeg: -20.288, altitudeM: 40 },
   service: { ...DEMO_SERVICES[0], name: 'Corvid TV (Bramblecote)' },
   climate: { name: 'Bramblecote known R0.01', kind: 'known-r001', data: { r001MmH: 30 }, zeroIsothermKm: 2.6, sourceNote: 'Invented for the demo' },
   dishes: [

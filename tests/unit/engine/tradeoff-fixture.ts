@@ -1,8 +1,10 @@
 import type { TradeoffScenario } from '@/server/engine';
 
 /**
- * Invented demo scenario (no real site, satellite or price): a Ku-band DTH-like carrier at a
- * mid-latitude site, eight dish sizes. Numbers are plausible, not from any product.
+ * Test scenario: a Ku-band DTH-like carrier and eight dish sizes with invented prices. The site
+ * sits at the coordinates of validation point V7 of ../shared/reference (a neutral label; only the
+ * coordinates matter) and the satellite slot is a round number chosen for a mid elevation. Link
+ * figures are plausible, not from any product.
  */
 export function demoScenario(patch: Partial<TradeoffScenario> = {}): TradeoffScenario {
   return {
