@@ -13,6 +13,12 @@ import { DeleteCustomerButton } from './delete-customer-button';
 export function CustomersList({ canEdit = false }: { canEdit?: boolean }) {
   const [editing, setEditing] = useState<number | null>(null);
   const columns = canEdit ? 6 : 5;
+  const editButton = (c: CustomerListItem, open: boolean, panelId: string) => (
+    <Button variant="quiet" size="sm" aria-expanded={open} aria-controls={open ? panelId : undefined} onClick={() => setEditing(open ? null : c.id)}>
+      {open ? 'Close' : 'Edit'}
+      <span className="sr-only"> {c.name}</span>
+    </Button>
+  );
   return (
     <PagedList<CustomerListItem>
       endpoint="/api/v1/customers"
@@ -28,7 +34,7 @@ export function CustomersList({ canEdit = false }: { canEdit?: boolean }) {
               <Th numeric>Sites</Th>
               <Th className="hidden sm:table-cell">Added</Th>
               {canEdit && (
-                <Th>
+                <Th className="hidden sm:table-cell">
                   <span className="sr-only">Actions</span>
                 </Th>
               )}
@@ -45,19 +51,14 @@ export function CustomersList({ canEdit = false }: { canEdit?: boolean }) {
                     <Th scope="row" className="align-top font-medium text-stone-900">
                       {c.name}
                       <span className="block text-xs font-normal text-stone-600 sm:hidden">{[c.email, c.phone].filter(Boolean).join(' · ') || 'no e-mail or phone'}</span>
+                      {/* Phones: the edit button sits under the name, so the table fits without sideways scrolling. */}
+                      {canEdit && <div className="-ml-2.5 mt-1 font-normal sm:hidden">{editButton(c, open, panelId)}</div>}
                     </Th>
                     <Td className="hidden break-all sm:table-cell">{c.email ?? '—'}</Td>
                     <Td className="hidden whitespace-nowrap md:table-cell">{c.phone ?? '—'}</Td>
                     <Td numeric>{c.siteCount}</Td>
                     <Td className="hidden whitespace-nowrap sm:table-cell">{dateFmt.format(new Date(c.createdAt))}</Td>
-                    {canEdit && (
-                      <Td className="whitespace-nowrap text-right">
-                        <Button variant="quiet" size="sm" aria-expanded={open} aria-controls={open ? panelId : undefined} onClick={() => setEditing(open ? null : c.id)}>
-                          {open ? 'Close' : 'Edit'}
-                          <span className="sr-only"> {c.name}</span>
-                        </Button>
-                      </Td>
-                    )}
+                    {canEdit && <Td className="hidden whitespace-nowrap text-right sm:table-cell">{editButton(c, open, panelId)}</Td>}
                   </tr>
                   {canEdit && open && (
                     <tr id={panelId}>

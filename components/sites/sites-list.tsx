@@ -18,6 +18,21 @@ export function SitesList({ canStudy, canEdit = false, customers = [] }: { canSt
   const [editing, setEditing] = useState<number | null>(null);
   const hasActions = canStudy || canEdit;
   const columns = hasActions ? 7 : 6;
+  const actions = (s: SiteListItem, open: boolean, panelId: string) => (
+    <div className="flex flex-wrap items-center gap-x-3 gap-y-1 sm:justify-end">
+      {canStudy && (
+        <Link href={`/studies/new?site=${s.id}`} className="text-sm font-medium text-ledger-700 hover:underline">
+          New study<span className="sr-only"> for {s.name}</span>
+        </Link>
+      )}
+      {canEdit && (
+        <Button variant="quiet" size="sm" aria-expanded={open} aria-controls={open ? panelId : undefined} onClick={() => setEditing(open ? null : s.id)}>
+          {open ? 'Close' : 'Edit'}
+          <span className="sr-only"> {s.name}</span>
+        </Button>
+      )}
+    </div>
+  );
   return (
     <PagedList<SiteListItem>
       endpoint="/api/v1/sites"
@@ -29,11 +44,18 @@ export function SitesList({ canStudy, canEdit = false, customers = [] }: { canSt
             <tr>
               <Th>Site</Th>
               <Th className="hidden md:table-cell">Customer</Th>
-              <Th numeric>Latitude</Th>
-              <Th numeric>Longitude</Th>
+              <Th numeric>
+                <span className="sm:hidden">Position</span>
+                <span className="hidden sm:inline">Latitude</span>
+              </Th>
+              <Th numeric className="hidden sm:table-cell">Longitude</Th>
               <Th numeric className="hidden sm:table-cell">Altitude</Th>
               <Th numeric className="hidden sm:table-cell">Studies</Th>
-              {hasActions && <Th><span className="sr-only">Actions</span></Th>}
+              {hasActions && (
+                <Th className="hidden sm:table-cell">
+                  <span className="sr-only">Actions</span>
+                </Th>
+              )}
             </tr>
           </THead>
           <TBody>
@@ -48,35 +70,23 @@ export function SitesList({ canStudy, canEdit = false, customers = [] }: { canSt
                       {s.name}
                       {s.address && <span className="block text-xs font-normal text-stone-600">{s.address}</span>}
                       <span className="block text-xs font-normal text-stone-600 md:hidden">{s.customerName}</span>
+                      {/* Phones: the actions sit under the name, so the table fits without sideways scrolling. */}
+                      {hasActions && <div className="mt-1 font-normal sm:hidden">{actions(s, open, panelId)}</div>}
                     </Th>
                     <Td className="hidden md:table-cell">{s.customerName}</Td>
                     <Td numeric className="whitespace-nowrap">
                       {formatDms(s.latDeg, 'lat')}
                       <span className="block text-xs text-stone-600">{fixed(s.latDeg, 5)}</span>
+                      <span className="mt-1 block sm:hidden">{formatDms(s.lonDeg, 'lon')}</span>
+                      <span className="block text-xs text-stone-600 sm:hidden">{fixed(s.lonDeg, 5)}</span>
                     </Td>
-                    <Td numeric className="whitespace-nowrap">
+                    <Td numeric className="hidden whitespace-nowrap sm:table-cell">
                       {formatDms(s.lonDeg, 'lon')}
                       <span className="block text-xs text-stone-600">{fixed(s.lonDeg, 5)}</span>
                     </Td>
                     <Td numeric className="hidden sm:table-cell">{fixed(s.altitudeM, 0)} m</Td>
                     <Td numeric className="hidden sm:table-cell">{s.studyCount}</Td>
-                    {hasActions && (
-                      <Td className="whitespace-nowrap">
-                        <div className="flex flex-col items-end gap-1 sm:flex-row sm:items-center sm:justify-end sm:gap-3">
-                          {canStudy && (
-                            <Link href={`/studies/new?site=${s.id}`} className="text-sm font-medium text-ledger-700 hover:underline">
-                              New study<span className="sr-only"> for {s.name}</span>
-                            </Link>
-                          )}
-                          {canEdit && (
-                            <Button variant="quiet" size="sm" aria-expanded={open} aria-controls={open ? panelId : undefined} onClick={() => setEditing(open ? null : s.id)}>
-                              {open ? 'Close' : 'Edit'}
-                              <span className="sr-only"> {s.name}</span>
-                            </Button>
-                          )}
-                        </div>
-                      </Td>
-                    )}
+                    {hasActions && <Td className="hidden whitespace-nowrap sm:table-cell">{actions(s, open, panelId)}</Td>}
                   </tr>
                   {canEdit && open && (
                     <tr id={panelId}>

@@ -138,8 +138,8 @@ test('an installer archives a study, finds it again with the toggle, and restore
 
 test('the admin downloads an uploaded price list exactly as it was sent', async ({ page }) => {
   const id = stamp();
-  // Invented catalogue row (demo data).
-  const text = `name,diameter_m,efficiency,hardware_price,labour_price\nDownload check ${id},0.85,0.66,161.00,140.00\n`;
+  // Invented catalogue row (demo data), not offered in new studies so other browser tests' dish lists stay as seeded.
+  const text = `name,diameter_m,efficiency,hardware_price,labour_price,mount_notes,active\nDownload check ${id},0.85,0.66,161.00,140.00,,no\n`;
   await signIn(page, user('admin').email);
   await page.goto('/dishes');
   await page.getByLabel('CSV file', { exact: true }).setInputFiles({ name: `price list ${id}.csv`, mimeType: 'text/csv', buffer: Buffer.from(text) });
