@@ -50,10 +50,10 @@ export default async function ClimatePage() {
               <THead>
                 <tr>
                   <Th>Profile</Th>
-                  <Th>Kind</Th>
+                  <Th className="hidden sm:table-cell">Kind</Th>
                   <Th numeric className="normal-case">R0.01</Th>
-                  <Th numeric>0 °C isotherm</Th>
-                  <Th>Source</Th>
+                  <Th numeric className="hidden sm:table-cell">0 °C isotherm</Th>
+                  <Th className="hidden md:table-cell">Source</Th>
                   {admin && <Th><span className="sr-only">Actions</span></Th>}
                 </tr>
               </THead>
@@ -63,11 +63,17 @@ export default async function ClimatePage() {
                   <tr key={p.id}>
                     <Th scope="row" className="align-top font-medium text-stone-900">
                       {p.name}
+                      {/* Phones and tablets: kind, isotherm and source fold under the name, so the table fits. */}
+                      <span className="block text-xs font-normal text-stone-600 sm:hidden">{CLIMATE_KIND_LABELS[p.kind]}</span>
+                      <span className="block text-xs font-normal text-stone-600 sm:hidden">
+                        0 °C isotherm: {p.zeroIsothermKm === null ? 'approximation' : `${fixed(Number(p.zeroIsothermKm), 2)} km`}
+                      </span>
+                      <span className="block text-xs font-normal text-stone-600 md:hidden">{p.sourceNote}</span>
                     </Th>
-                    <Td>{CLIMATE_KIND_LABELS[p.kind]}</Td>
+                    <Td className="hidden sm:table-cell">{CLIMATE_KIND_LABELS[p.kind]}</Td>
                     <Td numeric className="whitespace-nowrap">{r001Of(p)}</Td>
-                    <Td numeric className="whitespace-nowrap">{p.zeroIsothermKm === null ? <span className="text-amber-800">approximation</span> : `${fixed(Number(p.zeroIsothermKm), 2)} km`}</Td>
-                    <Td className="max-w-sm text-stone-700">
+                    <Td numeric className="hidden whitespace-nowrap sm:table-cell">{p.zeroIsothermKm === null ? <span className="text-amber-800">approximation</span> : `${fixed(Number(p.zeroIsothermKm), 2)} km`}</Td>
+                    <Td className="hidden max-w-sm text-stone-700 md:table-cell">
                       {p.sourceNote}
                       {p.uploadId !== null && <span className="block text-xs text-stone-600">from an uploaded file (kept with its report)</span>}
                     </Td>
