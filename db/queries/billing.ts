@@ -243,9 +243,15 @@ export async function setPendingPlan(companyId: number, subscriptionId: number, 
 
 // ---- checkouts -------------------------------------------------------------------------------
 
-export async function insertCheckout(values: { companyId: number; planId: number; providerSessionId: string; createdByUserId: string | null; expiresAt: Date }): Promise<CheckoutRow> {
+export async function insertCheckout(values: { companyId: number; planId: number; providerSessionId: string; createdByUserId: string | null; expiresAt: Date }, t?: Transaction): Promise<CheckoutRow> {
   const { BillingCheckout } = models();
-  return BillingCheckout.create(values);
+  return BillingCheckout.create(values, { transaction: t });
+}
+
+/** The company's checkouts that are still open and not past their expiry. */
+export async function findOpenCheckouts(companyId: number, t: Transaction, now = new Date()): Promise<CheckoutRow[]> {
+  const { BillingCheckout } = models();
+  return BillingCheckout.findAll({ where: { companyId, status: 'open', expiresAt: { [Op.gt]: now } }, transaction: t });
 }
 
 /** A checkout of this company by the provider's session id (null for another company's). */

@@ -1,5 +1,6 @@
 import 'server-only';
-import { findLiveSubscription, getCompanyBilling, getPlanById, insertCheckout, setPendingPlan } from '@/db/queries/billing';
+import { models } from '@/db/models';
+import { findLiveSubscription, findOpenCheckouts, getCompanyBilling, getPlanById, insertCheckout, markCheckout, setPendingPlan } from '@/db/queries/billing';
 import { getEnv } from '@/server/env';
 import { AppError, ConflictError, NotFoundError } from '@/server/errors';
 import { ensureProviderCustomer } from './customer';
@@ -28,37 +29,61 @@ function providerFailure(error: unknown): never {
 /**
  * Opens a hosted checkout for a paid plan and returns its URL. The plan becomes active only when
  * the provider's webhook says the subscription is paid; the return page waits for that.
+ *
+ * One open checkout per company: under the company row lock, any earlier open checkout is expired
+ * at the provider before the new one is made, so a double click or two admins cannot end up
+ * paying for two subscriptions.
  */
 export async function startCheckout(actor: BillingActor, planId: number): Promise<{ url: string; sessionId: string }> {
   const plan = await sellablePlan(planId);
-  const live = await findLiveSubscription(actor.companyId);
-  if (live) throw new ConflictError('Your company already has a subscription: change its plan instead of starting a new checkout.');
+  if (await findLiveSubscription(actor.companyId)) throw alreadySubscribed();
   try {
+    // Before the lock: both may write the company row in their own statements.
     const price = await ensureSellablePrice(plan);
     const customer = await ensureProviderCustomer(actor.companyId, actor.email);
-    const metadata = { fadeledger_company_id: String(actor.companyId), fadeledger_plan_id: String(plan.id) };
-    const session = await getStripe().checkout.sessions.create({
-      mode: 'subscription',
-      customer,
-      line_items: [{ price, quantity: 1 }],
-      success_url: `${appUrl('/settings/billing/return')}?session_id={CHECKOUT_SESSION_ID}`,
-      cancel_url: appUrl('/settings/billing?checkout=canceled'),
-      client_reference_id: String(actor.companyId),
-      metadata,
-      subscription_data: { metadata },
+    return await models().sequelize.transaction(async (t) => {
+      await getCompanyBilling(actor.companyId, t, true);
+      if (await findLiveSubscription(actor.companyId, t)) throw alreadySubscribed();
+      const stripe = getStripe();
+      for (const open of await findOpenCheckouts(actor.companyId, t)) {
+        const earlier = await stripe.checkout.sessions.retrieve(open.providerSessionId);
+        if (earlier.status === 'complete') {
+          throw new ConflictError('A payment from an earlier checkout is being confirmed: wait a moment and reload this page.');
+        }
+        if (earlier.status === 'open') await stripe.checkout.sessions.expire(open.providerSessionId);
+        await markCheckout(open.id, { status: 'expired' }, t);
+      }
+      const metadata = { fadeledger_company_id: String(actor.companyId), fadeledger_plan_id: String(plan.id) };
+      const session = await stripe.checkout.sessions.create({
+        mode: 'subscription',
+        customer,
+        line_items: [{ price, quantity: 1 }],
+        success_url: `${appUrl('/settings/billing/return')}?session_id={CHECKOUT_SESSION_ID}`,
+        cancel_url: appUrl('/settings/billing?checkout=canceled'),
+        client_reference_id: String(actor.companyId),
+        metadata,
+        subscription_data: { metadata },
+      });
+      if (!session.url) throw new AppError('The payment provider returned no checkout page.', 502, 'provider_error');
+      await insertCheckout(
+        {
+          companyId: actor.companyId,
+          planId: plan.id,
+          providerSessionId: session.id,
+          createdByUserId: actor.userId,
+          expiresAt: new Date((session.expires_at ?? Math.floor(Date.now() / 1000) + 86_400) * 1000),
+        },
+        t,
+      );
+      return { url: session.url, sessionId: session.id };
     });
-    if (!session.url) throw new AppError('The payment provider returned no checkout page.', 502, 'provider_error');
-    await insertCheckout({
-      companyId: actor.companyId,
-      planId: plan.id,
-      providerSessionId: session.id,
-      createdByUserId: actor.userId,
-      expiresAt: new Date((session.expires_at ?? Math.floor(Date.now() / 1000) + 86_400) * 1000),
-    });
-    return { url: session.url, sessionId: session.id };
   } catch (error) {
     providerFailure(error);
   }
+}
+
+function alreadySubscribed(): ConflictError {
+  return new ConflictError('Your company already has a subscription: change its plan instead of starting a new checkout.');
 }
 
 /**

@@ -184,3 +184,19 @@ describe('checkout → webhooks → active plan → change → failed renewal �
     expect(await WebhookEvent.count({ where: { providerEventId: ids } })).toBe(new Set(ids).size);
   });
 });
+
+describe('one open checkout per company', () => {
+  it('a second checkout (double click, two admins at once) expires the first at the provider, so only one can be paid', async () => {
+    const crewLike = await newPaidPlan('49.00', 5);
+    const company = await createBillingCompany({ planCode: 'bench', customerId: null });
+    const actor = await actorFor(company.id);
+    const [a, b] = await Promise.all([startCheckout(actor, crewLike.id), startCheckout(actor, crewLike.id)]);
+    const stripe = getStripe();
+    const atProvider = await Promise.all([a, b].map(async (s) => ({ id: s.sessionId, status: (await stripe.checkout.sessions.retrieve(s.sessionId)).status })));
+    expect(atProvider.map((s) => s.status).sort()).toEqual(['expired', 'open']);
+    // Our rows agree with the provider, session by session.
+    const rows = await models().BillingCheckout.findAll({ where: { companyId: company.id }, order: [['id', 'ASC']] });
+    expect(rows.map((r) => r.status)).toEqual(['expired', 'open']);
+    for (const s of atProvider) expect(rows.find((r) => r.providerSessionId === s.id)?.status).toBe(s.status);
+  });
+});
