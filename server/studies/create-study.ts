@@ -50,6 +50,10 @@ export async function createStudy(actor: StudyActor, input: NewStudyInput): Prom
     if ('id' in input.customer && !customer) throw new NotFoundError('That customer');
     let site = 'id' in input.site ? await getSite(companyId, input.site.id, t) : null;
     if ('id' in input.site && !site) throw new NotFoundError('That site');
+    if (site && !customer) {
+      const message = 'A new customer has no sites yet: enter the new site, or pick the customer this site belongs to.';
+      throw new InvalidInputError(message, { siteId: [message] });
+    }
     if (site && site.customerId !== customer?.id) {
       throw new InvalidInputError('That site belongs to another customer.', { siteId: ['That site belongs to another customer.'] });
     }

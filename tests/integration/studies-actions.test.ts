@@ -119,6 +119,16 @@ describe('another company’s rows by id are "not found"', () => {
 });
 
 describe('study creation', () => {
+  it('a new customer needs a new site: an existing site id is not taken over, and nothing is saved', async () => {
+    asUser(tokens.installer);
+    const [customers, studies] = [await countRows('customers', home.id), await countRows('studies', home.id)];
+    const { customerId: _c, ...rest } = newStudy();
+    const out = await callAction(studyActions.createStudy, { ...rest, customerMode: 'new', newCustomerName: 'Larchmere Forge' });
+    expect(out.state).toMatchObject({ ok: false });
+    expect(out.state).toMatchObject({ code: 'invalid_input', fieldErrors: { siteName: expect.any(Array) } });
+    expect([await countRows('customers', home.id), await countRows('studies', home.id)]).toEqual([customers, studies]);
+  });
+
   it('creates a customer and site typed in DMS together with the study, in one go', async () => {
     asUser(tokens.installer);
     const out = await callAction(studyActions.createStudy, {
