@@ -2,13 +2,14 @@ import 'server-only';
 import { Op, type Transaction } from 'sequelize';
 import { models } from '@/db/models';
 
-export async function createPasswordResetToken(data: { userId: string; tokenHash: string; expiresAt: Date; requestedIp: string | null }): Promise<void> {
-  const { PasswordResetToken, sequelize } = models();
-  await sequelize.transaction(async (t) => {
-    // Only the newest link works: asking again retires the earlier ones.
-    await PasswordResetToken.update({ usedAt: new Date() }, { where: { userId: data.userId, usedAt: null }, transaction: t });
-    await PasswordResetToken.create(data, { transaction: t });
-  });
+/**
+ * Stores a new link and retires every earlier unused one of that person, inside the caller's
+ * transaction (which also writes the audit row): only the newest link works.
+ */
+export async function replaceResetTokens(data: { userId: string; tokenHash: string; expiresAt: Date; requestedIp: string | null }, t: Transaction): Promise<void> {
+  const { PasswordResetToken } = models();
+  await PasswordResetToken.update({ usedAt: new Date() }, { where: { userId: data.userId, usedAt: null }, transaction: t });
+  await PasswordResetToken.create(data, { transaction: t });
 }
 
 export async function findResetTokenByHash(tokenHash: string, t?: Transaction, lock = false) {

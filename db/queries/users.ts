@@ -24,6 +24,12 @@ export async function findUserById(id: string, t?: Transaction): Promise<UserRow
   return User.findByPk(id, { transaction: t });
 }
 
+/** Locks the person's row until the transaction ends: serialises changes to their account. */
+export async function lockUser(id: string, t: Transaction): Promise<UserRow | null> {
+  const { User } = models();
+  return User.findByPk(id, { transaction: t, lock: t.LOCK.UPDATE });
+}
+
 export async function createUser(data: { email: string; name: string; passwordHash: string }, t: Transaction): Promise<UserRow> {
   const { User } = models();
   return User.create({ id: newUserId(), email: normaliseEmail(data.email), name: data.name, passwordHash: data.passwordHash }, { transaction: t });

@@ -3,7 +3,7 @@ import { randomBytes } from 'node:crypto';
 import { InvalidInputError } from '@/server/errors';
 import { findUserByEmail, normaliseEmail, type UserRow } from '@/db/queries/users';
 import { hashPassword, verifyPassword } from './password';
-import { assertNotThrottled, forgiveAddress, recordAttempt } from './throttle';
+import { claimAttempt, forgiveAddress, settleAttempt, type Attempt } from './throttle';
 import { audit } from './audit';
 import type { RequestMeta } from './request-meta';
 
@@ -22,14 +22,16 @@ function dummyHash(): Promise<string> {
 
 /**
  * Checks an address and password under the sign-in throttle (per address and per IP). The
- * comparison is argon2's own constant-time verify; unknown addresses run a dummy verify. On
- * failure the attempt is recorded and the message does not say which half was wrong.
+ * attempt is recorded as a failure before argon2 runs and only marked good afterwards, so
+ * parallel guesses each take a slot and at most the limit reach the comparison. The comparison
+ * is argon2's own constant-time verify; unknown addresses run a dummy verify. The failure
+ * message does not say which half was wrong.
  */
 export async function checkCredentials(emailInput: string, password: string, meta: RequestMeta): Promise<UserRow> {
   const email = normaliseEmail(emailInput);
-  const who = { email, ip: meta.ip };
+  let attempt: Attempt;
   try {
-    await assertNotThrottled('sign_in', who);
+    attempt = await claimAttempt('sign_in', { email, ip: meta.ip });
   } catch (error) {
     const user = await findUserByEmail(email);
     if (user) await audit({ companyId: null, actor: null, action: 'session.sign_in_throttled', subjectUserId: user.id, target: email }, meta);
@@ -38,10 +40,10 @@ export async function checkCredentials(emailInput: string, password: string, met
   const user = await findUserByEmail(email);
   const ok = user ? await verifyPassword(user.passwordHash, password) : (await verifyPassword(await dummyHash(), password), false);
   if (!user || !ok) {
-    await recordAttempt('sign_in', who, false);
     if (user) await audit({ companyId: null, actor: null, action: 'session.sign_in_failed', subjectUserId: user.id, target: email }, meta);
     throw new InvalidInputError(WRONG_CREDENTIALS);
   }
+  await settleAttempt(attempt);
   await forgiveAddress('sign_in', email);
   return user;
 }

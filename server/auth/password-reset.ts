@@ -2,14 +2,14 @@ import 'server-only';
 import { models } from '@/db/models';
 import { getEnv } from '@/server/env';
 import { InvalidInputError } from '@/server/errors';
-import { findUserByEmail, findUserById, normaliseEmail, setUserPassword } from '@/db/queries/users';
-import { createPasswordResetToken, deleteStaleResetTokens, findResetTokenByHash, markResetTokenUsed } from '@/db/queries/password-resets';
+import { findUserByEmail, findUserById, lockUser, normaliseEmail, setUserPassword } from '@/db/queries/users';
+import { deleteStaleResetTokens, findResetTokenByHash, markResetTokenUsed, replaceResetTokens } from '@/db/queries/password-resets';
 import { deleteAllUserSessions } from '@/db/queries/sessions';
 import { sendMail } from '@/server/mail/send';
 import { passwordResetMail } from '@/server/mail/templates/password-reset';
 import { hashPassword } from './password';
 import { hashToken, newToken } from './tokens';
-import { assertNotThrottled, forgiveAddress, recordAttempt } from './throttle';
+import { claimAttempt, forgiveAddress, settleAttempt } from './throttle';
 import { audit } from './audit';
 import type { RequestMeta } from './request-meta';
 
@@ -29,22 +29,32 @@ const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
 export async function requestPasswordReset(emailInput: string, meta: RequestMeta): Promise<string> {
   const started = Date.now();
   const email = normaliseEmail(emailInput);
-  await assertNotThrottled('reset_request', { email, ip: meta.ip });
-  await recordAttempt('reset_request', { email, ip: meta.ip }, true);
+  const attempt = await claimAttempt('reset_request', { email, ip: meta.ip });
   const user = await findUserByEmail(email);
   if (user) {
     const token = newToken();
     const expiresAt = new Date(Date.now() + RESET_LINK_MINUTES * 60_000);
     await deleteStaleResetTokens();
-    await createPasswordResetToken({ userId: user.id, tokenHash: hashToken(token), expiresAt, requestedIp: meta.ip });
-    await audit({ companyId: null, actor: null, action: 'password.reset_requested', subjectUserId: user.id, target: user.email }, meta);
-    try {
-      const url = `${getEnv().APP_URL.replace(/\/$/, '')}/reset-password/${token}`;
-      await sendMail({ to: user.email, ...passwordResetMail({ name: user.name, resetUrl: url, expiresAt }) });
-    } catch (error) {
-      console.error('password reset mail not sent:', (error as Error).message);
+    // One transaction with the person's row locked: two requests at once queue here instead of
+    // deadlocking, the later one retires the earlier link, and the link exists only if its
+    // audit row does too.
+    const { sequelize } = models();
+    const stored = await sequelize.transaction(async (t) => {
+      if (!(await lockUser(user.id, t))) return false; // deleted a moment ago
+      await replaceResetTokens({ userId: user.id, tokenHash: hashToken(token), expiresAt, requestedIp: meta.ip }, t);
+      await audit({ companyId: null, actor: null, action: 'password.reset_requested', subjectUserId: user.id, target: user.email }, meta, t);
+      return true;
+    });
+    if (stored) {
+      try {
+        const url = `${getEnv().APP_URL.replace(/\/$/, '')}/reset-password/${token}`;
+        await sendMail({ to: user.email, ...passwordResetMail({ name: user.name, resetUrl: url, expiresAt }) });
+      } catch (error) {
+        console.error('password reset mail not sent:', (error as Error).message);
+      }
     }
   }
+  await settleAttempt(attempt);
   const left = RESET_RESPONSE_FLOOR_MS - (Date.now() - started);
   if (left > 0) await sleep(left);
   return RESET_REQUESTED_MESSAGE;
@@ -61,17 +71,20 @@ export async function inspectResetLink(token: string): Promise<ResetLinkState> {
 }
 
 /**
- * Sets the new password and spends the link, in one transaction with the link row locked, so
+ * Sets the new password and spends the link, in one transaction with the person and link rows locked, so
  * two tabs submitting at once cannot both use it. Every session of the person ends.
  */
 export async function resetPassword(token: string, password: string, meta: RequestMeta): Promise<{ email: string }> {
   const passwordHash = await hashPassword(password);
   const { sequelize } = models();
   const email = await sequelize.transaction(async (t) => {
-    const row = await findResetTokenByHash(hashToken(token), t, true);
-    if (!row || row.usedAt || row.expiresAt.getTime() <= Date.now()) throw new InvalidInputError(RESET_LINK_DEAD);
-    const user = await findUserById(row.userId, t);
+    // Person first, then link: the same order as requestPasswordReset, so the two never deadlock.
+    const seen = await findResetTokenByHash(hashToken(token), t);
+    if (!seen) throw new InvalidInputError(RESET_LINK_DEAD);
+    const user = await lockUser(seen.userId, t);
     if (!user) throw new InvalidInputError(RESET_LINK_DEAD);
+    const row = await findResetTokenByHash(hashToken(token), t, true);
+    if (!row || row.userId !== user.id || row.usedAt || row.expiresAt.getTime() <= Date.now()) throw new InvalidInputError(RESET_LINK_DEAD);
     await markResetTokenUsed(row.id, t);
     await setUserPassword(user.id, passwordHash, t);
     await deleteAllUserSessions(user.id, t);

@@ -2,11 +2,11 @@ import 'server-only';
 import { UniqueConstraintError } from 'sequelize';
 import { models } from '@/db/models';
 import { InvalidInputError } from '@/server/errors';
-import { createUser, findUserByEmail } from '@/db/queries/users';
+import { createUser, findUserByEmail, normaliseEmail } from '@/db/queries/users';
 import { createCompany, findPlanByCode } from '@/db/queries/companies';
 import { addMembership } from '@/db/queries/team';
 import { hashPassword } from './password';
-import { assertNotThrottled, recordAttempt } from './throttle';
+import { claimAttempt, settleAttempt } from './throttle';
 import { audit } from './audit';
 import type { RequestMeta } from './request-meta';
 
@@ -21,7 +21,8 @@ export async function signUpCompany(
   input: { name: string; companyName: string; email: string; password: string },
   meta: RequestMeta,
 ): Promise<{ userId: string; companyId: number }> {
-  await assertNotThrottled('sign_up', { email: null, ip: meta.ip });
+  // Every attempt that passes the throttle counts, taken address or not (see THROTTLE_RULES).
+  const attempt = await claimAttempt('sign_up', { email: normaliseEmail(input.email), ip: meta.ip });
   if (await findUserByEmail(input.email)) throw new InvalidInputError(EMAIL_TAKEN, { email: [EMAIL_TAKEN] });
   const passwordHash = await hashPassword(input.password);
   const { sequelize } = models();
@@ -40,7 +41,7 @@ export async function signUpCompany(
       );
       return { userId: user.id, companyId: company.id };
     });
-    await recordAttempt('sign_up', { email: null, ip: meta.ip }, true);
+    await settleAttempt(attempt);
     return result;
   } catch (error) {
     // Two sign-ups with one address at once: the unique index decides, the loser hears why.
