@@ -1,5 +1,5 @@
 import { test, expect, type Page } from '@playwright/test';
-import AxeBuilder from '@axe-core/playwright';
+import { seriousViolations } from './support/axe';
 import { DEMO_PASSWORD, DEMO_USERS } from '../../db/demo/accounts';
 import { DEMO_SERVICES, DEMO_CLIMATES } from '../../db/demo/studies';
 
@@ -21,10 +21,6 @@ async function signIn(page: Page, email: string) {
   await page.waitForURL((u) => !u.pathname.startsWith('/sign-in'));
 }
 
-async function seriousViolations(page: Page) {
-  const results = await new AxeBuilder({ page }).withTags(['wcag2a', 'wcag2aa']).analyze();
-  return results.violations.filter((v) => v.impact === 'serious' || v.impact === 'critical').map((v) => `${v.id}: ${v.nodes.map((n) => n.target.join(' ')).join(', ')}`);
-}
 
 test('an installer builds a study from the form and reads the trade-off', async ({ page }) => {
   const id = stamp();
