@@ -1,7 +1,8 @@
 import { test, expect, type Browser, type Page } from '@playwright/test';
 import { seriousViolations } from './support/axe';
+import { signIn } from './support/sign-in';
 import { mkdirSync } from 'node:fs';
-import { DEMO_PASSWORD, DEMO_USERS } from '../../db/demo/accounts';
+import { DEMO_USERS } from '../../db/demo/accounts';
 import { DEMO_CLIMATES, DEMO_SERVICES } from '../../db/demo/studies';
 
 /**
@@ -17,14 +18,6 @@ const admin = DEMO_USERS.find((u) => u.role === 'admin' && u.company === 'quillf
 const MAIL_API = `http://127.0.0.1:${process.env.MAIL_WEB_PORT ?? '1081'}/api/email`;
 const SHOTS = '.local/screenshots';
 const stamp = () => `${Date.now().toString(36)}${Math.floor(Math.random() * 1e4)}`;
-
-async function signIn(page: Page, email: string) {
-  await page.goto('/sign-in');
-  await page.getByLabel('E-mail address').fill(email);
-  await page.getByLabel('Password').fill(DEMO_PASSWORD);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.waitForURL((u) => !u.pathname.startsWith('/sign-in'));
-}
 
 
 /** Full-page screenshots at a desktop and a phone width. */

@@ -1,6 +1,7 @@
 import { test, expect, type Browser, type Page } from '@playwright/test';
-import AxeBuilder from '@axe-core/playwright';
-import { DEMO_PASSWORD, DEMO_USERS } from '../../db/demo/accounts';
+import { seriousViolations } from './support/axe';
+import { signIn } from './support/sign-in';
+import { DEMO_USERS } from '../../db/demo/accounts';
 
 /**
  * Records in chromium against the running app and the seeded demo scenario: another company's
@@ -11,24 +12,12 @@ import { DEMO_PASSWORD, DEMO_USERS } from '../../db/demo/accounts';
 const user = (role: string, company = 'quillfeather') => DEMO_USERS.find((u) => u.role === role && u.company === company)!;
 const stamp = () => `${Date.now().toString(36)}${Math.floor(Math.random() * 1e4)}`;
 
-async function signIn(page: Page, email: string) {
-  await page.goto('/sign-in');
-  await page.getByLabel('E-mail address').fill(email);
-  await page.getByLabel('Password').fill(DEMO_PASSWORD);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.waitForURL((u) => !u.pathname.startsWith('/sign-in'));
-}
-
 async function newSignedInPage(browser: Browser, email: string) {
   const page = await (await browser.newContext()).newPage();
   await signIn(page, email);
   return page;
 }
 
-async function seriousViolations(page: Page) {
-  const results = await new AxeBuilder({ page }).withTags(['wcag2a', 'wcag2aa']).analyze();
-  return results.violations.filter((v) => v.impact === 'serious' || v.impact === 'critical').map((v) => `${v.id}: ${v.nodes.map((n) => n.target.join(' ')).join(', ')}`);
-}
 
 test('another company’s study and quote answer HTTP 404, not a streamed 200', async ({ page, browser }) => {
   await signIn(page, user('installer').email);

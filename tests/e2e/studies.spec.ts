@@ -1,6 +1,7 @@
 import { test, expect, type Page } from '@playwright/test';
 import { seriousViolations } from './support/axe';
-import { DEMO_PASSWORD, DEMO_USERS } from '../../db/demo/accounts';
+import { signIn } from './support/sign-in';
+import { DEMO_USERS } from '../../db/demo/accounts';
 import { DEMO_SERVICES, DEMO_CLIMATES } from '../../db/demo/studies';
 
 /**
@@ -12,14 +13,6 @@ import { DEMO_SERVICES, DEMO_CLIMATES } from '../../db/demo/studies';
 const installer = DEMO_USERS.find((u) => u.role === 'installer' && u.company === 'quillfeather')!;
 const sales = DEMO_USERS.find((u) => u.role === 'sales' && u.company === 'quillfeather')!;
 const stamp = () => `${Date.now().toString(36)}${Math.floor(Math.random() * 1e4)}`;
-
-async function signIn(page: Page, email: string) {
-  await page.goto('/sign-in');
-  await page.getByLabel('E-mail address').fill(email);
-  await page.getByLabel('Password').fill(DEMO_PASSWORD);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.waitForURL((u) => !u.pathname.startsWith('/sign-in'));
-}
 
 
 test('an installer builds a study from the form and reads the trade-off', async ({ page }) => {
