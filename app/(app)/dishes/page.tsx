@@ -1,6 +1,7 @@
 import type { Metadata } from 'next';
 import { PageHeader } from '@/components/ui/page-header';
 import { Card, CardBody, CardHeader } from '@/components/ui/card';
+import { EditListCard } from '@/components/ui/edit-list-card';
 import { EmptyRow, Table, TBody, THead, Td, Th } from '@/components/ui/table';
 import { DishForm } from '@/components/catalogue/dish-form';
 import { DeleteRowButton } from '@/components/catalogue/delete-button';
@@ -69,28 +70,21 @@ export default async function DishesPage() {
           </CardBody>
         </Card>
         {admin && dishes.length > 0 && (
-          <Card aria-labelledby="edit-dishes-title">
-            <CardHeader id="edit-dishes-title" title="Edit the catalogue" description="Open a dish to change it, take it out of new studies, or delete it." />
-            <CardBody>
-              <ul className="divide-y divide-stone-200">
-                {dishes.map((d) => (
-                  <li key={d.id}>
-                    <details className="group py-2">
-                      <summary className="flex cursor-pointer items-center justify-between gap-3 text-sm">
-                        <span className="font-medium text-stone-900">{d.name}</span>
-                        <span className="text-ledger-700 group-open:hidden">Edit</span>
-                        <span className="hidden text-stone-600 group-open:inline">Close</span>
-                      </summary>
-                      <div className="mt-3 space-y-3">
-                        <DishForm dish={{ id: d.id, name: d.name, diameterM: d.diameterM, efficiency: d.efficiency, hardwarePrice: d.hardwarePrice, labourPrice: d.labourPrice, mountNotes: d.mountNotes, active: d.active }} />
-                        <DeleteRowButton action={deleteDish} id={d.id} label={`Delete ${d.name}`} confirmText={`Delete ${d.name} from the catalogue? Studies made with it keep their own copy.`} />
-                      </div>
-                    </details>
-                  </li>
-                ))}
-              </ul>
-            </CardBody>
-          </Card>
+          <EditListCard
+            id="edit-dishes-title"
+            title="Edit the catalogue"
+            description="Open a dish to change it, take it out of new studies, or delete it."
+            rows={dishes.map((d) => ({
+              id: d.id,
+              name: d.name,
+              editor: (
+                <>
+                  <DishForm dish={{ id: d.id, name: d.name, diameterM: d.diameterM, efficiency: d.efficiency, hardwarePrice: d.hardwarePrice, labourPrice: d.labourPrice, mountNotes: d.mountNotes, active: d.active }} />
+                  <DeleteRowButton action={deleteDish} id={d.id} label={`Delete ${d.name}`} confirmText={`Delete ${d.name} from the catalogue? Studies made with it keep their own copy.`} />
+                </>
+              ),
+            }))}
+          />
         )}
         {admin && (
           <div className="grid gap-6 xl:grid-cols-2">

@@ -1,6 +1,7 @@
 import type { Metadata } from 'next';
 import { PageHeader } from '@/components/ui/page-header';
 import { Card, CardBody, CardHeader } from '@/components/ui/card';
+import { EditListCard } from '@/components/ui/edit-list-card';
 import { EmptyRow, Table, TBody, THead, Td, Th } from '@/components/ui/table';
 import { ServiceForm, type ServiceFormValues } from '@/components/services/service-form';
 import { DeleteRowButton } from '@/components/catalogue/delete-button';
@@ -105,28 +106,21 @@ export default async function ServicesPage() {
           </CardBody>
         </Card>
         {write && rows.length > 0 && (
-          <Card aria-labelledby="edit-services-title">
-            <CardHeader id="edit-services-title" title="Edit a service" description="Studies made earlier keep the figures they were computed with." />
-            <CardBody>
-              <ul className="divide-y divide-stone-200">
-                {rows.map((row) => (
-                  <li key={row.id}>
-                    <details className="group py-2">
-                      <summary className="flex cursor-pointer items-center justify-between gap-3 text-sm">
-                        <span className="font-medium text-stone-900">{row.name}</span>
-                        <span className="text-ledger-700 group-open:hidden">Edit</span>
-                        <span className="hidden text-stone-600 group-open:inline">Close</span>
-                      </summary>
-                      <div className="mt-3 space-y-3">
-                        <ServiceForm values={formValuesOf(row)} />
-                        <DeleteRowButton action={deleteServiceProfile} id={row.id} label={`Delete ${row.name}`} confirmText={`Delete the service ${row.name}? Studies made with it keep their own copy.`} />
-                      </div>
-                    </details>
-                  </li>
-                ))}
-              </ul>
-            </CardBody>
-          </Card>
+          <EditListCard
+            id="edit-services-title"
+            title="Edit a service"
+            description="Studies made earlier keep the figures they were computed with."
+            rows={rows.map((row) => ({
+              id: row.id,
+              name: row.name,
+              editor: (
+                <>
+                  <ServiceForm values={formValuesOf(row)} />
+                  <DeleteRowButton action={deleteServiceProfile} id={row.id} label={`Delete ${row.name}`} confirmText={`Delete the service ${row.name}? Studies made with it keep their own copy.`} />
+                </>
+              ),
+            }))}
+          />
         )}
         {write && (
           <Card aria-labelledby="add-service-title">
