@@ -8,24 +8,6 @@ export type InvitationRow = InstanceType<ReturnType<typeof models>['Invitation']
 
 export type PendingInvitation = { id: number; email: string; role: CompanyRole; expiresAt: Date; lastSentAt: Date; sendCount: number; invitedByName: string | null };
 
-export async function listPendingInvitations(companyId: number): Promise<PendingInvitation[]> {
-  const { Invitation, User } = models();
-  const rows = await Invitation.findAll({
-    where: { companyId, ...pendingInvitationWhere() },
-    include: [{ model: User, as: 'invitedBy', required: false }],
-    order: [['createdAt', 'ASC'], ['id', 'ASC']],
-  });
-  return rows.map((r) => ({
-    id: r.id,
-    email: r.email,
-    role: r.role,
-    expiresAt: r.expiresAt,
-    lastSentAt: r.lastSentAt,
-    sendCount: r.sendCount,
-    invitedByName: (r as unknown as { invitedBy: { name: string } | null }).invitedBy?.name ?? null,
-  }));
-}
-
 /** Invitations that are not accepted or revoked, expired ones included (they can be resent). */
 export async function listOpenInvitations(companyId: number): Promise<(PendingInvitation & { expired: boolean })[]> {
   const { Invitation, User } = models();
