@@ -2,11 +2,10 @@
 
 import { createCustomer, updateCustomer } from '@/server/actions/customers';
 import { customerSchema, customerUpdateSchema } from '@/server/validation/customer';
-import { Button } from '@/components/ui/button';
-import { FormStatus } from '@/components/ui/form-status';
 import { TextArea, TextInput } from '@/components/study/form-fields';
 import { useValidatedAction } from '@/components/study/use-validated-action';
 import { useAfterSave } from './use-after-save';
+import { SaveRow } from './save-row';
 
 export type CustomerFormValues = { id: number; name: string; email: string | null; phone: string | null; notes: string | null };
 
@@ -25,17 +24,7 @@ export function CustomerForm({ customer, onSaved, onCancel }: { customer?: Custo
         <TextInput label="Phone (optional)" name="phone" defaultValue={customer?.phone ?? ''} errors={errors.phone} />
         {customer && <TextArea label="Notes (optional)" name="notes" defaultValue={customer.notes ?? ''} errors={errors.notes} className="sm:col-span-3" />}
       </div>
-      <div className="flex flex-wrap items-center gap-3">
-        <Button type="submit" disabled={pending}>
-          {pending ? 'Saving…' : customer ? 'Save customer' : 'Add customer'}
-        </Button>
-        {onCancel && (
-          <Button variant="quiet" onClick={onCancel}>
-            Cancel
-          </Button>
-        )}
-        <FormStatus state={failed ? { ok: false, error: message } : state} />
-      </div>
+      <SaveRow pending={pending} label={customer ? 'Save customer' : 'Add customer'} onCancel={onCancel} state={state} failed={failed} message={message} />
     </form>
   );
 }

@@ -4,11 +4,10 @@ import { useState } from 'react';
 import { createSite, updateSite } from '@/server/actions/sites';
 import { siteSchema, siteUpdateSchema } from '@/server/validation/site';
 import { formatDms, parseCoordinate } from '@/server/validation/coordinates';
-import { Button } from '@/components/ui/button';
-import { FormStatus } from '@/components/ui/form-status';
 import { SelectInput, TextArea, TextInput } from '@/components/study/form-fields';
 import { useValidatedAction } from '@/components/study/use-validated-action';
 import { useAfterSave } from './use-after-save';
+import { SaveRow } from './save-row';
 
 function Echo({ text, axis }: { text: string; axis: 'lat' | 'lon' }) {
   if (!text.trim()) return <>Decimal degrees or DMS, e.g. {axis === 'lat' ? `47°07'24"N` : `2°39'15"E`}</>;
@@ -46,17 +45,7 @@ export function SiteForm({ customers, site, onSaved, onCancel }: { customers: { 
         <TextInput label="Altitude (m above sea level)" name="altitudeM" inputMode="decimal" defaultValue={site ? String(site.altitudeM) : '0'} errors={errors.altitudeM} />
         {site && <TextArea label="Notes (optional)" name="notes" defaultValue={site.notes ?? ''} errors={errors.notes} className="sm:col-span-2 lg:col-span-3" />}
       </div>
-      <div className="flex flex-wrap items-center gap-3">
-        <Button type="submit" disabled={pending}>
-          {pending ? 'Saving…' : site ? 'Save site' : 'Add site'}
-        </Button>
-        {onCancel && (
-          <Button variant="quiet" onClick={onCancel}>
-            Cancel
-          </Button>
-        )}
-        <FormStatus state={failed ? { ok: false, error: message } : state} />
-      </div>
+      <SaveRow pending={pending} label={site ? 'Save site' : 'Add site'} onCancel={onCancel} state={state} failed={failed} message={message} />
     </form>
   );
 }
