@@ -14,7 +14,7 @@ const nextConfig = {
       { key: 'X-Robots-Tag', value: 'noindex, nofollow' },
       { key: 'Referrer-Policy', value: 'no-referrer' },
     ];
-    return ['/share/:path*', '/reset-password/:path*', '/invite/:path*'].map((source) => ({ source, headers: tokenPage }));
+    return ['/share/:path*', '/reset-password/:path*', '/invite/:path*', '/sign-up/confirm/:path*'].map((source) => ({ source, headers: tokenPage }));
   },
   experimental: { serverActions: { bodySizeLimit: '4mb' } },
 };

@@ -3,6 +3,8 @@ import type { AuditAction } from '@/db/queries/audit';
 /** Plain-English names for audit events, shown in the audit log and the security page. */
 export const AUDIT_LABELS: Record<AuditAction, string> = {
   'company.created': 'Created the company account',
+  'sign_up.requested': 'Sign-up requested for',
+  'sign_up.confirmed': 'Confirmed their address and finished signing up',
   'member.invited': 'Invited',
   'invitation.resent': 'Resent the invitation to',
   'invitation.revoked': 'Withdrew the invitation to',

@@ -8,6 +8,7 @@ import { Invitation, initInvitation } from './invitation';
 import { PasswordResetToken, initPasswordResetToken } from './password-reset-token';
 import { SignInAttempt, initSignInAttempt } from './sign-in-attempt';
 import { AuditEvent, initAuditEvent } from './audit-event';
+import { SignupRequest, initSignupRequest } from './signup-request';
 // Studies (part A): customers, sites, services, dish catalogue, climate, uploads, studies.
 import { Customer, initCustomer } from './customer';
 import { Site, initSite } from './site';
@@ -26,7 +27,7 @@ import { QuoteEvent, initQuoteEvent } from './quote-event';
 import { ShareLink, initShareLink } from './share-link';
 
 export { Company, Membership, Plan, Session, User };
-export { Invitation, PasswordResetToken, SignInAttempt, AuditEvent };
+export { Invitation, PasswordResetToken, SignInAttempt, AuditEvent, SignupRequest };
 export type { CompanyRole } from './membership';
 export { Customer, Site, ServiceProfile, Dish, Upload, ClimateProfile, Study };
 export { COMPANY_ROLES } from './membership';
@@ -52,6 +53,7 @@ export function models() {
     initPasswordResetToken(sequelize);
     initSignInAttempt(sequelize);
     initAuditEvent(sequelize);
+    initSignupRequest(sequelize);
 
     Company.belongsTo(Plan, { foreignKey: 'planId', as: 'plan' });
     Membership.belongsTo(Company, { foreignKey: 'companyId', as: 'company' });
@@ -81,5 +83,5 @@ export function models() {
     initShareLink(sequelize);
     ready = true;
   }
-  return { sequelize: getSequelize(), Customer, Site, ServiceProfile, Dish, Upload, ClimateProfile, Study, Plan, Company, User, Membership, Session, Invitation, PasswordResetToken, SignInAttempt, AuditEvent, Subscription, BillingCheckout, WebhookEvent, Quote, QuoteEvent, ShareLink };
+  return { sequelize: getSequelize(), Customer, Site, ServiceProfile, Dish, Upload, ClimateProfile, Study, Plan, Company, User, Membership, Session, Invitation, PasswordResetToken, SignInAttempt, AuditEvent, SignupRequest, Subscription, BillingCheckout, WebhookEvent, Quote, QuoteEvent, ShareLink };
 }

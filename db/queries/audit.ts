@@ -4,6 +4,8 @@ import { models } from '@/db/models';
 
 export type AuditAction =
   | 'company.created'
+  | 'sign_up.requested'
+  | 'sign_up.confirmed'
   | 'member.invited'
   | 'invitation.resent'
   | 'invitation.revoked'

@@ -10,10 +10,11 @@ import {
   resetPasswordSchema,
   safeNextPath,
   signInSchema,
+  signUpConfirmSchema,
   signUpSchema,
 } from '@/server/auth/schemas';
 import { checkCredentials } from '@/server/auth/credentials';
-import { signUpCompany } from '@/server/auth/sign-up';
+import { confirmSignUp as spendSignUpLink, requestSignUp } from '@/server/auth/sign-up';
 import { requestPasswordReset as sendResetLink, resetPassword as spendResetLink } from '@/server/auth/password-reset';
 import { acceptAsExistingUser, acceptAsNewAccount, inspectInvitation } from '@/server/auth/invitations';
 import { endCurrentSession, startSession } from '@/server/auth/session';
@@ -24,10 +25,20 @@ import { audit } from '@/server/auth/audit';
 import { firstMembership } from '@/db/queries/team';
 import { InvalidInputError } from '@/server/errors';
 
-/** Sign up: a new company on the trial plan with the signer as admin, then straight in. */
+/**
+ * Sign up, step one: always the same answer, whether or not the address has an account; the
+ * mail says which (a confirmation link, or "you already have an account").
+ */
 export const signUp = safeAction({ schema: signUpSchema, permission: 'public' }, async (input) => {
+  const message = await requestSignUp(input, await getRequestMeta());
+  return { message };
+});
+
+/** Sign up, step two (the mailed link): a new company on the trial plan with the signer as admin, then in. */
+export const confirmSignUp = safeAction({ schema: signUpConfirmSchema, permission: 'public' }, async (input) => {
   const meta = await getRequestMeta();
-  const { userId, companyId } = await signUpCompany(input, meta);
+  const { userId, companyId } = await spendSignUpLink(input.token, meta);
+  await endCurrentSession();
   await startSession(userId, companyId, meta);
   redirect('/dashboard?welcome=1');
 });

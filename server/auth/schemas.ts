@@ -55,6 +55,7 @@ export const invitationIdSchema = z.object({ invitationId: id });
 export const memberIdSchema = z.object({ membershipId: id });
 export const changeRoleSchema = z.object({ membershipId: id, role: roleField });
 
+export const signUpConfirmSchema = z.object({ token: tokenField });
 export const acceptNewAccountSchema = z.object({ token: tokenField, name: personName, password: newPasswordField });
 export const acceptExistingAccountSchema = z.object({ token: tokenField, password: z.string().max(200).optional() });
 

@@ -24,11 +24,43 @@ async function linkFromMail(to: string, pathPrefix: string, count = 1): Promise<
   }
 }
 
+async function subjectOfMail(to: string, count: number): Promise<string> {
+  const until = Date.now() + 15_000;
+  for (;;) {
+    const res = await fetch(`${MAIL_API}?to.address=${encodeURIComponent(to)}&sort=asc`);
+    const mails = (await res.json()) as { subject: string }[];
+    if (mails.length >= count) return mails[count - 1].subject;
+    if (Date.now() > until) throw new Error(`message ${count} never reached ${to}`);
+    await new Promise((r) => setTimeout(r, 200));
+  }
+}
+
 async function signIn(page: Page, email: string, password: string) {
   await page.goto('/sign-in');
   await page.getByLabel('E-mail address').fill(email);
   await page.getByLabel('Password').fill(password);
   await page.getByRole('button', { name: 'Sign in' }).click();
+}
+
+/**
+ * The sign-up form only says "check your inbox"; the mailed link's page has one button that
+ * creates the company and signs in. Returns the link's path.
+ */
+async function signUpAndConfirm(page: Page, f: { name: string; company: string; email: string; password: string }): Promise<string> {
+  await page.getByLabel('Your name').fill(f.name);
+  await page.getByLabel('Company name').fill(f.company);
+  await page.getByLabel('Work e-mail address').fill(f.email);
+  await page.getByLabel('Password').fill(f.password);
+  await page.getByRole('button', { name: 'Create account' }).click();
+  await expect(page.getByRole('status').filter({ hasText: /\S/ })).toHaveText(`Check your inbox at ${f.email} to finish creating your account.`);
+  await expect(page.getByLabel('Work e-mail address')).toHaveCount(0);
+  const confirmPath = await linkFromMail(f.email, '/sign-up/confirm/');
+  await page.goto(confirmPath);
+  await expect(page.getByRole('heading', { name: 'Finish creating your account' })).toBeVisible();
+  await expect(page.getByText(f.company).first()).toBeVisible();
+  await page.getByRole('button', { name: 'Create the company account' }).click();
+  await expect(page).toHaveURL(/\/dashboard\?welcome=1$/);
+  return confirmPath;
 }
 
 test('sign up, invite a colleague, accept as the colleague, sign in', async ({ browser, page }) => {
@@ -39,13 +71,27 @@ test('sign up, invite a colleague, accept as the colleague, sign in', async ({ b
   await page.goto('/');
   await page.getByRole('link', { name: 'Start a free trial' }).first().click();
   await expect(page).toHaveURL(/\/sign-up$/);
-  await page.getByLabel('Your name').fill('Imogen Drysdale');
-  await page.getByLabel('Company name').fill(`Larkspur Dish Co ${id}`);
-  await page.getByLabel('Work e-mail address').fill(founder);
-  await page.getByLabel('Password').fill('larkspur-founder-pass');
-  await page.getByRole('button', { name: 'Create account' }).click();
-  await expect(page).toHaveURL(/\/dashboard\?welcome=1$/);
+  const confirmPath = await signUpAndConfirm(page, { name: 'Imogen Drysdale', company: `Larkspur Dish Co ${id}`, email: founder, password: 'larkspur-founder-pass' });
   await expect(page.getByText('Your company account is ready')).toBeVisible();
+
+  // The confirmation link works once; a second opening offers a fresh start.
+  const spare = await browser.newContext();
+  const sp = await spare.newPage();
+  const answer = await sp.goto(confirmPath);
+  expect(answer?.headers()['referrer-policy']).toBe('no-referrer');
+  expect(answer?.headers()['x-robots-tag']).toContain('noindex');
+  await expect(sp.getByText('This sign-up link has expired or has already been used')).toBeVisible();
+  await sp.getByRole('link', { name: 'Start again' }).click();
+  await expect(sp).toHaveURL(/\/sign-up$/);
+  // The same address again: the same answer, and a "you already have an account" mail instead of a link.
+  await sp.getByLabel('Your name').fill('Imogen Drysdale');
+  await sp.getByLabel('Company name').fill(`Larkspur Second ${id}`);
+  await sp.getByLabel('Work e-mail address').fill(founder);
+  await sp.getByLabel('Password').fill('another-founder-pass');
+  await sp.getByRole('button', { name: 'Create account' }).click();
+  await expect(sp.getByRole('status').filter({ hasText: /\S/ })).toHaveText(`Check your inbox at ${founder} to finish creating your account.`);
+  expect(await subjectOfMail(founder, 2)).toBe('You already have a FadeLedger account');
+  await spare.close();
 
   const cookies = await page.context().cookies();
   const session = cookies.find((c) => c.name === 'fl_session');
@@ -99,12 +145,7 @@ test('forgotten password: the mailed link sets a new one, once', async ({ page }
   const id = stamp();
   const email = `forgetful-${id}@e2e.example`;
   await page.goto('/sign-up');
-  await page.getByLabel('Your name').fill('Perrin Ashgrove');
-  await page.getByLabel('Company name').fill(`Ashgrove Signal ${id}`);
-  await page.getByLabel('Work e-mail address').fill(email);
-  await page.getByLabel('Password').fill('first-password-here');
-  await page.getByRole('button', { name: 'Create account' }).click();
-  await expect(page).toHaveURL(/\/dashboard/);
+  await signUpAndConfirm(page, { name: 'Perrin Ashgrove', company: `Ashgrove Signal ${id}`, email, password: 'first-password-here' });
   await page.context().clearCookies();
 
   await page.goto('/sign-in');
@@ -114,7 +155,7 @@ test('forgotten password: the mailed link sets a new one, once', async ({ page }
   await page.getByRole('button', { name: 'Send reset link' }).click();
   await expect(page.getByRole('status').filter({ hasText: /\S/ })).toContainText('If an account uses that address');
 
-  const resetPath = await linkFromMail(email, '/reset-password/');
+  const resetPath = await linkFromMail(email, '/reset-password/', 2);
   await page.goto(resetPath);
   await page.getByLabel('New password', { exact: true }).fill('second-password-here');
   await page.getByLabel('New password again').fill('second-password-here');

@@ -5,6 +5,7 @@ import { models } from '@/db/models';
 import { closeSequelize } from '@/db/sequelize';
 import { signUp } from '@/server/actions/auth';
 import { THROTTLE_RULES } from '@/server/auth/throttle';
+import { signUpRequestedMessage } from '@/server/auth/sign-up';
 import { uniqueEmail } from './support/factories';
 
 // Default configuration: TRUST_PROXY unset, so no request has a known IP and the per-IP rule
@@ -18,12 +19,18 @@ beforeEach(() => {
 const form = (email: string) => ({ name: 'Tamsin Vey', companyName: 'Brindlecot Aerials', email, password: 'a-long-enough-pass' });
 
 describe('sign-up throttle when the client IP is unknown', () => {
+  // These attempts land in the shared unknown-IP bucket too: take them out again.
+  const afterThis: string[] = [];
+  afterEach(async () => {
+    await models().SignInAttempt.destroy({ where: { kind: 'sign_up', email: afterThis.splice(0) } });
+  });
+
   it('limits attempts per address (taken or not), then says when to come back', async () => {
     const rule = THROTTLE_RULES.sign_up.perEmail ?? { max: 3, windowMinutes: 60 };
     const email = uniqueEmail('founder');
-    expect((await callAction(signUp, form(email))).redirect).toBe('/dashboard?welcome=1');
-    asSignedOut();
-    for (let i = 1; i < rule.max; i++) expect((await callAction(signUp, form(email))).state).toMatchObject({ ok: false, code: 'invalid_input' });
+    afterThis.push(email);
+    // Every answer within the limit is the same "check your inbox", so counting them tells nothing.
+    for (let i = 0; i < rule.max; i++) expect((await callAction(signUp, form(email))).state).toEqual({ ok: true, message: signUpRequestedMessage(email) });
     const out = await callAction(signUp, form(email));
     expect(out.state).toMatchObject({ ok: false, code: 'rate_limited', error: `Too many sign-up attempts for this address. Try again in ${rule.windowMinutes} minutes.` });
   });
@@ -46,11 +53,10 @@ describe('sign-up throttle when the client IP is unknown', () => {
       planted.push(...rows.map((r) => r.id));
 
       const last = uniqueEmail('last-in');
-      expect((await callAction(signUp, form(last))).redirect).toBe('/dashboard?welcome=1');
-      asSignedOut();
+      expect((await callAction(signUp, form(last))).state).toEqual({ ok: true, message: signUpRequestedMessage(last) });
       const refused = await callAction(signUp, form(uniqueEmail('one-too-many')));
       expect(refused.state).toMatchObject({ ok: false, code: 'rate_limited', error: expect.stringMatching(/^Too many new accounts right now\. Try again in \d+ minutes?\.$/) });
-      planted.push(...(await SignInAttempt.findAll({ where: { kind: 'sign_up', email: last } })).map((r) => r.id));
+      planted.push(...(await SignInAttempt.findAll({ where: { kind: 'sign_up', email: [last] } })).map((r) => r.id));
     });
   });
 });

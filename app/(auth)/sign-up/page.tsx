@@ -3,7 +3,7 @@ import type { Metadata } from 'next';
 import { redirect } from 'next/navigation';
 import { getAuthContext } from '@/server/auth/guards';
 import { findPlanByCode } from '@/db/queries/companies';
-import { TRIAL_PLAN_CODE } from '@/server/auth/sign-up';
+import { SIGN_UP_LINK_HOURS, TRIAL_PLAN_CODE } from '@/server/auth/sign-up';
 import { AuthCard } from '../auth-card';
 import { SignUpForm } from './sign-up-form';
 
@@ -18,7 +18,7 @@ export default async function SignUpPage() {
       title="Start a free trial"
       intro={
         <>
-          A company account for your team, free for {days} days with up to {trial?.seatLimit ?? 5} seats. No card needed. You become its admin and can invite
+          A company account for your team, free for {days} days with up to {trial?.seatLimit ?? 5} seats. No card needed. We e-mail you a link to confirm the address; you become the admin and can invite
           installers and sales colleagues.
         </>
       }
@@ -31,7 +31,7 @@ export default async function SignUpPage() {
         </>
       }
     >
-      <SignUpForm />
+      <SignUpForm linkHours={SIGN_UP_LINK_HOURS} />
     </AuthCard>
   );
 }

@@ -1,4 +1,4 @@
-import { signIn, signOut, signUp, requestPasswordReset, resetPassword, acceptInvitation, acceptInvitationWithAccount } from '@/server/actions/auth';
+import { signIn, signOut, signUp, confirmSignUp, requestPasswordReset, resetPassword, acceptInvitation, acceptInvitationWithAccount } from '@/server/actions/auth';
 import { inviteMember, resendInvitation, revokeInvitation, changeMemberRole, removeMember } from '@/server/actions/team';
 import { revokeSession, signOutEverywhere, changePassword, switchCompany } from '@/server/actions/security';
 import { GET as getMe } from '@/app/api/v1/me/route';
@@ -16,6 +16,8 @@ const ADMIN = ['admin'] as const;
 /** The account layer's rows. */
 export const cases: MatrixCase[] = [
   actionCase({ file: 'auth', exportName: 'signUp', action: signUp, access: 'public', allow: EVERYONE, input: () => ({ name: 'Matrix Founder', companyName: 'Matrix Trial Co', email: uniqueEmail('matrix-signup'), password: 'matrix-password-1' }) }),
+  // A spent-looking token: the action is open to everyone and answers "link no longer works".
+  actionCase({ file: 'auth', exportName: 'confirmSignUp', action: confirmSignUp, access: 'public', allow: EVERYONE, input: () => ({ token: 'B'.repeat(43) }) }),
   actionCase({
     file: 'auth',
     exportName: 'signIn',
