@@ -16,7 +16,10 @@ afterAll(async () => {
 });
 beforeEach(() => asSignedOut());
 
-const ip = () => `203.0.113.${Math.floor(Math.random() * 250) + 1}`;
+// A fresh address for every call (a random start, then one up each time): two tests of this file
+// drawing the same address at random would share a throttle bucket and fail each other.
+let nextIp = Math.floor(Math.random() * 250);
+const ip = () => `203.0.113.${(nextIp++ % 250) + 1}`;
 const errorOf = (out: Awaited<ReturnType<typeof callAction>>) => (out.state && !out.state.ok ? out.state : null);
 
 describe('sign-in throttle per address', () => {
