@@ -1,0 +1,16 @@
+'use server';
+
+import { safeAction } from './safe-action';
+import { campaignSchema } from '@/server/validation/campaign';
+import { runCampaign, type CampaignResponse } from '@/server/campaigns/run-campaign';
+
+/**
+ * Upgrade campaign: a CSV of existing customer sites → for each, the current dish's outage and
+ * the smallest catalogue dish meeting the target. Admins and installers (study.write); computed
+ * on request, nothing stored.
+ */
+export const computeUpgradeCampaign = safeAction({ schema: campaignSchema, permission: 'study.write' }, async (input, ctx) => {
+  const data: CampaignResponse = await runCampaign(ctx.companyId, input);
+  const c = data.counts;
+  return { data, message: `${c.computed} of ${c.rows} site${c.rows === 1 ? '' : 's'} computed: ${c.upgrade} to upgrade, ${c.alreadyMeetsTarget} already meeting the target, ${c.noneMeetsTarget} with no dish meeting it, ${c.problems} problem${c.problems === 1 ? '' : 's'}.` };
+});

@@ -1,0 +1,143 @@
+import { dishTradeoff, isEngineInputError } from '@/server/engine';
+import type { OutageFigures } from '@/server/engine';
+import type { TradeoffOption, TradeoffResult } from '@/server/engine/tradeoff-types';
+import { buildScenario } from '@/server/studies/build-scenario';
+import type { ClimateSnapshot, DishSnapshot, ServiceSnapshot } from '@/server/studies/snapshot';
+import type { CsvProblem } from '@/server/uploads/csv-table';
+import type { CampaignSiteRow } from './campaign-csv';
+
+export type CampaignVerdict = 'upgrade' | 'already-meets-target' | 'none-meets-target';
+
+/** One site of the campaign, computed. Minutes are per average year (ITU-R P.618 statistics). */
+export interface CampaignResultRow {
+  line: number;
+  siteRef: string;
+  currentDishCm: number;
+  currentDishName: string;
+  currentOutageMinutesPerYear: number;
+  currentAvailabilityPercent: number;
+  verdict: CampaignVerdict;
+  recommendedDishName: string | null;
+  recommendedDishCm: number | null;
+  recommendedOutageMinutesPerYear: number | null;
+  minutesSavedPerYear: number | null;
+  /** Hardware + labour of the recommended dish, USD (exact decimal string); null when no upgrade. */
+  upgradePriceUsd: string | null;
+}
+
+export interface CampaignOutcome {
+  results: CampaignResultRow[];
+  problems: CsvProblem[];
+  counts: { rows: number; computed: number; upgrade: number; alreadyMeetsTarget: number; noneMeetsTarget: number; problems: number };
+}
+
+/** Diameter in whole centimetres: the way installers name dishes ("a 90"). */
+const cmOf = (diameterM: number) => Math.round(diameterM * 100);
+
+/** The outage the recommendation is made on: two-way when the service has an uplink (engine.md §4). */
+function basisFigures(result: TradeoffResult, option: TradeoffOption): OutageFigures {
+  return result.recommendation.basis === 'two-way' && option.twoWay ? option.twoWay : option;
+}
+
+const PLAIN: [RegExp, string][] = [[/below the horizon/, 'the satellite is below the horizon at this site; no dish can see it. Check the coordinates or the service.']];
+
+function engineProblem(line: number, error: unknown): CsvProblem {
+  if (!isEngineInputError(error)) throw error;
+  const plain = PLAIN.find(([re]) => re.test(error.message))?.[1];
+  return { line, message: `Line ${line}: ${plain ?? `cannot be computed (${error.message}).`}` };
+}
+
+/**
+ * Every site of a campaign through the engine, with the same scenario building as a study
+ * (buildScenario), over the company's active catalogue. Pure: no database. A site the engine
+ * refuses, or whose current dish is not in the catalogue, becomes a problem on its line; the
+ * others go on.
+ */
+export function computeCampaign(o: {
+  rows: CampaignSiteRow[];
+  service: ServiceSnapshot;
+  climate: ClimateSnapshot;
+  dishes: DishSnapshot[];
+  targetAvailabilityPercent: number;
+  /** Problems found while reading the file, merged by line into the outcome. */
+  fileProblems?: CsvProblem[];
+  rowCount?: number;
+}): CampaignOutcome {
+  const problems: CsvProblem[] = [...(o.fileProblems ?? [])];
+  const results: CampaignResultRow[] = [];
+  const sizes = [...new Set(o.dishes.map((d) => cmOf(d.diameterM)))].sort((a, b) => a - b).join(', ');
+  for (const row of o.rows) {
+    let built: ReturnType<typeof buildScenario>;
+    let result: TradeoffResult;
+    try {
+      built = buildScenario({
+        site: { id: null, name: row.siteRef, customerId: null, customerName: '', latDeg: row.latDeg, lonDeg: row.lonDeg, altitudeM: row.altitudeM },
+        service: o.service,
+        climate: o.climate,
+        dishes: o.dishes,
+        targetAvailabilityPercent: o.targetAvailabilityPercent,
+      });
+      result = dishTradeoff(built.scenario);
+    } catch (e) {
+      problems.push(engineProblem(row.line, e));
+      continue;
+    }
+    // Options come back in the scenario's order, which is buildScenario's sorted dish list.
+    const currentIndex = built.dishes.findIndex((d) => cmOf(d.diameterM) === Math.round(row.currentDishCm));
+    if (currentIndex < 0) {
+      problems.push({ line: row.line, column: 'current_dish_cm', message: `Line ${row.line}, current_dish_cm: no active catalogue dish is ${row.currentDishCm} cm (the catalogue has ${sizes || 'no active dishes'} cm).` });
+      continue;
+    }
+    const current = basisFigures(result, result.options[currentIndex]);
+    const currentMeets = result.options[currentIndex].meetsTarget === true;
+    // The engine's pick (smallest meeting the target); should a smaller dish of better efficiency
+    // meet it while the current one does not, an upgrade is still a larger dish.
+    const enginePick = result.recommendation.smallestMeetingTargetIndex;
+    const currentDiameter = built.dishes[currentIndex].diameterM;
+    const rec =
+      enginePick !== null && built.dishes[enginePick].diameterM > currentDiameter
+        ? enginePick
+        : (() => {
+            const i = result.options.findIndex((opt, k) => opt.meetsTarget === true && built.dishes[k].diameterM > currentDiameter);
+            return i < 0 ? null : i;
+          })();
+    const base = {
+      line: row.line,
+      siteRef: row.siteRef,
+      currentDishCm: cmOf(built.dishes[currentIndex].diameterM),
+      currentDishName: built.dishes[currentIndex].name,
+      currentOutageMinutesPerYear: current.outageMinutesPerYear,
+      currentAvailabilityPercent: current.availabilityPercent,
+    };
+    if (currentMeets) {
+      results.push({ ...base, verdict: 'already-meets-target', recommendedDishName: null, recommendedDishCm: null, recommendedOutageMinutesPerYear: null, minutesSavedPerYear: null, upgradePriceUsd: null });
+    } else if (rec === null) {
+      results.push({ ...base, verdict: 'none-meets-target', recommendedDishName: null, recommendedDishCm: null, recommendedOutageMinutesPerYear: null, minutesSavedPerYear: null, upgradePriceUsd: null });
+    } else {
+      const recommended = basisFigures(result, result.options[rec]);
+      results.push({
+        ...base,
+        verdict: 'upgrade',
+        recommendedDishName: built.dishes[rec].name,
+        recommendedDishCm: cmOf(built.dishes[rec].diameterM),
+        recommendedOutageMinutesPerYear: recommended.outageMinutesPerYear,
+        minutesSavedPerYear: current.outageMinutesPerYear - recommended.outageMinutesPerYear,
+        upgradePriceUsd: result.options[rec].priceUsd,
+      });
+    }
+  }
+  problems.sort((a, b) => (a.line ?? 0) - (b.line ?? 0));
+  const count = (v: CampaignVerdict) => results.filter((r) => r.verdict === v).length;
+  return {
+    results,
+    problems,
+    counts: {
+      rows: o.rowCount ?? o.rows.length,
+      computed: results.length,
+      upgrade: count('upgrade'),
+      alreadyMeetsTarget: count('already-meets-target'),
+      noneMeetsTarget: count('none-meets-target'),
+      problems: problems.length,
+    },
+  };
+}

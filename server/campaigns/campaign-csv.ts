@@ -1,0 +1,102 @@
+import { parseCoordinate } from '@/server/validation/coordinates';
+import { parseDecimalCell, readCsvTable, type CsvProblem } from '@/server/uploads/csv-table';
+import { formatKib } from '@/server/uploads/upload-limits';
+
+/** A campaign file lists existing customer sites; 5 000 rows × a catalogue stays a few seconds of engine time. */
+export const CAMPAIGN_MAX_ROWS = 5000;
+/** 5 000 rows of ~60 characters is about 300 KiB; 512 KiB leaves room for long site references and DMS text. */
+export const CAMPAIGN_MAX_BYTES = 512 * 1024;
+
+export const CAMPAIGN_CSV_COLUMNS = {
+  required: ['site_ref', 'latitude', 'longitude', 'altitude_m', 'current_dish_cm'],
+} as const;
+
+/** One existing site as read from the file (coordinates in decimal degrees, north and east positive). */
+export interface CampaignSiteRow {
+  line: number;
+  siteRef: string;
+  latDeg: number;
+  lonDeg: number;
+  altitudeM: number;
+  currentDishCm: number;
+}
+
+export interface CampaignCsv {
+  rows: CampaignSiteRow[];
+  /** Row problems (with line) and file problems (line null). File problems mean no rows at all. */
+  problems: CsvProblem[];
+  /** Data rows in the file, good and bad. */
+  rowCount: number;
+}
+
+/** Heights people actually install at: below the Dead Sea shore to high plateaus (P.618 accepts any ≥ −0.5 km). */
+const ALTITUDE_M = { min: -500, max: 6000 };
+const DISH_CM = { min: 10, max: 1500 };
+
+/**
+ * Bytes of an uploaded campaign file → text, or the one sentence that says why it cannot be read.
+ * Same rules as the other uploads (UTF-8 text), with the campaign's own size limit.
+ */
+export function readCampaignBytes(bytes: Uint8Array, filename: string): { ok: true; text: string } | { ok: false; error: string } {
+  if (bytes.byteLength === 0) return { ok: false, error: `"${filename}" is empty.` };
+  if (bytes.byteLength > CAMPAIGN_MAX_BYTES) {
+    return { ok: false, error: `"${filename}" is ${formatKib(bytes.byteLength)}; campaign files are limited to ${formatKib(CAMPAIGN_MAX_BYTES)}. Split the file into several campaigns.` };
+  }
+  if (bytes.includes(0)) return { ok: false, error: `"${filename}" is not a text CSV file (it contains binary data). Save it from your spreadsheet as CSV.` };
+  try {
+    return { ok: true, text: new TextDecoder('utf-8', { fatal: true }).decode(bytes) };
+  } catch {
+    return { ok: false, error: `"${filename}" is not UTF-8 text. Save it from your spreadsheet as "CSV UTF-8".` };
+  }
+}
+
+function numberCell(row: { line: number; values: Record<string, string> }, column: string, range: { min: number; max: number }, unit: string, problems: CsvProblem[]): number | null {
+  const cell = row.values[column];
+  if (cell === '') {
+    problems.push({ line: row.line, column, message: `Line ${row.line}, ${column}: a value is required.` });
+    return null;
+  }
+  const n = parseDecimalCell(cell);
+  if (n === null) {
+    problems.push({ line: row.line, column, message: `Line ${row.line}, ${column}: "${cell}" is not a number (use a decimal point, e.g. 120.5).` });
+    return null;
+  }
+  if (n < range.min || n > range.max) {
+    problems.push({ line: row.line, column, message: `Line ${row.line}, ${column}: ${n} ${unit} is outside ${range.min}–${range.max} ${unit}.` });
+    return null;
+  }
+  return n;
+}
+
+/**
+ * A campaign CSV (`site_ref, latitude, longitude, altitude_m, current_dish_cm`) → the sites to
+ * compute and a problem per bad cell, by line. A bad row is left out; the others go on.
+ */
+export function parseCampaignCsv(text: string): CampaignCsv {
+  const table = readCsvTable(text, CAMPAIGN_CSV_COLUMNS);
+  if (table.problems.length && table.rows.length === 0) return { rows: [], problems: table.problems, rowCount: 0 };
+  if (table.rows.length > CAMPAIGN_MAX_ROWS) {
+    return { rows: [], problems: [{ line: null, message: `The file has ${table.rows.length} rows; a campaign takes at most ${CAMPAIGN_MAX_ROWS}. Split it into several files.` }], rowCount: table.rows.length };
+  }
+  const problems: CsvProblem[] = [...table.problems];
+  const rows: CampaignSiteRow[] = [];
+  for (const row of table.rows) {
+    const own: CsvProblem[] = [];
+    const siteRef = row.values.site_ref;
+    if (siteRef === '') own.push({ line: row.line, column: 'site_ref', message: `Line ${row.line}, site_ref: a reference is required.` });
+    else if (siteRef.length > 120) own.push({ line: row.line, column: 'site_ref', message: `Line ${row.line}, site_ref: at most 120 characters.` });
+    const coords = (['latitude', 'longitude'] as const).map((column) => {
+      const r = parseCoordinate(row.values[column], column === 'latitude' ? 'lat' : 'lon');
+      if (!r.ok) own.push({ line: row.line, column, message: `Line ${row.line}, ${column}: ${r.error}` });
+      return r.ok ? r.value : null;
+    });
+    const altitudeM = numberCell(row, 'altitude_m', ALTITUDE_M, 'm', own);
+    const currentDishCm = numberCell(row, 'current_dish_cm', DISH_CM, 'cm', own);
+    if (own.length) {
+      problems.push(...own);
+      continue;
+    }
+    rows.push({ line: row.line, siteRef, latDeg: coords[0]!, lonDeg: coords[1]!, altitudeM: altitudeM!, currentDishCm: currentDishCm! });
+  }
+  return { rows, problems, rowCount: table.rows.length };
+}

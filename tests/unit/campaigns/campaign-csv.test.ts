@@ -1,0 +1,89 @@
+import { describe, expect, it } from 'vitest';
+import Papa from 'papaparse';
+import { CAMPAIGN_MAX_BYTES, CAMPAIGN_MAX_ROWS, parseCampaignCsv, readCampaignBytes } from '@/server/campaigns/campaign-csv';
+import { CAMPAIGN_RESULT_HEADER, campaignResultCsv } from '@/server/campaigns/campaign-result-csv';
+
+// Invented site references and coordinates (demo data).
+const HEADER = 'site_ref,latitude,longitude,altitude_m,current_dish_cm';
+const bytes = (s: string) => new TextEncoder().encode(s);
+
+describe('parseCampaignCsv', () => {
+  it('reads decimal and DMS coordinates, keeping each row its line number', () => {
+    const r = parseCampaignCsv(`${HEADER}\nFW-001,47.25,2.5,180,60\nFW-002,"47°15'00"" N",2 30 0 E,90.5,90\n`);
+    expect(r.problems).toEqual([]);
+    expect(r.rows).toEqual([
+      { line: 2, siteRef: 'FW-001', latDeg: 47.25, lonDeg: 2.5, altitudeM: 180, currentDishCm: 60 },
+      { line: 3, siteRef: 'FW-002', latDeg: 47.25, lonDeg: 2.5, altitudeM: 90.5, currentDishCm: 90 },
+    ]);
+    expect(r.rowCount).toBe(2);
+  });
+
+  it('names the line and column of a bad number and keeps the good rows', () => {
+    const r = parseCampaignCsv(`${HEADER}\nA,47.25,2.5,180,60\nB,47.25,2.5,12,5,90\nC,47.25,2.5,abc,90\nD,47.25,2.5,100,60\n`);
+    expect(r.rows.map((x) => x.siteRef)).toEqual(['A', 'D']);
+    expect(r.problems).toHaveLength(2);
+    expect(r.problems[0]).toMatchObject({ line: 3 });
+    expect(r.problems[1]).toEqual({ line: 4, column: 'altitude_m', message: 'Line 4, altitude_m: "abc" is not a number (use a decimal point, e.g. 120.5).' });
+  });
+
+  it('reports a bad coordinate with the coordinate parser’s own words', () => {
+    const r = parseCampaignCsv(`${HEADER}\nA,12 75 0 N,2.5,100,60\nB,47.25,95 E,100,60\n`);
+    expect(r.rows.map((x) => x.siteRef)).toEqual(['B']);
+    expect(r.problems).toEqual([{ line: 2, column: 'latitude', message: 'Line 2, latitude: Minutes must be below 60.' }]);
+  });
+
+  it('refuses a missing column, naming it, with no rows', () => {
+    const r = parseCampaignCsv('site_ref,latitude,longitude,altitude_m\nA,47.25,2.5,100\n');
+    expect(r.rows).toEqual([]);
+    expect(r.problems).toHaveLength(1);
+    expect(r.problems[0].message).toContain('Missing column: current_dish_cm');
+  });
+
+  it('refuses an empty file and a header without rows', () => {
+    expect(parseCampaignCsv('').problems).toEqual([{ line: null, message: 'The file is empty.' }]);
+    expect(parseCampaignCsv(' \n\n').problems[0].message).toBe('The file is empty.');
+    expect(parseCampaignCsv(`${HEADER}\n`).problems[0].message).toBe('The file has a header line but no data rows.');
+  });
+
+  it('refuses more than the row limit as a whole', () => {
+    const lines = Array.from({ length: CAMPAIGN_MAX_ROWS + 1 }, (_, i) => `S${i},47,2,100,60`);
+    const r = parseCampaignCsv(`${HEADER}\n${lines.join('\n')}\n`);
+    expect(r.rows).toEqual([]);
+    expect(r.problems[0].message).toContain(`at most ${CAMPAIGN_MAX_ROWS}`);
+  });
+
+  it('out-of-range altitude and dish size are line problems', () => {
+    const r = parseCampaignCsv(`${HEADER}\nA,47,2,9000,60\nB,47,2,100,0\n`);
+    expect(r.problems.map((p) => [p.line, p.column])).toEqual([[2, 'altitude_m'], [3, 'current_dish_cm']]);
+  });
+});
+
+describe('readCampaignBytes', () => {
+  it('refuses a file over 512 KiB, naming the limit', () => {
+    const big = new Uint8Array(CAMPAIGN_MAX_BYTES + 1).fill(65);
+    const r = readCampaignBytes(big, 'sites.csv');
+    expect(r).toEqual({ ok: false, error: '"sites.csv" is 513 KiB; campaign files are limited to 512 KiB. Split the file into several campaigns.' });
+  });
+  it('accepts exactly 512 KiB of text, refuses empty, binary and non-UTF-8 files', () => {
+    expect(readCampaignBytes(new Uint8Array(CAMPAIGN_MAX_BYTES).fill(65), 'a.csv').ok).toBe(true);
+    expect(readCampaignBytes(new Uint8Array(0), 'a.csv')).toEqual({ ok: false, error: '"a.csv" is empty.' });
+    expect(readCampaignBytes(bytes('a\u0000b'), 'a.csv').ok).toBe(false);
+    expect(readCampaignBytes(new Uint8Array([0x61, 0xff, 0x62]), 'a.csv')).toMatchObject({ ok: false, error: expect.stringContaining('UTF-8') });
+  });
+});
+
+describe('campaignResultCsv', () => {
+  it('writes a header with units and neutralises spreadsheet formulas in site references', () => {
+    const text = campaignResultCsv(
+      [{ line: 2, siteRef: '=HYPERLINK("x")', currentDishCm: 60, currentDishName: 'D60', currentOutageMinutesPerYear: 812.34, currentAvailabilityPercent: 99.84546, verdict: 'upgrade', recommendedDishName: 'D90', recommendedDishCm: 90, recommendedOutageMinutesPerYear: 300.01, minutesSavedPerYear: 512.33, upgradePriceUsd: '279.00' }],
+      [{ line: 3, message: 'Line 3: bad.' }],
+    );
+    const parsed = Papa.parse<string[]>(text.trim()).data;
+    expect(parsed[0]).toEqual([...CAMPAIGN_RESULT_HEADER]);
+    expect(parsed[0]).toContain('current_outage_min_per_year');
+    expect(parsed[0]).toContain('upgrade_price_usd');
+    expect(parsed[1]).toEqual(['2', `'=HYPERLINK("x")`, 'D60', '60', '812.3', '99.8455', 'upgrade', 'D90', '90', '300.0', '512.3', '279.00']);
+    expect(parsed[2][0]).toBe('3');
+    expect(parsed[2][6]).toBe('not computed: Line 3: bad.');
+  });
+});
