@@ -15,11 +15,14 @@ export interface CampaignResultRow {
   currentDishCm: number;
   currentDishName: string;
   currentOutageMinutesPerYear: number;
+  /** 'below-model-range': the minutes are an upper bound; 'above-model-range': a lower bound (engine convention). */
+  currentOutageBound: OutageFigures['outageBound'];
   currentAvailabilityPercent: number;
   verdict: CampaignVerdict;
   recommendedDishName: string | null;
   recommendedDishCm: number | null;
   recommendedOutageMinutesPerYear: number | null;
+  recommendedOutageBound: OutageFigures['outageBound'] | null;
   minutesSavedPerYear: number | null;
   /** Hardware + labour of the recommended dish, USD (exact decimal string); null when no upgrade. */
   upgradePriceUsd: string | null;
@@ -107,12 +110,13 @@ export function computeCampaign(o: {
       currentDishCm: cmOf(built.dishes[currentIndex].diameterM),
       currentDishName: built.dishes[currentIndex].name,
       currentOutageMinutesPerYear: current.outageMinutesPerYear,
+      currentOutageBound: current.outageBound,
       currentAvailabilityPercent: current.availabilityPercent,
     };
     if (currentMeets) {
-      results.push({ ...base, verdict: 'already-meets-target', recommendedDishName: null, recommendedDishCm: null, recommendedOutageMinutesPerYear: null, minutesSavedPerYear: null, upgradePriceUsd: null });
+      results.push({ ...base, verdict: 'already-meets-target', recommendedDishName: null, recommendedDishCm: null, recommendedOutageMinutesPerYear: null, recommendedOutageBound: null, minutesSavedPerYear: null, upgradePriceUsd: null });
     } else if (rec === null) {
-      results.push({ ...base, verdict: 'none-meets-target', recommendedDishName: null, recommendedDishCm: null, recommendedOutageMinutesPerYear: null, minutesSavedPerYear: null, upgradePriceUsd: null });
+      results.push({ ...base, verdict: 'none-meets-target', recommendedDishName: null, recommendedDishCm: null, recommendedOutageMinutesPerYear: null, recommendedOutageBound: null, minutesSavedPerYear: null, upgradePriceUsd: null });
     } else {
       const recommended = basisFigures(result, result.options[rec]);
       results.push({
@@ -121,6 +125,7 @@ export function computeCampaign(o: {
         recommendedDishName: built.dishes[rec].name,
         recommendedDishCm: cmOf(built.dishes[rec].diameterM),
         recommendedOutageMinutesPerYear: recommended.outageMinutesPerYear,
+        recommendedOutageBound: recommended.outageBound,
         minutesSavedPerYear: current.outageMinutesPerYear - recommended.outageMinutesPerYear,
         upgradePriceUsd: result.options[rec].priceUsd,
       });

@@ -15,14 +15,20 @@ export const CAMPAIGN_RESULT_HEADER = [
   'current_dish',
   'current_dish_cm',
   'current_outage_min_per_year',
+  'current_outage_bound',
   'current_availability_percent',
   'recommendation',
   'recommended_dish',
   'recommended_dish_cm',
   'recommended_outage_min_per_year',
+  'recommended_outage_bound',
   'minutes_saved_per_year',
   'upgrade_price_usd',
 ] as const;
+
+/** Outside the P.618 model range the engine gives a bound, not a value: the file says which way. */
+const BOUND_WORDS = { none: '', 'below-model-range': 'at most', 'above-model-range': 'at least' } as const;
+const boundWords = (b: keyof typeof BOUND_WORDS | null) => (b === null ? '' : BOUND_WORDS[b]);
 
 const fixed = (n: number | null, digits: number) => (n === null ? '' : n.toFixed(digits));
 
@@ -37,18 +43,20 @@ export function campaignResultCsv(results: CampaignResultRow[], problems: { line
     r.currentDishName,
     String(r.currentDishCm),
     fixed(r.currentOutageMinutesPerYear, 1),
+    boundWords(r.currentOutageBound),
     fixed(r.currentAvailabilityPercent, 4),
     VERDICT_WORDS[r.verdict],
     r.recommendedDishName ?? '',
     r.recommendedDishCm === null ? '' : String(r.recommendedDishCm),
     fixed(r.recommendedOutageMinutesPerYear, 1),
+    boundWords(r.recommendedOutageBound),
     fixed(r.minutesSavedPerYear, 1),
     r.upgradePriceUsd ?? '',
   ]);
   for (const p of problems) {
     const row: string[] = new Array(CAMPAIGN_RESULT_HEADER.length).fill('');
     row[0] = p.line === null ? '' : String(p.line);
-    row[6] = `not computed: ${p.message}`;
+    row[CAMPAIGN_RESULT_HEADER.indexOf('recommendation')] = `not computed: ${p.message}`;
     data.push(row);
   }
   return Papa.unparse({ fields: [...CAMPAIGN_RESULT_HEADER], data }, { newline: '\r\n', escapeFormulae: true });

@@ -75,15 +75,15 @@ describe('readCampaignBytes', () => {
 describe('campaignResultCsv', () => {
   it('writes a header with units and neutralises spreadsheet formulas in site references', () => {
     const text = campaignResultCsv(
-      [{ line: 2, siteRef: '=HYPERLINK("x")', currentDishCm: 60, currentDishName: 'D60', currentOutageMinutesPerYear: 812.34, currentAvailabilityPercent: 99.84546, verdict: 'upgrade', recommendedDishName: 'D90', recommendedDishCm: 90, recommendedOutageMinutesPerYear: 300.01, minutesSavedPerYear: 512.33, upgradePriceUsd: '279.00' }],
+      [{ line: 2, siteRef: '=HYPERLINK("x")', currentDishCm: 60, currentDishName: 'D60', currentOutageMinutesPerYear: 812.34, currentOutageBound: 'none', currentAvailabilityPercent: 99.84546, verdict: 'upgrade', recommendedDishName: 'D90', recommendedDishCm: 90, recommendedOutageMinutesPerYear: 300.01, recommendedOutageBound: 'below-model-range', minutesSavedPerYear: 512.33, upgradePriceUsd: '279.00' }],
       [{ line: 3, message: 'Line 3: bad.' }],
     );
     const parsed = Papa.parse<string[]>(text.trim()).data;
     expect(parsed[0]).toEqual([...CAMPAIGN_RESULT_HEADER]);
     expect(parsed[0]).toContain('current_outage_min_per_year');
     expect(parsed[0]).toContain('upgrade_price_usd');
-    expect(parsed[1]).toEqual(['2', `'=HYPERLINK("x")`, 'D60', '60', '812.3', '99.8455', 'upgrade', 'D90', '90', '300.0', '512.3', '279.00']);
+    expect(parsed[1]).toEqual(['2', `'=HYPERLINK("x")`, 'D60', '60', '812.3', '', '99.8455', 'upgrade', 'D90', '90', '300.0', 'at most', '512.3', '279.00']);
     expect(parsed[2][0]).toBe('3');
-    expect(parsed[2][6]).toBe('not computed: Line 3: bad.');
+    expect(parsed[2][CAMPAIGN_RESULT_HEADER.indexOf('recommendation')]).toBe('not computed: Line 3: bad.');
   });
 });
