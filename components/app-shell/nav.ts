@@ -11,6 +11,7 @@ export const NAV: readonly NavItem[] = [
   { label: 'Quotes', href: '/quotes', permission: 'quote.read', section: 'work' },
   { label: 'Customers', href: '/customers', permission: 'customer.read', section: 'work' },
   { label: 'Sites', href: '/sites', permission: 'customer.read', section: 'work' },
+  { label: 'Campaigns', href: '/campaigns', permission: 'study.write', section: 'work' },
   { label: 'Dishes', href: '/dishes', permission: 'study.read', section: 'setup' },
   { label: 'Climate', href: '/climate', permission: 'study.read', section: 'setup' },
   { label: 'Services', href: '/services', permission: 'study.read', section: 'setup' },

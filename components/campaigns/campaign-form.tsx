@@ -1,0 +1,182 @@
+'use client';
+
+import { startTransition, useActionState, useRef, useState } from 'react';
+import type { ActionState } from '@/server/actions/safe-action';
+import type { CampaignResponse } from '@/server/campaigns/run-campaign';
+import { CAMPAIGN_MAX_BYTES, CAMPAIGN_MAX_ROWS } from '@/server/campaigns/campaign-csv';
+import { verdictWords } from '@/server/campaigns/campaign-result-csv';
+import { Button } from '@/components/ui/button';
+import { FormStatus } from '@/components/ui/form-status';
+import { Table, TBody, THead, Td, Th } from '@/components/ui/table';
+import { INPUT_CLASSES, SelectInput, TextInput } from '@/components/study/form-fields';
+import { availabilityText, fixed, minutesText, usd } from '@/components/study/format';
+
+type Act = (prev: ActionState<CampaignResponse> | null, input: FormData) => Promise<ActionState<CampaignResponse>>;
+export type CampaignChoices = { services: { value: string; label: string }[]; climates: { value: string; label: string }[] };
+
+/** The result file is made on the server; the browser only saves it (nothing is kept on our side). */
+function download(data: CampaignResponse) {
+  const url = URL.createObjectURL(new Blob([data.csv], { type: 'text/csv;charset=utf-8' }));
+  const a = document.createElement('a');
+  a.href = url;
+  a.download = data.csvFilename;
+  document.body.appendChild(a);
+  a.click();
+  a.remove();
+  URL.revokeObjectURL(url);
+}
+
+function Counts({ data }: { data: CampaignResponse }) {
+  const c = data.counts;
+  const items: [string, number][] = [
+    ['sites in the file', c.rows],
+    ['computed', c.computed],
+    ['to upgrade', c.upgrade],
+    ['already meet the target', c.alreadyMeetsTarget],
+    ['no dish meets the target', c.noneMeetsTarget],
+    ['problems', c.problems],
+  ];
+  return (
+    <dl className="grid grid-cols-2 gap-3 sm:grid-cols-3 lg:grid-cols-6">
+      {items.map(([label, n]) => (
+        <div key={label} className="rounded border border-stone-200 px-3 py-2">
+          <dt className="text-xs text-stone-600">{label}</dt>
+          <dd className="num text-lg font-semibold text-stone-900">{n.toLocaleString('en-US')}</dd>
+        </div>
+      ))}
+    </dl>
+  );
+}
+
+function Results({ data }: { data: CampaignResponse }) {
+  const shown = data.results.length;
+  return (
+    <div className="mt-6 space-y-4" aria-live="polite">
+      <div className="flex flex-wrap items-center justify-between gap-3">
+        <p className="text-sm text-stone-700">
+          <strong>{data.filename}</strong> with {data.serviceName}, {data.climateName}, target {fixed(data.targetAvailabilityPercent, 3)} %, over {data.dishCount} active dish{data.dishCount === 1 ? '' : 'es'}.
+        </p>
+        <Button variant="secondary" onClick={() => download(data)}>
+          Download all results (CSV)
+        </Button>
+      </div>
+      <Counts data={data} />
+      {data.problems.length > 0 && (
+        <div>
+          <h3 className="text-sm font-semibold text-stone-900">Rows not computed</h3>
+          <ul className="mt-1 max-h-48 list-disc space-y-0.5 overflow-auto rounded border border-red-200 bg-red-50 py-2 pl-8 pr-3 text-sm text-red-800">
+            {data.problems.map((p, i) => (
+              <li key={i}>{p.message}</li>
+            ))}
+            {data.counts.problems > data.problems.length && <li>…and {data.counts.problems - data.problems.length} more, all listed in the CSV.</li>}
+          </ul>
+        </div>
+      )}
+      {shown > 0 && (
+        <>
+          {data.counts.computed > shown && <p className="text-xs text-stone-600">The first {shown} of {data.counts.computed} computed sites; the CSV has them all.</p>}
+          <Table caption="Upgrade recommendation per site">
+            <THead>
+              <tr>
+                <Th numeric className="hidden sm:table-cell">Line</Th>
+                <Th>Site</Th>
+                <Th numeric>Current dish</Th>
+                <Th numeric>Outage now (min/year)</Th>
+                <Th numeric className="hidden md:table-cell">Availability now</Th>
+                <Th>Recommendation</Th>
+                <Th numeric className="hidden md:table-cell">Outage after (min/year)</Th>
+                <Th numeric>Saved (min/year)</Th>
+                <Th numeric>Upgrade price</Th>
+              </tr>
+            </THead>
+            <TBody>
+              {data.results.map((r) => (
+                <tr key={r.line}>
+                  <Td numeric className="hidden sm:table-cell">{r.line}</Td>
+                  <Th scope="row" className="font-medium text-stone-900">{r.siteRef}</Th>
+                  <Td numeric className="whitespace-nowrap">{r.currentDishCm} cm</Td>
+                  <Td numeric className="whitespace-nowrap">{minutesText(r.currentOutageMinutesPerYear, r.currentOutageBound)}</Td>
+                  <Td numeric className="hidden whitespace-nowrap md:table-cell">{availabilityText({ availabilityPercent: r.currentAvailabilityPercent, outageBound: r.currentOutageBound })}</Td>
+                  <Td>{r.verdict === 'upgrade' ? <span className="font-medium text-ledger-800">{r.recommendedDishCm} cm · {r.recommendedDishName}</span> : <span className="text-stone-600">{verdictWords(r.verdict)}</span>}</Td>
+                  <Td numeric className="hidden whitespace-nowrap md:table-cell">{r.recommendedOutageMinutesPerYear === null || r.recommendedOutageBound === null ? '—' : minutesText(r.recommendedOutageMinutesPerYear, r.recommendedOutageBound)}</Td>
+                  <Td numeric className="whitespace-nowrap">{r.minutesSavedPerYear === null ? '—' : fixed(r.minutesSavedPerYear, 0)}</Td>
+                  <Td numeric className="whitespace-nowrap">{usd(r.upgradePriceUsd)}</Td>
+                </tr>
+              ))}
+            </TBody>
+          </Table>
+        </>
+      )}
+    </div>
+  );
+}
+
+/**
+ * Upload a CSV of existing customer sites, pick the service, climate and target, and read the
+ * upgrade recommendation for every site. Computed on each request; nothing is stored.
+ */
+export function CampaignForm({ choices, action }: { choices: CampaignChoices; action: Act }) {
+  const form = useRef<HTMLFormElement>(null);
+  const [state, run, running] = useActionState(action, null);
+  const [tooBig, setTooBig] = useState<string | null>(null);
+  const data = state?.ok ? (state.data ?? null) : null;
+  const fieldErrors = state && !state.ok ? (state.fieldErrors ?? {}) : {};
+
+  return (
+    <div>
+      <form
+        ref={form}
+        className="space-y-4"
+        aria-label="Upgrade campaign"
+        onSubmit={(e) => {
+          e.preventDefault();
+          if (!form.current) return;
+          const fd = new FormData(form.current);
+          startTransition(() => run(fd));
+        }}
+      >
+        <p className="text-sm text-stone-600">
+          Columns: <code className="rounded bg-stone-100 px-1 font-mono text-xs">site_ref, latitude, longitude, altitude_m, current_dish_cm</code>. Latitude and longitude in decimal degrees
+          or degrees, minutes and seconds. Comma, semicolon or tab separated, UTF-8, at most {CAMPAIGN_MAX_ROWS.toLocaleString('en-US')} sites and {CAMPAIGN_MAX_BYTES / 1024} KiB.
+          <span className="block text-xs">
+            Example line: <code className="font-mono">HOLM-0042,47°30&apos;15&quot; N,2.25,140,60</code>
+          </span>
+        </p>
+        <div>
+          <label className="block text-sm font-medium text-stone-800" htmlFor="campaign-file">
+            Sites file (CSV)
+          </label>
+          <input
+            id="campaign-file"
+            name="file"
+            type="file"
+            accept=".csv,text/csv,text/plain"
+            className={`${INPUT_CLASSES} mt-1 file:mr-3 file:rounded file:border-0 file:bg-ledger-50 file:px-2 file:py-1 file:text-ledger-800`}
+            aria-describedby={fieldErrors.file?.length || tooBig ? 'campaign-file-error' : undefined}
+            onChange={(e) => {
+              const f = e.target.files?.[0];
+              setTooBig(f && f.size > CAMPAIGN_MAX_BYTES ? `"${f.name}" is ${Math.ceil(f.size / 1024)} KiB; campaign files are limited to ${CAMPAIGN_MAX_BYTES / 1024} KiB.` : null);
+            }}
+          />
+          {(tooBig || fieldErrors.file?.length) && (
+            <p id="campaign-file-error" className="mt-1 max-h-24 overflow-auto text-xs text-red-700">
+              {tooBig ?? fieldErrors.file?.slice(0, 3).join(' ')}
+            </p>
+          )}
+        </div>
+        <div className="grid gap-4 sm:grid-cols-3">
+          <SelectInput label="Service" name="serviceProfileId" options={choices.services} placeholder="Choose a service" errors={fieldErrors.serviceProfileId} />
+          <SelectInput label="Rain climate" name="climateProfileId" options={choices.climates} placeholder="Choose a climate profile" errors={fieldErrors.climateProfileId} />
+          <TextInput label="Target availability (%)" name="targetAvailabilityPercent" inputMode="decimal" defaultValue="99.9" errors={fieldErrors.targetAvailabilityPercent} hint="Of an average year, 90–99.999 %." />
+        </div>
+        <div className="flex flex-wrap items-center gap-3">
+          <Button type="submit" disabled={running || tooBig !== null}>
+            {running ? 'Computing…' : 'Compute the campaign'}
+          </Button>
+          <FormStatus state={state} />
+        </div>
+      </form>
+      {data && <Results data={data} />}
+    </div>
+  );
+}
