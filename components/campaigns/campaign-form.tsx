@@ -9,7 +9,7 @@ import { Button } from '@/components/ui/button';
 import { FormStatus } from '@/components/ui/form-status';
 import { Table, TBody, THead, Td, Th } from '@/components/ui/table';
 import { INPUT_CLASSES, SelectInput, TextInput } from '@/components/study/form-fields';
-import { availabilityText, fixed, minutesText, usd } from '@/components/study/format';
+import { availabilityText, boundMark, fixed, usd } from '@/components/study/format';
 
 type Act = (prev: ActionState<CampaignResponse> | null, input: FormData) => Promise<ActionState<CampaignResponse>>;
 export type CampaignChoices = { services: { value: string; label: string }[]; climates: { value: string; label: string }[] };
@@ -25,6 +25,9 @@ function download(data: CampaignResponse) {
   a.remove();
   URL.revokeObjectURL(url);
 }
+
+/** Minutes for a cell whose header carries the unit; a bound keeps its "<" or ">". */
+const minutes = (m: number, bound: Parameters<typeof boundMark>[0]) => `${boundMark(bound)}${fixed(m, m < 10 ? 1 : 0)}`;
 
 function Counts({ data }: { data: CampaignResponse }) {
   const c = data.counts;
@@ -80,7 +83,7 @@ function Results({ data }: { data: CampaignResponse }) {
               <tr>
                 <Th numeric className="hidden sm:table-cell">Line</Th>
                 <Th>Site</Th>
-                <Th numeric>Current dish</Th>
+                <Th numeric>Dish now (cm)</Th>
                 <Th numeric>Outage now (min/year)</Th>
                 <Th numeric className="hidden md:table-cell">Availability now</Th>
                 <Th>Recommendation</Th>
@@ -93,12 +96,12 @@ function Results({ data }: { data: CampaignResponse }) {
               {data.results.map((r) => (
                 <tr key={r.line}>
                   <Td numeric className="hidden sm:table-cell">{r.line}</Td>
-                  <Th scope="row" className="font-medium text-stone-900">{r.siteRef}</Th>
-                  <Td numeric className="whitespace-nowrap">{r.currentDishCm} cm</Td>
-                  <Td numeric className="whitespace-nowrap">{minutesText(r.currentOutageMinutesPerYear, r.currentOutageBound)}</Td>
+                  <Th scope="row" className="whitespace-nowrap align-top font-medium text-stone-900">{r.siteRef}</Th>
+                  <Td numeric className="whitespace-nowrap">{r.currentDishCm}</Td>
+                  <Td numeric className="whitespace-nowrap">{minutes(r.currentOutageMinutesPerYear, r.currentOutageBound)}</Td>
                   <Td numeric className="hidden whitespace-nowrap md:table-cell">{availabilityText({ availabilityPercent: r.currentAvailabilityPercent, outageBound: r.currentOutageBound })}</Td>
-                  <Td>{r.verdict === 'upgrade' ? <span className="font-medium text-ledger-800">{r.recommendedDishCm} cm · {r.recommendedDishName}</span> : <span className="text-stone-600">{verdictWords(r.verdict)}</span>}</Td>
-                  <Td numeric className="hidden whitespace-nowrap md:table-cell">{r.recommendedOutageMinutesPerYear === null || r.recommendedOutageBound === null ? '—' : minutesText(r.recommendedOutageMinutesPerYear, r.recommendedOutageBound)}</Td>
+                  <Td className="whitespace-nowrap">{r.verdict === 'upgrade' ? <span className="font-medium text-ledger-800">{r.recommendedDishCm} cm · {r.recommendedDishName}</span> : <span className="text-stone-600">{verdictWords(r.verdict)}</span>}</Td>
+                  <Td numeric className="hidden whitespace-nowrap md:table-cell">{r.recommendedOutageMinutesPerYear === null || r.recommendedOutageBound === null ? '—' : minutes(r.recommendedOutageMinutesPerYear, r.recommendedOutageBound)}</Td>
                   <Td numeric className="whitespace-nowrap">{r.minutesSavedPerYear === null ? '—' : fixed(r.minutesSavedPerYear, 0)}</Td>
                   <Td numeric className="whitespace-nowrap">{usd(r.upgradePriceUsd)}</Td>
                 </tr>

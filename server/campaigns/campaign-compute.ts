@@ -3,8 +3,7 @@ import type { OutageFigures } from '@/server/engine';
 import type { TradeoffOption, TradeoffResult } from '@/server/engine/tradeoff-types';
 import { buildScenario } from '@/server/studies/build-scenario';
 import type { ClimateSnapshot, DishSnapshot, ServiceSnapshot } from '@/server/studies/snapshot';
-import type { CsvProblem } from '@/server/uploads/csv-table';
-import type { CampaignSiteRow } from './campaign-csv';
+import type { CampaignProblem, CampaignSiteRow } from './campaign-csv';
 
 export type CampaignVerdict = 'upgrade' | 'already-meets-target' | 'none-meets-target';
 
@@ -30,7 +29,7 @@ export interface CampaignResultRow {
 
 export interface CampaignOutcome {
   results: CampaignResultRow[];
-  problems: CsvProblem[];
+  problems: CampaignProblem[];
   counts: { rows: number; computed: number; upgrade: number; alreadyMeetsTarget: number; noneMeetsTarget: number; problems: number };
 }
 
@@ -44,10 +43,10 @@ function basisFigures(result: TradeoffResult, option: TradeoffOption): OutageFig
 
 const PLAIN: [RegExp, string][] = [[/below the horizon/, 'the satellite is below the horizon at this site; no dish can see it. Check the coordinates or the service.']];
 
-function engineProblem(line: number, error: unknown): CsvProblem {
+function engineProblem(line: number, siteRef: string, error: unknown): CampaignProblem {
   if (!isEngineInputError(error)) throw error;
   const plain = PLAIN.find(([re]) => re.test(error.message))?.[1];
-  return { line, message: `Line ${line}: ${plain ?? `cannot be computed (${error.message}).`}` };
+  return { line, siteRef, message: `Line ${line}: ${plain ?? `cannot be computed (${error.message}).`}` };
 }
 
 /**
@@ -63,10 +62,10 @@ export function computeCampaign(o: {
   dishes: DishSnapshot[];
   targetAvailabilityPercent: number;
   /** Problems found while reading the file, merged by line into the outcome. */
-  fileProblems?: CsvProblem[];
+  fileProblems?: CampaignProblem[];
   rowCount?: number;
 }): CampaignOutcome {
-  const problems: CsvProblem[] = [...(o.fileProblems ?? [])];
+  const problems: CampaignProblem[] = [...(o.fileProblems ?? [])];
   const results: CampaignResultRow[] = [];
   const sizes = [...new Set(o.dishes.map((d) => cmOf(d.diameterM)))].sort((a, b) => a - b).join(', ');
   for (const row of o.rows) {
@@ -82,13 +81,13 @@ export function computeCampaign(o: {
       });
       result = dishTradeoff(built.scenario);
     } catch (e) {
-      problems.push(engineProblem(row.line, e));
+      problems.push(engineProblem(row.line, row.siteRef, e));
       continue;
     }
     // Options come back in the scenario's order, which is buildScenario's sorted dish list.
     const currentIndex = built.dishes.findIndex((d) => cmOf(d.diameterM) === Math.round(row.currentDishCm));
     if (currentIndex < 0) {
-      problems.push({ line: row.line, column: 'current_dish_cm', message: `Line ${row.line}, current_dish_cm: no active catalogue dish is ${row.currentDishCm} cm (the catalogue has ${sizes || 'no active dishes'} cm).` });
+      problems.push({ line: row.line, siteRef: row.siteRef, column: 'current_dish_cm', message: `Line ${row.line}, current_dish_cm: no active catalogue dish is ${row.currentDishCm} cm (the catalogue has ${sizes || 'no active dishes'} cm).` });
       continue;
     }
     const current = basisFigures(result, result.options[currentIndex]);

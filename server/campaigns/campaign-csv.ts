@@ -21,10 +21,15 @@ export interface CampaignSiteRow {
   currentDishCm: number;
 }
 
+/** A problem of one row (or of the whole file, line null), with the row's site reference when it has one. */
+export interface CampaignProblem extends CsvProblem {
+  siteRef?: string;
+}
+
 export interface CampaignCsv {
   rows: CampaignSiteRow[];
   /** Row problems (with line) and file problems (line null). File problems mean no rows at all. */
-  problems: CsvProblem[];
+  problems: CampaignProblem[];
   /** Data rows in the file, good and bad. */
   rowCount: number;
 }
@@ -78,7 +83,7 @@ export function parseCampaignCsv(text: string): CampaignCsv {
   if (table.rows.length > CAMPAIGN_MAX_ROWS) {
     return { rows: [], problems: [{ line: null, message: `The file has ${table.rows.length} rows; a campaign takes at most ${CAMPAIGN_MAX_ROWS}. Split it into several files.` }], rowCount: table.rows.length };
   }
-  const problems: CsvProblem[] = [...table.problems];
+  const problems: CampaignProblem[] = [...table.problems];
   const rows: CampaignSiteRow[] = [];
   for (const row of table.rows) {
     const own: CsvProblem[] = [];
@@ -93,7 +98,7 @@ export function parseCampaignCsv(text: string): CampaignCsv {
     const altitudeM = numberCell(row, 'altitude_m', ALTITUDE_M, 'm', own);
     const currentDishCm = numberCell(row, 'current_dish_cm', DISH_CM, 'cm', own);
     if (own.length) {
-      problems.push(...own);
+      problems.push(...own.map((p) => (siteRef ? { ...p, siteRef } : p)));
       continue;
     }
     rows.push({ line: row.line, siteRef, latDeg: coords[0]!, lonDeg: coords[1]!, altitudeM: altitudeM!, currentDishCm: currentDishCm! });

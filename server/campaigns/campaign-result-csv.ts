@@ -1,5 +1,6 @@
 import Papa from 'papaparse';
 import type { CampaignResultRow, CampaignVerdict } from './campaign-compute';
+import type { CampaignProblem } from './campaign-csv';
 
 const VERDICT_WORDS: Record<CampaignVerdict, string> = {
   upgrade: 'upgrade',
@@ -33,31 +34,39 @@ const boundWords = (b: keyof typeof BOUND_WORDS | null) => (b === null ? '' : BO
 const fixed = (n: number | null, digits: number) => (n === null ? '' : n.toFixed(digits));
 
 /**
- * The campaign as CSV (papaparse unparse), one line per computed site, then the problems as
- * lines with the recommendation column "not computed: …" so nothing in the file is dropped silently.
+ * The campaign as CSV (papaparse unparse), one line per line of the uploaded file in its order:
+ * computed sites, and rows that could not be computed with "not computed: …" in the
+ * recommendation column, so nothing in the file is dropped silently. Cells that a spreadsheet
+ * would run as a formula are escaped.
  */
-export function campaignResultCsv(results: CampaignResultRow[], problems: { line: number | null; message: string }[] = []): string {
-  const data: string[][] = results.map((r) => [
-    String(r.line),
-    r.siteRef,
-    r.currentDishName,
-    String(r.currentDishCm),
-    fixed(r.currentOutageMinutesPerYear, 1),
-    boundWords(r.currentOutageBound),
-    fixed(r.currentAvailabilityPercent, 4),
-    VERDICT_WORDS[r.verdict],
-    r.recommendedDishName ?? '',
-    r.recommendedDishCm === null ? '' : String(r.recommendedDishCm),
-    fixed(r.recommendedOutageMinutesPerYear, 1),
-    boundWords(r.recommendedOutageBound),
-    fixed(r.minutesSavedPerYear, 1),
-    r.upgradePriceUsd ?? '',
-  ]);
+export function campaignResultCsv(results: CampaignResultRow[], problems: CampaignProblem[] = []): string {
+  const lines: { line: number; cells: string[] }[] = results.map((r) => ({
+    line: r.line,
+    cells: [
+      String(r.line),
+      r.siteRef,
+      r.currentDishName,
+      String(r.currentDishCm),
+      fixed(r.currentOutageMinutesPerYear, 1),
+      boundWords(r.currentOutageBound),
+      fixed(r.currentAvailabilityPercent, 4),
+      VERDICT_WORDS[r.verdict],
+      r.recommendedDishName ?? '',
+      r.recommendedDishCm === null ? '' : String(r.recommendedDishCm),
+      fixed(r.recommendedOutageMinutesPerYear, 1),
+      boundWords(r.recommendedOutageBound),
+      fixed(r.minutesSavedPerYear, 1),
+      r.upgradePriceUsd ?? '',
+    ],
+  }));
   for (const p of problems) {
-    const row: string[] = new Array(CAMPAIGN_RESULT_HEADER.length).fill('');
-    row[0] = p.line === null ? '' : String(p.line);
-    row[CAMPAIGN_RESULT_HEADER.indexOf('recommendation')] = `not computed: ${p.message}`;
-    data.push(row);
+    const cells: string[] = new Array(CAMPAIGN_RESULT_HEADER.length).fill('');
+    cells[0] = p.line === null ? '' : String(p.line);
+    cells[1] = p.siteRef ?? '';
+    cells[CAMPAIGN_RESULT_HEADER.indexOf('recommendation')] = `not computed: ${p.message}`;
+    lines.push({ line: p.line ?? 0, cells });
   }
-  return Papa.unparse({ fields: [...CAMPAIGN_RESULT_HEADER], data }, { newline: '\r\n', escapeFormulae: true });
+  // Stable sort: a line with several problems keeps them in the order found.
+  lines.sort((a, b) => a.line - b.line);
+  return Papa.unparse({ fields: [...CAMPAIGN_RESULT_HEADER], data: lines.map((l) => l.cells) }, { newline: '\r\n', escapeFormulae: true });
 }

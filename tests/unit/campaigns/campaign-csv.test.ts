@@ -23,13 +23,13 @@ describe('parseCampaignCsv', () => {
     expect(r.rows.map((x) => x.siteRef)).toEqual(['A', 'D']);
     expect(r.problems).toHaveLength(2);
     expect(r.problems[0]).toMatchObject({ line: 3 });
-    expect(r.problems[1]).toEqual({ line: 4, column: 'altitude_m', message: 'Line 4, altitude_m: "abc" is not a number (use a decimal point, e.g. 120.5).' });
+    expect(r.problems[1]).toEqual({ line: 4, siteRef: 'C', column: 'altitude_m', message: 'Line 4, altitude_m: "abc" is not a number (use a decimal point, e.g. 120.5).' });
   });
 
   it('reports a bad coordinate with the coordinate parser’s own words', () => {
     const r = parseCampaignCsv(`${HEADER}\nA,12 75 0 N,2.5,100,60\nB,47.25,95 E,100,60\n`);
     expect(r.rows.map((x) => x.siteRef)).toEqual(['B']);
-    expect(r.problems).toEqual([{ line: 2, column: 'latitude', message: 'Line 2, latitude: Minutes must be below 60.' }]);
+    expect(r.problems).toEqual([{ line: 2, siteRef: 'A', column: 'latitude', message: 'Line 2, latitude: Minutes must be below 60.' }]);
   });
 
   it('refuses a missing column, naming it, with no rows', () => {
@@ -76,14 +76,16 @@ describe('campaignResultCsv', () => {
   it('writes a header with units and neutralises spreadsheet formulas in site references', () => {
     const text = campaignResultCsv(
       [{ line: 2, siteRef: '=HYPERLINK("x")', currentDishCm: 60, currentDishName: 'D60', currentOutageMinutesPerYear: 812.34, currentOutageBound: 'none', currentAvailabilityPercent: 99.84546, verdict: 'upgrade', recommendedDishName: 'D90', recommendedDishCm: 90, recommendedOutageMinutesPerYear: 300.01, recommendedOutageBound: 'below-model-range', minutesSavedPerYear: 512.33, upgradePriceUsd: '279.00' }],
-      [{ line: 3, message: 'Line 3: bad.' }],
+      [{ line: 3, siteRef: 'FW-9', message: 'Line 3: bad.' }, { line: 1, message: 'Line 1: first.' }],
     );
     const parsed = Papa.parse<string[]>(text.trim()).data;
     expect(parsed[0]).toEqual([...CAMPAIGN_RESULT_HEADER]);
     expect(parsed[0]).toContain('current_outage_min_per_year');
     expect(parsed[0]).toContain('upgrade_price_usd');
-    expect(parsed[1]).toEqual(['2', `'=HYPERLINK("x")`, 'D60', '60', '812.3', '', '99.8455', 'upgrade', 'D90', '90', '300.0', 'at most', '512.3', '279.00']);
-    expect(parsed[2][0]).toBe('3');
-    expect(parsed[2][CAMPAIGN_RESULT_HEADER.indexOf('recommendation')]).toBe('not computed: Line 3: bad.');
+    // In the file's line order, problems included, with their site reference.
+    expect(parsed.map((r) => r[0])).toEqual(['line', '1', '2', '3']);
+    expect(parsed[2]).toEqual(['2', `'=HYPERLINK("x")`, 'D60', '60', '812.3', '', '99.8455', 'upgrade', 'D90', '90', '300.0', 'at most', '512.3', '279.00']);
+    expect(parsed[3].slice(0, 2)).toEqual(['3', 'FW-9']);
+    expect(parsed[3][CAMPAIGN_RESULT_HEADER.indexOf('recommendation')]).toBe('not computed: Line 3: bad.');
   });
 });
