@@ -1,0 +1,25 @@
+import { performance } from 'node:perf_hooks';
+import { computeCampaign } from '../../server/campaigns/campaign-compute';
+import { parseCampaignCsv } from '../../server/campaigns/campaign-csv';
+import { campaignResultCsv } from '../../server/campaigns/campaign-result-csv';
+import { bigCampaignCsv, climate, SEVEN, service } from '../unit/campaigns/campaign-fixture';
+
+/**
+ * `npm run bench:campaign`: the pure work of one upgrade-campaign request at the size limit
+ * (5 000 sites × 7 dishes): parse, engine, result CSV. Median of 5 runs after one warm-up.
+ */
+const text = bigCampaignCsv(5000);
+const runs: { parse: number; engine: number; csv: number; total: number }[] = [];
+for (let i = 0; i < 6; i++) {
+  const t0 = performance.now();
+  const parsed = parseCampaignCsv(text);
+  const t1 = performance.now();
+  const r = computeCampaign({ rows: parsed.rows, service, climate, dishes: SEVEN, targetAvailabilityPercent: 99.9 });
+  const t2 = performance.now();
+  campaignResultCsv(r.results, r.problems);
+  const t3 = performance.now();
+  if (i > 0) runs.push({ parse: t1 - t0, engine: t2 - t1, csv: t3 - t2, total: t3 - t0 });
+}
+const median = (k: keyof (typeof runs)[number]) => runs.map((r) => r[k]).sort((a, b) => a - b)[Math.floor(runs.length / 2)];
+console.log(`Upgrade campaign, 5 000 sites × 7 dishes (Node ${process.version}, one core), median of ${runs.length}:`);
+console.log(`  parse ${median('parse').toFixed(0)} ms · engine ${median('engine').toFixed(0)} ms · result CSV ${median('csv').toFixed(0)} ms · total ${median('total').toFixed(0)} ms   aim < 3 s: ${median('total') < 3000 ? 'met' : 'NOT met'}`);
