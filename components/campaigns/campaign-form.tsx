@@ -8,7 +8,8 @@ import { verdictWords } from '@/server/campaigns/campaign-result-csv';
 import { Button } from '@/components/ui/button';
 import { FormStatus } from '@/components/ui/form-status';
 import { Table, TBody, THead, Td, Th } from '@/components/ui/table';
-import { INPUT_CLASSES, SelectInput, TextInput } from '@/components/study/form-fields';
+import { SelectInput, TextInput } from '@/components/study/form-fields';
+import { CsvFileInput } from '@/components/uploads/csv-file-input';
 import { availabilityText, boundMark, fixed, usd } from '@/components/study/format';
 
 type Act = (prev: ActionState<CampaignResponse> | null, input: FormData) => Promise<ActionState<CampaignResponse>>;
@@ -145,28 +146,7 @@ export function CampaignForm({ choices, action }: { choices: CampaignChoices; ac
             Example line: <code className="font-mono">HOLM-0042,47°30&apos;15&quot; N,2.25,140,60</code>
           </span>
         </p>
-        <div>
-          <label className="block text-sm font-medium text-stone-800" htmlFor="campaign-file">
-            Sites file (CSV)
-          </label>
-          <input
-            id="campaign-file"
-            name="file"
-            type="file"
-            accept=".csv,text/csv,text/plain"
-            className={`${INPUT_CLASSES} mt-1 file:mr-3 file:rounded file:border-0 file:bg-ledger-50 file:px-2 file:py-1 file:text-ledger-800`}
-            aria-describedby={fieldErrors.file?.length || tooBig ? 'campaign-file-error' : undefined}
-            onChange={(e) => {
-              const f = e.target.files?.[0];
-              setTooBig(f && f.size > CAMPAIGN_MAX_BYTES ? `"${f.name}" is ${Math.ceil(f.size / 1024)} KiB; campaign files are limited to ${CAMPAIGN_MAX_BYTES / 1024} KiB.` : null);
-            }}
-          />
-          {(tooBig || fieldErrors.file?.length) && (
-            <p id="campaign-file-error" className="mt-1 max-h-24 overflow-auto text-xs text-red-700">
-              {tooBig ?? fieldErrors.file?.slice(0, 3).join(' ')}
-            </p>
-          )}
-        </div>
+        <CsvFileInput id="campaign-file" label="Sites file (CSV)" maxBytes={CAMPAIGN_MAX_BYTES} limitedNoun="campaign files" errors={fieldErrors.file} tooBig={tooBig} onPick={setTooBig} />
         <div className="grid gap-4 sm:grid-cols-3">
           <SelectInput label="Service" name="serviceProfileId" options={choices.services} placeholder="Choose a service" errors={fieldErrors.serviceProfileId} />
           <SelectInput label="Rain climate" name="climateProfileId" options={choices.climates} placeholder="Choose a climate profile" errors={fieldErrors.climateProfileId} />

@@ -7,7 +7,8 @@ import { MAX_UPLOAD_BYTES } from '@/server/uploads/upload-limits';
 import { Button } from '@/components/ui/button';
 import { FormStatus } from '@/components/ui/form-status';
 import { Table, TBody, THead, Td, Th } from '@/components/ui/table';
-import { INPUT_CLASSES, TextInput } from '@/components/study/form-fields';
+import { TextInput } from '@/components/study/form-fields';
+import { CsvFileInput } from './csv-file-input';
 
 type Act = (prev: ActionState<never> | null, input: FormData) => Promise<ActionState<unknown>>;
 type Bound = (prev: ActionState<unknown> | null, input: FormData) => Promise<ActionState<unknown>>;
@@ -107,29 +108,18 @@ export function UploadPanel({ kinds, preview, confirm, needsProfileFields }: { k
         Columns: <code className="rounded bg-stone-100 px-1 font-mono text-xs">{choice.columns}</code>. Comma, semicolon or tab separated, UTF-8, at most {MAX_UPLOAD_BYTES / 1024} KiB.
         <span className="block text-xs">Example line: <code className="font-mono">{choice.example}</code></span>
       </p>
-      <div>
-        <label className="block text-sm font-medium text-stone-800" htmlFor="upload-file">
-          CSV file
-        </label>
-        <input
-          id="upload-file"
-          name="file"
-          type="file"
-          accept=".csv,text/csv,text/plain"
-          className={`${INPUT_CLASSES} mt-1 file:mr-3 file:rounded file:border-0 file:bg-ledger-50 file:px-2 file:py-1 file:text-ledger-800`}
-          aria-describedby={fieldErrors.file?.length || tooBig ? 'upload-file-error' : undefined}
-          onChange={(e) => {
-            const f = e.target.files?.[0];
-            setStale(true);
-            setTooBig(f && f.size > MAX_UPLOAD_BYTES ? `"${f.name}" is ${Math.ceil(f.size / 1024)} KiB; uploads are limited to ${MAX_UPLOAD_BYTES / 1024} KiB.` : null);
-          }}
-        />
-        {(tooBig || fieldErrors.file?.length) && (
-          <p id="upload-file-error" className="mt-1 max-h-24 overflow-auto text-xs text-red-700">
-            {tooBig ?? fieldErrors.file?.slice(0, 3).join(' ')}
-          </p>
-        )}
-      </div>
+      <CsvFileInput
+        id="upload-file"
+        label="CSV file"
+        maxBytes={MAX_UPLOAD_BYTES}
+        limitedNoun="uploads"
+        errors={fieldErrors.file}
+        tooBig={tooBig}
+        onPick={(message) => {
+          setStale(true);
+          setTooBig(message);
+        }}
+      />
       {needsProfileFields && kind !== 'dish-catalogue' && (
         <div className="grid gap-4 sm:grid-cols-2">
           <TextInput label="Profile name" name="name" errors={fieldErrors.name} />
