@@ -15,12 +15,25 @@ describe('the reference copy in tests/fixtures/reference', () => {
   it('holds every reference table', () => {
     expect(csvs).toEqual([
       'dvb-s2-modcods.csv',
+      'itu-p1510-1-annual-temperature.csv',
+      'itu-p1511-1-topographic-height.csv',
+      'itu-p453-14-nwet.csv',
+      'itu-p618-13-total-attenuation.csv',
       'itu-p618-rain-attenuation.csv',
       'itu-p618-scintillation.csv',
+      'itu-p676-12-gas-attenuation.csv',
+      'itu-p676-12-oxygen-lines.csv',
+      'itu-p676-12-specific-attenuation.csv',
+      'itu-p676-12-water-vapour-lines.csv',
+      'itu-p836-6-surface-vapour-density.csv',
+      'itu-p836-6-water-vapour-content.csv',
       'itu-p837-1-climate-zones.csv',
       'itu-p837-7-monthly-climate.csv',
       'itu-p837-7-rain-rate.csv',
       'itu-p838-3-specific-attenuation.csv',
+      'itu-p839-4-rain-height.csv',
+      'itu-p840-8-cloud-attenuation.csv',
+      'itu-p840-8-reduced-cloud-liquid.csv',
     ]);
   });
 
