@@ -1,4 +1,4 @@
-import { brentRoot } from './math/brent';
+import { sampleCurve, type SampledCurve } from './math/largest-crossing';
 import { combineRainCoefficients } from './p838-rain-coefficients';
 import { requireFinite, requireNumberInRange } from './validate';
 import { EngineInputError } from './errors';
@@ -51,12 +51,16 @@ export interface RainPath {
   readonly verticalAdjustment: number;
   /** Step 8: effective path length L_E, km. */
   readonly effectivePathKm: number;
-  /** A_p at the ends of the model range (p = 0.001 % and p = 5 %), dB. */
+  /** Largest A_p over the model range (at p = 0.001 %, or just above it where step 10 is not monotone), dB. */
   readonly maxAttenuationDb: number;
+  /** A_p at p = 5 %, the upper end of the model range, dB. */
   readonly minAttenuationDb: number;
   /** Step 10, p already checked to lie in 0.001–5 %. */
   attenuationAt(pPercent: number): number;
-  /** Inverse of step 10 (Brent on ln p), attenuation already checked ≥ 0. */
+  /**
+   * Inverse of step 10: the LARGEST p in the model range with A_p ≥ the attenuation (Brent on
+   * ln p after a grid scan), so a non-monotone step 10 never hides a real p; attenuation ≥ 0.
+   */
   exceedanceOf(attenuationDb: number): RainExceedance;
 }
 
@@ -69,8 +73,6 @@ export const MAX_P_PERCENT_P618_14 = 5;
 /** Frequency range for which P.618-14 rain attenuation is stated, GHz. */
 export const MIN_FREQUENCY_GHZ_P618_14 = 1;
 export const MAX_FREQUENCY_GHZ_P618_14 = 55;
-/** Inverse tolerance on ln p (1e-12 absolute in ln p ≈ 1e-12 relative in p; engine.md asks 1e-9). */
-const LN_P_TOLERANCE = 1e-12;
 /**
  * An attenuation within 1e-8 (relative) of A_0.001 or A_5 is reported as the range end itself
  * with bound 'none': the difference is rounding, not physics (engine convention).
@@ -155,6 +157,8 @@ export function prepareRainPathUnchecked(o: RainPathOptions): RainPath {
   const nu = 1 / (1 + Math.sqrt(sinT) * ((31 * (1 - Math.exp(-(theta / (1 + chi)))) * Math.sqrt(lr * gamma)) / (f * f) - 0.45));
   const le = lr * nu; // step 8
   const a001 = gamma * le; // step 9
+  // A rain rate so small that γ_R underflows (e.g. 5e-324 mm/h) is no rain: ln 0 would poison step 10.
+  if (!(a001 > 0) || !Number.isFinite(a001)) return zeroPath(ls, cosT);
   const lnA001 = Math.log(a001);
   const c0 = 0.655 - 0.045 * lnA001;
   const betaSin = betaBelow1 * sinT;
@@ -166,19 +170,12 @@ export function prepareRainPathUnchecked(o: RainPathOptions): RainPath {
     return lnA001 - exponent * (lp - LN_P_REF);
   };
   const attenuationAt = (pPercent: number): number => Math.exp(lnAttenuation(Math.log(pPercent)));
-  const lnMax = lnAttenuation(LN_P_MIN);
+  // Sampled lazily: most callers only need A_0.01 or a few A_p.
+  let curve: SampledCurve | null = null;
+  const sampled = (): SampledCurve => (curve ??= sampleCurve(lnAttenuation, LN_P_MIN, LN_P_MAX));
   const lnMin = lnAttenuation(LN_P_MAX);
 
-  const exceedanceOf = (attenuationDb: number): RainExceedance => {
-    if (attenuationDb <= 0) return { pPercent: MAX_P_PERCENT_P618_14, bound: 'above-model-range' };
-    const lnA = Math.log(attenuationDb);
-    if (lnA > lnMax + RANGE_END_SNAP_LN) return { pPercent: MIN_P_PERCENT_P618_14, bound: 'below-model-range' };
-    if (lnA < lnMin - RANGE_END_SNAP_LN) return { pPercent: MAX_P_PERCENT_P618_14, bound: 'above-model-range' };
-    if (lnA >= lnMax) return { pPercent: MIN_P_PERCENT_P618_14, bound: 'none' };
-    if (lnA <= lnMin) return { pPercent: MAX_P_PERCENT_P618_14, bound: 'none' };
-    const lp = brentRoot((x) => lnAttenuation(x) - lnA, LN_P_MIN, LN_P_MAX, LN_P_TOLERANCE);
-    return { pPercent: Math.min(MAX_P_PERCENT_P618_14, Math.max(MIN_P_PERCENT_P618_14, Math.exp(lp))), bound: 'none' };
-  };
+  const exceedanceOf = (attenuationDb: number): RainExceedance => exceedanceOnCurve(sampled(), lnMin, attenuationDb);
 
   return {
     a001Db: a001,
@@ -188,11 +185,35 @@ export function prepareRainPathUnchecked(o: RainPathOptions): RainPath {
     horizontalReduction: r001,
     verticalAdjustment: nu,
     effectivePathKm: le,
-    maxAttenuationDb: Math.exp(lnMax),
+    get maxAttenuationDb(): number {
+      return Math.exp(sampled().peak);
+    },
     minAttenuationDb: Math.exp(lnMin),
     attenuationAt,
     exceedanceOf,
   };
+}
+
+/**
+ * Exceedance of an attenuation on a sampled ln A(ln p) curve, with the model-range bounds of
+ * {@link RainExceedance}: the largest p whose A_p reaches it; a value within 1e-8 (in ln) of the
+ * curve's peak or of A_5 is the range end itself (rounding, not physics).
+ */
+export function exceedanceOnCurve(curve: SampledCurve, lnAtMaxP: number, attenuationDb: number): RainExceedance {
+  if (attenuationDb <= 0) return { pPercent: MAX_P_PERCENT_P618_14, bound: 'above-model-range' };
+  const lnA = Math.log(attenuationDb);
+  const c = curve.largestReaching(lnA);
+  if (c.kind === 'everywhere') {
+    return lnA >= lnAtMaxP - RANGE_END_SNAP_LN ? { pPercent: MAX_P_PERCENT_P618_14, bound: 'none' } : { pPercent: MAX_P_PERCENT_P618_14, bound: 'above-model-range' };
+  }
+  if (c.kind === 'never') {
+    return lnA <= curve.peak + RANGE_END_SNAP_LN ? { pPercent: clampP(Math.exp(curve.peakX)), bound: 'none' } : { pPercent: MIN_P_PERCENT_P618_14, bound: 'below-model-range' };
+  }
+  return { pPercent: clampP(Math.exp(c.x)), bound: 'none' };
+}
+
+function clampP(p: number): number {
+  return Math.min(MAX_P_PERCENT_P618_14, Math.max(MIN_P_PERCENT_P618_14, p));
 }
 
 /** Step 2 slant-path length below the rain height, km. */

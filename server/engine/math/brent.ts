@@ -4,11 +4,29 @@
  * monotone inverse (ITU-R P.618 exceedance on ln p, ITU-R P.837-7 R_p on ln R).
  *
  * Bad input: the caller must pass a bracket with f(a)·f(b) ≤ 0; if not, this throws a plain
- * Error (an engine bug, not a user error), never returns NaN.
+ * Error (an engine bug, not a user error). A function value that is not a finite number (NaN,
+ * ±Infinity) anywhere in the iteration throws {@link SolverNumericError}: NaN compares false
+ * with everything, so without this check it would steer the bracket silently and come out as a
+ * plausible-looking end of the interval.
  *
  * @example
  * brentRoot((x) => x * x - 2, 0, 2, 1e-14) // => 1.4142135623730951 (to 1e-14)
  */
+/** A solver met a value that is not a finite number: an engine defect, never a result. */
+export class SolverNumericError extends Error {
+  constructor(where: string, x: number, fx: number) {
+    super(`${where}: the function is not a finite number at ${x} (got ${fx}); no result is given`);
+    this.name = 'SolverNumericError';
+  }
+}
+
+/** f(x), refusing anything but a finite number. */
+function finiteAt(f: (x: number) => number, x: number): number {
+  const v = f(x);
+  if (!Number.isFinite(v)) throw new SolverNumericError('brentRoot', x, v);
+  return v;
+}
+
 export function brentRoot(
   f: (x: number) => number,
   lower: number,
@@ -18,8 +36,9 @@ export function brentRoot(
 ): number {
   let a = lower;
   let b = upper;
-  let fa = f(a);
-  let fb = f(b);
+  if (!Number.isFinite(lower) || !Number.isFinite(upper)) throw new SolverNumericError('brentRoot bracket', lower, upper);
+  let fa = finiteAt(f, a);
+  let fb = finiteAt(f, b);
   if (fa === 0) return a;
   if (fb === 0) return b;
   if (fa * fb > 0) throw new Error(`brentRoot: root not bracketed in [${lower}, ${upper}]`);
@@ -74,7 +93,7 @@ export function brentRoot(
     a = b;
     fa = fb;
     b += Math.abs(d) > tol ? d : m > 0 ? tol : -tol;
-    fb = f(b);
+    fb = finiteAt(f, b);
   }
   return b;
 }
