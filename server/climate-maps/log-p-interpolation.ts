@@ -1,4 +1,4 @@
-import { EngineInputError } from '@/server/engine/errors';
+import { EngineInputError } from '../engine/errors';
 
 /** The percentages of the year tabulated by the ITU-R P.836-6 and P.840-8 maps. */
 export const TABULATED_P_PERCENT: readonly number[] = Object.freeze([0.1, 0.2, 0.3, 0.5, 1, 2, 3, 5, 10, 20, 30, 50, 60, 70, 80, 90, 95, 99]);

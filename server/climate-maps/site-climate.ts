@@ -1,4 +1,4 @@
-import { monthlyRainClimate } from '@/server/engine/p837-7-monthly-climate';
+import { monthlyRainClimate } from '../engine/p837-7-monthly-climate';
 import { bicubicP1144At } from './bicubic-p1144';
 import { bilinearCell, bilinearInCell } from './bilinear';
 import { loadGrid, requireSameGeometry, type Grid } from './grid';

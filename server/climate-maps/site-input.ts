@@ -1,4 +1,4 @@
-import { EngineInputError } from '@/server/engine/errors';
+import { EngineInputError } from '../engine/errors';
 import type { MapEntry } from './map-catalogue';
 
 /** A site by its coordinates: latitude −90…90° (north positive), longitude −180…360° (east positive). */
