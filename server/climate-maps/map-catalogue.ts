@@ -106,7 +106,7 @@ export function mapFileFor(prefix: string, key: { month?: number; pPercent?: num
  * data it was computed from.
  *
  * @example
- * MAP_DATA_VERSION // => e.g. '3f9a0c61b2de'
+ * MAP_DATA_VERSION // => 'e3a8d14b4665' (the maps.json in server/climate-maps/data)
  */
 export const MAP_DATA_VERSION: string = load().version;
 

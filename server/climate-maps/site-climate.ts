@@ -54,6 +54,8 @@ export interface SiteClimate {
 }
 
 interface ClimateGrids {
+  /** The Recommendations of the maps below, then `maps:<hash>`: what a stored study records. */
+  mapVersions: readonly string[];
   isotherm: Grid;
   topography: Grid;
   nWet: Grid;
@@ -72,18 +74,14 @@ function grids(): ClimateGrids {
   // The monthly maps are read through one cell per Recommendation, so each set must share a geometry.
   requireSameGeometry(monthlyRainfall);
   requireSameGeometry(monthlyTemperature);
-  return (climateGrids = {
-    isotherm: loadGrid('p839-4-isotherm-height.f32.gz'),
-    topography: loadGrid('p1511-1-topographic-height.f32.gz'),
-    nWet: loadGrid('p453-14-nwet-median.f32.gz'),
-    annualTemperature: loadGrid('p1510-1-surface-temperature-annual.f32.gz'),
-    monthlyRainfall,
-    monthlyTemperature,
-  });
+  const isotherm = loadGrid('p839-4-isotherm-height.f32.gz');
+  const topography = loadGrid('p1511-1-topographic-height.f32.gz');
+  const nWet = loadGrid('p453-14-nwet-median.f32.gz');
+  const annualTemperature = loadGrid('p1510-1-surface-temperature-annual.f32.gz');
+  const read = [isotherm, topography, nWet, annualTemperature, ...monthlyRainfall, ...monthlyTemperature];
+  const mapVersions = Object.freeze([...new Set(read.map((g) => g.entry.recommendation)), `maps:${MAP_DATA_VERSION}`]);
+  return (climateGrids = { mapVersions, isotherm, topography, nWet, annualTemperature, monthlyRainfall, monthlyTemperature });
 }
-
-/** The Recommendations {@link siteClimate} reads, with the map data version last. */
-const CLIMATE_MAP_VERSIONS: readonly string[] = Object.freeze(['ITU-R P.839-4', 'ITU-R P.1511-1', 'ITU-R P.453-14', 'ITU-R P.1510-1', 'ITU-R P.837-7', `maps:${MAP_DATA_VERSION}`]);
 
 /**
  * A site's climate from its coordinates alone, read from the ITU-R digital maps: h0 and hR
@@ -137,6 +135,6 @@ export function siteClimate(site: SiteCoordinates): SiteClimate {
     monthlyRainfallMm,
     monthlyTemperatureC,
     sources: SITE_CLIMATE_SOURCES,
-    mapVersions: [...CLIMATE_MAP_VERSIONS],
+    mapVersions: [...g.mapVersions],
   };
 }

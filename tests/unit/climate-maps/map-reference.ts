@@ -9,7 +9,12 @@ import { expectRelative, REFERENCE_RELATIVE_TOLERANCE } from '../engine/referenc
  */
 export const ZERO_ABSOLUTE_TOLERANCE = 1e-6;
 
-/** |actual/expected − 1| ≤ 1e-4, or |actual| ≤ 1e-6 where the published figure is 0. */
+/**
+ * |actual/expected − 1| ≤ 1e-4, or |actual| ≤ 1e-6 where the published figure is 0.
+ *
+ * @example
+ * expectReference(c.rainHeightKm, 2.45273333, 'V8 hR') // ITU-R SG 3 validation example
+ */
 export function expectReference(actual: number, expected: number, label: string): void {
   if (expected === 0) {
     expect(Number.isFinite(actual), `${label} is finite`).toBe(true);

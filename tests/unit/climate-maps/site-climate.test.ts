@@ -2,7 +2,7 @@ import { createHash } from 'node:crypto';
 import fs from 'node:fs';
 import path from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { MAP_DATA_VERSION, mapRecommendations, mapsDir, siteClimate } from '@/server/climate-maps';
+import { MAP_DATA_VERSION, mapRecommendations, mapsDir, siteClimate, type SiteClimate } from '@/server/climate-maps';
 import { monthlyRainClimate } from '@/server/engine/p837-7-monthly-climate';
 import { num, readReferenceCsv } from '../engine/reference-csv';
 import { expectReference } from './map-reference';
@@ -12,7 +12,7 @@ import { expectReference } from './map-reference';
  * reads (files and sources in tests/fixtures/reference/README.md). Each figure is read at the
  * row's own coordinates; nothing is typed in here.
  */
-const at = (row: Record<string, string>) => siteClimate({ latDeg: num(row, 'lat_deg'), lonDeg: num(row, 'lon_deg') });
+const at = (row: Record<string, string>): SiteClimate => siteClimate({ latDeg: num(row, 'lat_deg'), lonDeg: num(row, 'lon_deg') });
 
 describe('siteClimate against ITU-R validation figures', () => {
   it.each(readReferenceCsv('itu-p839-4-rain-height.csv'))('0 °C isotherm and rain height at $site (ITU-R SG 3 validation examples, Rec. ITU-R P.839-4)', (row) => {
