@@ -9,6 +9,7 @@
  */
 export { siteClimate, SITE_CLIMATE_SOURCES, RAIN_HEIGHT_ABOVE_ISOTHERM_KM } from './site-climate';
 export { siteAtmosphere } from './site-atmosphere';
+export { totalAttenuation } from './total-attenuation';
 export { vapourAt } from './p836-6-water-vapour';
 export { reducedCloudLiquidAt } from './p840-8-cloud-liquid';
 export { TABULATED_P_PERCENT } from './log-p-interpolation';
@@ -19,6 +20,8 @@ export { preloadMaps } from './preload-maps';
 export { MAX_STATION_HEIGHT_KM, MIN_STATION_HEIGHT_KM } from './site-input';
 
 export type { SiteClimate } from './site-climate';
+export type { TotalAttenuationOptions } from './total-attenuation';
+export type { AttenuationComponents } from '../engine/p618-total-attenuation';
 export type { AtmosphereLevel, SiteAtmosphere, SiteAtmosphereOptions } from './site-atmosphere';
 export type { VapourAtOptions, WaterVapour } from './p836-6-water-vapour';
 export type { ReducedCloudLiquidOptions } from './p840-8-cloud-liquid';

@@ -73,7 +73,8 @@ export function acmThroughput(o: {
   clearSkyEsN0Db: number;
   symbolRateMsps: number;
   implementationMarginDb: number;
-  rainPath: RainPath;
+  /** The path's exceedance: rain alone (prepareRainPath) or the P.618-14 §2.5 total (totalAttenuationCurve). */
+  rainPath: Pick<RainPath, 'exceedanceOf'>;
   lnbNoiseTempK: number;
   antennaNoiseTempK: number;
   mediumTempK: number;

@@ -1,3 +1,4 @@
+import { PHYSICAL_RANGES } from './physical-ranges';
 import { SPEED_OF_LIGHT_M_S } from './physical-constants';
 import { requireNumberInRange, requirePositive } from './validate';
 
@@ -14,7 +15,7 @@ export const BEAMWIDTH_FACTOR_DEG = 70;
  * dishBeamwidth({ diameterM: 1.2, frequencyGHz: 12 }) // => 1.457… degrees
  */
 export function dishBeamwidth(options: { diameterM: number; frequencyGHz: number }): number {
-  const d = requirePositive(options.diameterM, 'diameterM');
+  const d = requireNumberInRange(options.diameterM, 'diameterM', PHYSICAL_RANGES.diameterM.min, PHYSICAL_RANGES.diameterM.max, 'physical range');
   const f = requireNumberInRange(options.frequencyGHz, 'frequencyGHz', 0.1, 1000);
   return dishBeamwidthUnchecked(d, f);
 }

@@ -1,3 +1,4 @@
+import { PHYSICAL_RANGES } from './physical-ranges';
 import { SPEED_OF_LIGHT_M_S } from './physical-constants';
 import { EngineInputError } from './errors';
 import { requireNumberInRange, requirePositive } from './validate';
@@ -13,7 +14,7 @@ import { requireNumberInRange, requirePositive } from './validate';
  * dishGain({ diameterM: 1.2, efficiency: 0.65, frequencyGHz: 12 }) // => 41.70… dBi
  */
 export function dishGain(options: { diameterM: number; efficiency: number; frequencyGHz: number }): number {
-  const d = requirePositive(options.diameterM, 'diameterM');
+  const d = requireNumberInRange(options.diameterM, 'diameterM', PHYSICAL_RANGES.diameterM.min, PHYSICAL_RANGES.diameterM.max, 'physical range');
   const eta = requirePositive(options.efficiency, 'efficiency');
   if (eta > 1) throw new EngineInputError('efficiency', `must be at most 1; got ${eta}`, eta);
   const f = requireNumberInRange(options.frequencyGHz, 'frequencyGHz', 0.1, 1000);

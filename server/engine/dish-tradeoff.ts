@@ -11,7 +11,9 @@ import { linkBudgetUnchecked } from './link-budget';
 import { parseMoneyUsd } from './money';
 import { NEVER_WORKS, outageFigures, type OutageFigures } from './outage-figures';
 import { combinedFadeExceedance } from './p618-combined-fade';
-import { MAX_FREQUENCY_GHZ_P618_14, MIN_FREQUENCY_GHZ_P618_14, prepareRainPathUnchecked, type RainPath } from './p618-rain-path';
+import { MAX_FREQUENCY_GHZ_P618_14, MIN_FREQUENCY_GHZ_P618_14, prepareRainPathUnchecked, type RainExceedance } from './p618-rain-path';
+import { MIN_ELEVATION_DEG_ATMOSPHERE, prepareAtmosphericPath, totalAttenuationCurve, type AtmosphericPath, type TotalAttenuationCurve } from './p618-total-attenuation';
+import { checkSiteAtmosphere, type SiteAtmosphere } from './site-atmosphere';
 import { scintillationSigmaUnchecked } from './p618-scintillation';
 import { resolveRainHeight } from './p839-rain-height';
 import { pointingLossUnchecked } from './pointing-loss';
@@ -29,7 +31,11 @@ import type {
   UplinkOption,
 } from './tradeoff-types';
 import { ENGINE_VERSION } from './version';
+import { PHYSICAL_RANGES as R } from './physical-ranges';
 import { requireFinite, requireNonNegative, requireNumberInRange, requirePositive } from './validate';
+
+/** A path whose attenuation exceedance can be asked: rain alone, or the P.618 §2.5 total. */
+type FadeCurve = { exceedanceOf(attenuationDb: number): RainExceedance } & Partial<Pick<TotalAttenuationCurve, 'componentsAt'>>;
 
 /** Below this elevation the user is warned (engine.md §3). */
 const LOW_ELEVATION_WARNING_DEG = 5;
@@ -98,12 +104,12 @@ export function dishTradeoff(scenario: TradeoffScenario): TradeoffResult {
   const satLon = requireNumberInRange(sat.longitudeDeg, 'satellite.longitudeDeg', -360, 360);
 
   const fDown = requireNumberInRange(dl.frequencyGHz, 'downlink.frequencyGHz', MIN_FREQUENCY_GHZ_P618_14, MAX_FREQUENCY_GHZ_P618_14, 'ITU-R P.618-14 rain attenuation is stated for 1–55 GHz');
-  const tiltDown = requireFinite(dl.tiltDeg, 'downlink.tiltDeg');
-  const eirpDown = requireFinite(dl.eirpDbw, 'downlink.eirpDbw');
-  const rsDown = requirePositive(dl.symbolRateMsps, 'downlink.symbolRateMsps');
-  const reqDown = requireFinite(dl.requiredEsN0Db, 'downlink.requiredEsN0Db');
-  const implDown = requireNonNegative(dl.implementationMarginDb, 'downlink.implementationMarginDb');
-  const otherDown = dl.otherLossesDb === undefined ? 0 : requireNonNegative(dl.otherLossesDb, 'downlink.otherLossesDb');
+  const tiltDown = inRange(dl.tiltDeg, 'downlink.tiltDeg', R.tiltDeg);
+  const eirpDown = inRange(dl.eirpDbw, 'downlink.eirpDbw', R.eirpDbw);
+  const rsDown = inRange(dl.symbolRateMsps, 'downlink.symbolRateMsps', R.symbolRateMsps);
+  const reqDown = inRange(dl.requiredEsN0Db, 'downlink.requiredEsN0Db', R.esN0Db);
+  const implDown = inRange(dl.implementationMarginDb, 'downlink.implementationMarginDb', R.marginDb);
+  const otherDown = dl.otherLossesDb === undefined ? 0 : inRange(dl.otherLossesDb, 'downlink.otherLossesDb', R.otherLossesDb);
   const pointingErr = dl.pointingErrorDeg === undefined ? 0 : requireNumberInRange(dl.pointingErrorDeg, 'downlink.pointingErrorDeg', 0, 10);
   const temps = checkSystemNoise(rx, 'receiver.');
 
@@ -120,7 +126,7 @@ export function dishTradeoff(scenario: TradeoffScenario): TradeoffResult {
   dishes.forEach((d, i) => {
     const f = `dishes[${i}]`;
     requireObject(d, f);
-    diam.push(requirePositive(d.diameterM, `${f}.diameterM`));
+    diam.push(inRange(d.diameterM, `${f}.diameterM`, R.diameterM));
     const e = requirePositive(d.efficiency, `${f}.efficiency`);
     if (e > 1) throw new EngineInputError(`${f}.efficiency`, `must be at most 1; got ${e}`, e);
     eff.push(e);
@@ -164,9 +170,21 @@ export function dishTradeoff(scenario: TradeoffScenario): TradeoffResult {
   }
   const fslDown = freeSpaceLossUnchecked(look.rangeKm, fDown);
 
+  // Gases, clouds and scintillation from the site's atmosphere (engine.md §7): the outage is then
+  // where the TOTAL attenuation of P.618-14 §2.5 reaches the fade threshold.
+  let atmosphere: SiteAtmosphere | null = scenario.atmosphere === undefined ? null : checkSiteAtmosphere(scenario.atmosphere);
+  if (atmosphere && look.elevationDeg < MIN_ELEVATION_DEG_ATMOSPHERE) {
+    warnings.push({ code: 'atmosphere-skipped', message: `Gases, clouds and scintillation (ITU-R P.676-12, P.840-8, P.618-14 §2.4.1) are stated for elevations of 5° and above; at ${look.elevationDeg.toFixed(1)}° the outage is rain only.` });
+    atmosphere = null;
+  }
+  const atmPathOf = (frequencyGHz: number): AtmosphericPath | null =>
+    atmosphere ? prepareAtmosphericPath({ frequencyGHz, elevationDeg: look.elevationDeg, stationHeightKm: altitudeKm, atmosphere }) : null;
+  const atmDown = atmPathOf(fDown);
+
   // Optional layers, validated before any per-dish work.
   const up = scenario.uplink === undefined ? null : checkUplink(scenario.uplink, dishes);
   const upPath = up ? prepareRainPathUnchecked({ ...pathBase, frequencyGHz: up.frequencyGHz, tiltDeg: up.tiltDeg }) : null;
+  const atmUp = up ? atmPathOf(up.frequencyGHz) : null;
   const fslUp = up ? freeSpaceLossUnchecked(look.rangeKm, up.frequencyGHz) : 0;
   const envelope = scenario.acm === undefined ? null : acmEnvelope(checkModcods(scenario.acm));
   let nWet: number | null = null;
@@ -196,7 +214,11 @@ export function dishTradeoff(scenario: TradeoffScenario): TradeoffResult {
     const gt = gain - tSysDb;
     const lb = linkBudgetUnchecked(eirpDown, fslDown + otherDown + lp, gt, rsDown, thresholdDown);
     const aStar = fadeThresholdUnchecked(lb.marginDb, temps.lnb, temps.ant, temps.medium);
-    const figures = aStar === null ? NEVER_WORKS : exceedanceFigures(downPath, aStar);
+    const downCurve: FadeCurve = atmDown && atmosphere
+      ? totalAttenuationCurve({ rainPath: downPath, atmosphericPath: atmDown, scintillationSigmaDb: scintillationSigmaUnchecked(fDown, look.elevationDeg, diam[i], eff[i], atmosphere.nWetMedian) })
+      : downPath;
+    const figures = aStar === null ? NEVER_WORKS : exceedanceFigures(downCurve, aStar);
+    const componentsAtOutage = aStar !== null && downCurve.componentsAt ? downCurve.componentsAt(figures.outagePercent) : null;
     if (aStar === null) {
       warnings.push({ code: 'dish-does-not-close', optionIndex: i, message: `The ${diam[i]} m dish does not close the downlink even in clear sky (short by ${(-lb.marginDb).toFixed(2)} dB).` });
     } else if (figures.outageBound !== 'none') {
@@ -206,7 +228,10 @@ export function dishTradeoff(scenario: TradeoffScenario): TradeoffResult {
     let uplink: UplinkOption | null = null;
     let twoWay: TwoWayOutage | null = null;
     if (up && upPath) {
-      uplink = uplinkOption(up, i, diam[i], eff[i], fslUp, pointingErr, upPath);
+      const upCurve: FadeCurve = atmUp && atmosphere
+        ? totalAttenuationCurve({ rainPath: upPath, atmosphericPath: atmUp, scintillationSigmaDb: scintillationSigmaUnchecked(up.frequencyGHz, look.elevationDeg, diam[i], eff[i], atmosphere.nWetMedian) })
+        : upPath;
+      uplink = uplinkOption(up, i, diam[i], eff[i], fslUp, pointingErr, upCurve);
       if (!uplink.closes) {
         warnings.push({ code: 'uplink-does-not-close', optionIndex: i, message: `The ${diam[i]} m dish does not close the uplink even in clear sky (short by ${(-uplink.marginDb).toFixed(2)} dB).` });
       }
@@ -214,7 +239,7 @@ export function dishTradeoff(scenario: TradeoffScenario): TradeoffResult {
     }
 
     const acm = envelope
-      ? acmThroughput({ envelope, clearSkyEsN0Db: lb.esN0Db, symbolRateMsps: rsDown, implementationMarginDb: implDown, rainPath: downPath, lnbNoiseTempK: temps.lnb, antennaNoiseTempK: temps.ant, mediumTempK: temps.medium })
+      ? acmThroughput({ envelope, clearSkyEsN0Db: lb.esN0Db, symbolRateMsps: rsDown, implementationMarginDb: implDown, rainPath: downCurve, lnbNoiseTempK: temps.lnb, antennaNoiseTempK: temps.ant, mediumTempK: temps.medium })
       : null;
     if (acm?.modelRangeLimited) {
       warnings.push({ code: 'acm-model-range', optionIndex: i, message: `Some MODCOD steps of the ${diam[i]} m dish are exceeded more than 5 % of the year (beyond the ITU-R P.618 range); its expected throughput is an upper bound.` });
@@ -246,6 +271,7 @@ export function dishTradeoff(scenario: TradeoffScenario): TradeoffResult {
       closes: aStar !== null,
       fadeThresholdDb: aStar,
       ...figures,
+      attenuationAtOutage: componentsAtOutage,
       uplink,
       twoWay,
       acm,
@@ -300,6 +326,10 @@ export function dishTradeoff(scenario: TradeoffScenario): TradeoffResult {
     rainHeightSource: height.source,
     climateSource: climate,
     freeSpaceLossDb: fslDown,
+    attenuationModel: atmDown ? 'total' : 'rain',
+    atmosphere: atmDown && atmosphere
+      ? { pressureHpa: atmDown.pressureHpa, surfaceTemperatureK: atmosphere.surfaceTemperatureK, nWetMedian: atmosphere.nWetMedian, gas1PctDb: atmDown.gasAt(1), cloud1PctDb: atmDown.cloudAt(1) }
+      : null,
     rainAttenuation001Db: downPath.a001Db,
     options,
     recommendation,
@@ -307,12 +337,17 @@ export function dishTradeoff(scenario: TradeoffScenario): TradeoffResult {
   };
 }
 
+/** A number within its physical range (PHYSICAL_RANGES), else EngineInputError naming the field. */
+function inRange(value: unknown, field: string, range: { min: number; max: number }): number {
+  return requireNumberInRange(value, field, range.min, range.max, 'physical range');
+}
+
 function requireObject<T>(value: T, field: string): NonNullable<T> {
   if (value === null || typeof value !== 'object') throw new EngineInputError(field, 'is required', value);
   return value as NonNullable<T>;
 }
 
-function exceedanceFigures(path: RainPath, attenuationDb: number): OutageFigures {
+function exceedanceFigures(path: FadeCurve, attenuationDb: number): OutageFigures {
   const ex = path.exceedanceOf(attenuationDb);
   return outageFigures(ex.pPercent, ex.bound);
 }
@@ -338,7 +373,7 @@ interface CheckedUplink {
 
 function checkUplink(raw: NonNullable<TradeoffScenario['uplink']>, dishes: TradeoffScenario['dishes']): CheckedUplink {
   const u = requireObject(raw, 'uplink');
-  const perDishHpaW = dishes.map((d, i) => (d.hpaPowerW === undefined ? null : requirePositive(d.hpaPowerW, `dishes[${i}].hpaPowerW`)));
+  const perDishHpaW = dishes.map((d, i) => (d.hpaPowerW === undefined ? null : inRange(d.hpaPowerW, `dishes[${i}].hpaPowerW`, R.hpaPowerW)));
   const hasEirp = u.terminalEirpDbw !== undefined;
   const anyHpa = u.hpaPowerW !== undefined || perDishHpaW.some((p) => p !== null);
   if (hasEirp && anyHpa) {
@@ -354,22 +389,22 @@ function checkUplink(raw: NonNullable<TradeoffScenario['uplink']>, dishes: Trade
       );
     }
   }
-  const implementationMarginDb = u.implementationMarginDb === undefined ? 0 : requireNonNegative(u.implementationMarginDb, 'uplink.implementationMarginDb');
+  const implementationMarginDb = u.implementationMarginDb === undefined ? 0 : inRange(u.implementationMarginDb, 'uplink.implementationMarginDb', R.marginDb);
   return {
     frequencyGHz: requireNumberInRange(u.frequencyGHz, 'uplink.frequencyGHz', MIN_FREQUENCY_GHZ_P618_14, MAX_FREQUENCY_GHZ_P618_14, 'ITU-R P.618-14 rain attenuation is stated for 1–55 GHz'),
-    tiltDeg: requireFinite(u.tiltDeg, 'uplink.tiltDeg'),
-    terminalEirpDbw: hasEirp ? requireFinite(u.terminalEirpDbw, 'uplink.terminalEirpDbw') : null,
-    hpaPowerW: u.hpaPowerW === undefined ? null : requirePositive(u.hpaPowerW, 'uplink.hpaPowerW'),
+    tiltDeg: inRange(u.tiltDeg, 'uplink.tiltDeg', R.tiltDeg),
+    terminalEirpDbw: hasEirp ? inRange(u.terminalEirpDbw, 'uplink.terminalEirpDbw', R.terminalEirpDbw) : null,
+    hpaPowerW: u.hpaPowerW === undefined ? null : inRange(u.hpaPowerW, 'uplink.hpaPowerW', R.hpaPowerW),
     perDishHpaW,
-    feedLossDb: u.feedLossDb === undefined ? 0 : requireNonNegative(u.feedLossDb, 'uplink.feedLossDb'),
-    satelliteGOverTDbK: requireFinite(u.satelliteGOverTDbK, 'uplink.satelliteGOverTDbK'),
-    symbolRateMsps: requirePositive(u.symbolRateMsps, 'uplink.symbolRateMsps'),
-    thresholdDb: requireFinite(u.requiredEsN0Db, 'uplink.requiredEsN0Db') + implementationMarginDb,
-    otherLossesDb: u.otherLossesDb === undefined ? 0 : requireNonNegative(u.otherLossesDb, 'uplink.otherLossesDb'),
+    feedLossDb: u.feedLossDb === undefined ? 0 : inRange(u.feedLossDb, 'uplink.feedLossDb', R.feedLossDb),
+    satelliteGOverTDbK: inRange(u.satelliteGOverTDbK, 'uplink.satelliteGOverTDbK', R.satelliteGOverTDbK),
+    symbolRateMsps: inRange(u.symbolRateMsps, 'uplink.symbolRateMsps', R.symbolRateMsps),
+    thresholdDb: inRange(u.requiredEsN0Db, 'uplink.requiredEsN0Db', R.esN0Db) + implementationMarginDb,
+    otherLossesDb: u.otherLossesDb === undefined ? 0 : inRange(u.otherLossesDb, 'uplink.otherLossesDb', R.otherLossesDb),
   };
 }
 
-function uplinkOption(up: CheckedUplink, i: number, d: number, eta: number, fslUp: number, pointingErr: number, path: RainPath): UplinkOption {
+function uplinkOption(up: CheckedUplink, i: number, d: number, eta: number, fslUp: number, pointingErr: number, path: FadeCurve): UplinkOption {
   const gain = dishGainUnchecked(d, eta, up.frequencyGHz);
   const lp = pointingErr > 0 ? pointingLossUnchecked(pointingErr, dishBeamwidthUnchecked(d, up.frequencyGHz)) : 0;
   const hpa = up.perDishHpaW[i] ?? up.hpaPowerW;
@@ -378,7 +413,8 @@ function uplinkOption(up: CheckedUplink, i: number, d: number, eta: number, fslU
   // No noise increase at the satellite (it already looks at a warm Earth): A*_up = M_up.
   const closes = lb.marginDb > 0;
   const figures = closes ? exceedanceFigures(path, lb.marginDb) : NEVER_WORKS;
-  return { gainDbi: gain, eirpDbw: eirp, clearSkyEsN0Db: lb.esN0Db, marginDb: lb.marginDb, closes, fadeThresholdDb: closes ? lb.marginDb : null, ...figures };
+  const attenuationAtOutage = closes && path.componentsAt ? path.componentsAt(figures.outagePercent) : null;
+  return { gainDbi: gain, eirpDbw: eirp, clearSkyEsN0Db: lb.esN0Db, marginDb: lb.marginDb, closes, fadeThresholdDb: closes ? lb.marginDb : null, ...figures, attenuationAtOutage };
 }
 
 /** Conservative two-way sum p_up + p_down (engine.md §4), an upper bound. */
@@ -408,8 +444,8 @@ function checkModcods(acm: NonNullable<TradeoffScenario['acm']>): Modcod[] {
     if (typeof m.name !== 'string' || m.name.length === 0) throw new EngineInputError(`${f}.name`, 'a MODCOD needs a name', m.name);
     return {
       name: m.name,
-      spectralEfficiencyBitPerSymbol: requirePositive(m.spectralEfficiencyBitPerSymbol, `${f}.spectralEfficiencyBitPerSymbol`),
-      idealEsN0Db: requireFinite(m.idealEsN0Db, `${f}.idealEsN0Db`),
+      spectralEfficiencyBitPerSymbol: requireNumberInRange(m.spectralEfficiencyBitPerSymbol, `${f}.spectralEfficiencyBitPerSymbol`, 0.01, 10, 'physical range'),
+      idealEsN0Db: inRange(m.idealEsN0Db, `${f}.idealEsN0Db`, R.esN0Db),
     };
   });
 }

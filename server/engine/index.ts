@@ -1,7 +1,7 @@
 /**
- * FadeLedger trade-off engine: pure functions, no I/O, no framework imports (engine.md).
- * The names in the first block are the public API of issue 3; the rest are internals the
- * product may use (tables, helpers, types).
+ * FadeLedger trade-off engine: pure functions, no I/O, no framework imports (server/engine/README.md).
+ * The names in the first block are the engine's main entry points; the rest are the methods and
+ * helpers the product may use (tables, helpers, types).
  *
  * @example
  * import { rainAttenuation, dishTradeoff, ENGINE_VERSION } from '@/server/engine';
@@ -44,6 +44,14 @@ export {
   prepareRainPath,
 } from './p618-rain-path';
 export { combinedFadeExceedance } from './p618-combined-fade';
+export { HELD_BELOW_P_PERCENT_P618_14, MIN_ELEVATION_DEG_ATMOSPHERE, prepareAtmosphericPath, totalAttenuationCurve } from './p618-total-attenuation';
+export { gasSpecificAttenuation } from './p676-12-specific-attenuation';
+export { gasSlantPathAttenuation } from './p676-12-gas-slant-path';
+export { standardPressureHpaP835 } from './p835-standard-pressure';
+export { CLOUD_LIQUID_TEMPERATURE_K_P840_8, cloudAttenuation, cloudMassAbsorption } from './p840-8-cloud-attenuation';
+export { atmosphereAt, checkSiteAtmosphere } from './site-atmosphere';
+export { PHYSICAL_RANGES } from './physical-ranges';
+export { SolverNumericError } from './math/brent';
 export { dishGain } from './dish-gain';
 export { BEAMWIDTH_FACTOR_DEG, dishBeamwidth } from './dish-beamwidth';
 export { POINTING_LOSS_COEFFICIENT_DB, pointingLoss } from './pointing-loss';
@@ -67,6 +75,8 @@ export type { MonthlyRainClimate, MonthlyRainClimateOptions } from './p837-7-mon
 export type { ScintillationFadeOptions } from './p618-scintillation';
 export type { GeoLookAngles, GeoLookAnglesOptions } from './geo-look-angles';
 export type { ClimateZone } from './p837-1-climate-zones';
+export type { AttenuationComponents, AtmosphericPath, TotalAttenuationCurve } from './p618-total-attenuation';
+export type { AtmosphereAtP, AtmosphereLevel, SiteAtmosphere } from './site-atmosphere';
 export type { MeasuredRainCurve, MeasuredRainPoint } from './measured-rain-curve';
 export type { ClimateSource, ClimateSourceKind, RainClimateInput, RainHeightInput } from './rain-climate-source';
 export type { RainHeight, RainHeightSource } from './p839-rain-height';

@@ -1,5 +1,6 @@
+import { PHYSICAL_RANGES } from './physical-ranges';
 import { BOLTZMANN_DB } from './physical-constants';
-import { requireFinite, requireNonNegative, requirePositive } from './validate';
+import { requireFinite, requireNonNegative, requireNumberInRange } from './validate';
 
 /** Options of {@link linkBudget}: one hop, clear sky. */
 export interface LinkBudgetOptions {
@@ -42,12 +43,12 @@ export interface LinkBudget {
  * // => { cOverN0DbHz: 94.1, esN0Db: 19.328…, marginDb: 10.418… }
  */
 export function linkBudget(options: LinkBudgetOptions): LinkBudget {
-  const eirp = requireFinite(options.eirpDbw, 'eirpDbw');
+  const eirp = requireNumberInRange(options.eirpDbw, 'eirpDbw', PHYSICAL_RANGES.eirpDbw.min, PHYSICAL_RANGES.eirpDbw.max, 'physical range');
   const fsl = requireFinite(options.freeSpaceLossDb, 'freeSpaceLossDb');
   const other = options.otherLossesDb === undefined ? 0 : requireNonNegative(options.otherLossesDb, 'otherLossesDb');
   const gt = requireFinite(options.gOverTDbK, 'gOverTDbK');
-  const rs = requirePositive(options.symbolRateMsps, 'symbolRateMsps');
-  const req = requireFinite(options.requiredEsN0Db, 'requiredEsN0Db');
+  const rs = requireNumberInRange(options.symbolRateMsps, 'symbolRateMsps', PHYSICAL_RANGES.symbolRateMsps.min, PHYSICAL_RANGES.symbolRateMsps.max, 'physical range');
+  const req = requireNumberInRange(options.requiredEsN0Db, 'requiredEsN0Db', PHYSICAL_RANGES.esN0Db.min, PHYSICAL_RANGES.esN0Db.max, 'physical range');
   const impl = options.implementationMarginDb === undefined ? 0 : requireNonNegative(options.implementationMarginDb, 'implementationMarginDb');
   return linkBudgetUnchecked(eirp, fsl + other, gt, rs, req + impl);
 }

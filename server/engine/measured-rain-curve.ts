@@ -1,3 +1,4 @@
+import { PHYSICAL_RANGES } from './physical-ranges';
 import { EngineInputError } from './errors';
 import { requireFinite } from './validate';
 
@@ -47,6 +48,9 @@ export function measuredRainCurve(options: { points: readonly MeasuredRainPoint[
     const r = requireFinite(pt?.rainRateMmH, `${field}[${i}].rainRateMmH`);
     if (p <= 0 || p > 100) throw new EngineInputError(`${field}[${i}].pPercent`, `must be above 0 and at most 100; got ${p}`, p);
     if (r <= 0) throw new EngineInputError(`${field}[${i}].rainRateMmH`, `must be above 0 (log-log interpolation); got ${r}`, r);
+    if (r > PHYSICAL_RANGES.measuredRainRateMmH.max) {
+      throw new EngineInputError(`${field}[${i}].rainRateMmH`, `must be at most ${PHYSICAL_RANGES.measuredRainRateMmH.max} mm/h (physical range); got ${r}`, r);
+    }
     return { i, p, r };
   });
   indexed.sort((a, b) => b.p - a.p);

@@ -2,6 +2,7 @@ import { sampleCurve, type SampledCurve } from './math/largest-crossing';
 import { combineRainCoefficients } from './p838-rain-coefficients';
 import { requireFinite, requireNumberInRange } from './validate';
 import { EngineInputError } from './errors';
+import { PHYSICAL_RANGES } from './physical-ranges';
 
 /** Inputs of the ITU-R P.618-14 §2.2.1.1 rain attenuation method (steps 1–9). */
 export interface RainPathOptions {
@@ -101,8 +102,8 @@ export function checkRainPathOptions(o: RainPathOptions, prefix = ''): void {
   const el = requireFinite(o.elevationDeg, `${prefix}elevationDeg`);
   if (el <= 0) throw new EngineInputError(`${prefix}elevationDeg`, `satellite at or below the horizon (elevation ${el}°)`, el);
   if (el > 90) throw new EngineInputError(`${prefix}elevationDeg`, `must be at most 90°; got ${el}`, el);
-  requireFinite(o.tiltDeg, `${prefix}tiltDeg`);
-  requireNumberInRange(o.r001MmH, `${prefix}r001MmH`, 0, 1000);
+  requireNumberInRange(o.tiltDeg, `${prefix}tiltDeg`, PHYSICAL_RANGES.tiltDeg.min, PHYSICAL_RANGES.tiltDeg.max, 'physical range');
+  requireNumberInRange(o.r001MmH, `${prefix}r001MmH`, PHYSICAL_RANGES.r001MmH.min, PHYSICAL_RANGES.r001MmH.max, 'physical range');
   requireNumberInRange(o.rainHeightKm, `${prefix}rainHeightKm`, -1, 10.36);
 }
 

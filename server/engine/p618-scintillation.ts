@@ -13,7 +13,11 @@ export interface ScintillationFadeOptions {
   efficiency: number;
   /** Wet term of the surface refractivity N_wet (ITU-R P.453), N-units. */
   nWet: number;
-  /** Percentage of time, 0.01 < p ≤ 50 % (step 8). p = 0.01 is accepted as the range end. */
+  /**
+   * Percentage of time, 0.001–50 %. Step 8 is written for 0.01 < p ≤ 50 %; below 0.01 % the
+   * engine keeps following the step 8 polynomial, as the ITU-R SG 3 validation examples of
+   * P.618-13 §2.5 do at 0.001 % (a(p) rises smoothly there; holding it flat understates fades).
+   */
   pPercent: number;
 }
 
@@ -35,7 +39,7 @@ const DEG = Math.PI / 180;
  * Frequencies 1–55 GHz are accepted so Ka-band studies can show the layer, but outside the
  * 4–20 GHz of the Recommendation's tests the figure is an extrapolation of the method.
  *
- * Bad input: p outside 0.01–50 %, θ < 5°, frequency outside 1–55 GHz, D ≤ 0, η outside (0, 1],
+ * Bad input: p outside 0.001–50 %, θ < 5°, frequency outside 1–55 GHz, D ≤ 0, η outside (0, 1],
  * N_wet outside 0–200 or NaN throws EngineInputError naming the field.
  *
  * @example
@@ -53,7 +57,7 @@ export function scintillationFade(options: ScintillationFadeOptions): number {
   const eta = requirePositive(options.efficiency, 'efficiency');
   if (eta > 1) throw new EngineInputError('efficiency', `must be at most 1; got ${eta}`, eta);
   const nWet = requireNumberInRange(options.nWet, 'nWet', 0, 200);
-  const p = requireNumberInRange(options.pPercent, 'pPercent', 0.01, 50, 'ITU-R P.618-14 §2.4.1 step 8 covers 0.01–50 %');
+  const p = requireNumberInRange(options.pPercent, 'pPercent', 0.001, 50, 'ITU-R P.618-14 §2.4.1 step 8 covers 0.01–50 %, extended to the 0.001 % of the §2.5 validation examples');
   return scintillationSigmaUnchecked(f, el, d, eta, nWet) * scintillationTimeFactor(p);
 }
 

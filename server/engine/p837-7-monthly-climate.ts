@@ -1,4 +1,5 @@
-import { brentRoot } from './math/brent';
+import { PHYSICAL_RANGES } from './physical-ranges';
+import { newtonInBracket } from './math/newton-in-bracket';
 import { normalTail } from './math/normal-tail';
 import { requireFiniteArray, requireNonNegative, requireNumberInRange } from './validate';
 
@@ -57,7 +58,7 @@ const MAX_P_PERCENT = 100;
 export function monthlyRainClimate(options: MonthlyRainClimateOptions): MonthlyRainClimate {
   const mt = requireFiniteArray(options.monthlyRainfallMm, 'monthlyRainfallMm', 12);
   const temp = requireFiniteArray(options.monthlyTemperatureC, 'monthlyTemperatureC', 12);
-  mt.forEach((v, i) => requireNonNegative(v, `monthlyRainfallMm[${i}]`));
+  mt.forEach((v, i) => requireNumberInRange(v, `monthlyRainfallMm[${i}]`, PHYSICAL_RANGES.monthlyRainfallMm.min, PHYSICAL_RANGES.monthlyRainfallMm.max, 'physical range'));
   temp.forEach((v, i) => requireNumberInRange(v, `monthlyTemperatureC[${i}]`, -90, 60));
 
   // Per-month weights w_ii = N_ii P0_ii / 365.25 and log medians ln r_ii − 0.7938 (steps 2–4).
@@ -90,6 +91,16 @@ export function monthlyRainClimate(options: MonthlyRainClimateOptions): MonthlyR
     return r === 0 ? p0 : exceeded(Math.log(r));
   };
 
+  /** d/d(ln r) of P(R > r): −Σ w φ(z)/σ (the log-normal densities of step 4). */
+  const slope = (lnR: number): number => {
+    let sum = 0;
+    for (let i = 0; i < weights.length; i++) {
+      const z = (lnR - lnMedians[i]) / LN_SIGMA_P837_7;
+      sum += weights[i] * Math.exp(-0.5 * z * z);
+    }
+    return -sum / (LN_SIGMA_P837_7 * Math.sqrt(2 * Math.PI));
+  };
+
   const rainRateExceeded = (pPercent: number): number => {
     const p = requireNumberInRange(pPercent, 'pPercent', MIN_P_PERCENT, MAX_P_PERCENT);
     if (p >= p0) return 0;
@@ -100,7 +111,7 @@ export function monthlyRainClimate(options: MonthlyRainClimateOptions): MonthlyR
     let hi = Math.log(100);
     while (g(lo) < 0) lo -= 4;
     while (g(hi) > 0) hi += 2;
-    return Math.exp(brentRoot(g, lo, hi, 1e-13));
+    return Math.exp(newtonInBracket(g, (x) => slope(x) / Math.max(exceeded(x), 1e-300), lo, hi));
   };
 
   return { p0Percent: p0, rainRateExceeded, probabilityExceeded };

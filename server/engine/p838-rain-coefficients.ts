@@ -1,3 +1,4 @@
+import { PHYSICAL_RANGES } from './physical-ranges';
 import { requireFinite, requireNumberInRange } from './validate';
 
 /** Options of {@link rainCoefficients}. */
@@ -116,6 +117,6 @@ export function rainCoefficients(options: RainCoefficientsOptions): RainCoeffici
     'ITU-R P.838-3 is fitted for 1–1000 GHz',
   );
   const el = requireNumberInRange(options.elevationDeg, 'elevationDeg', 0, 90);
-  const tilt = requireFinite(options.tiltDeg, 'tiltDeg');
+  const tilt = requireNumberInRange(options.tiltDeg, 'tiltDeg', PHYSICAL_RANGES.tiltDeg.min, PHYSICAL_RANGES.tiltDeg.max, 'physical range');
   return combineRainCoefficients(f, el, tilt);
 }

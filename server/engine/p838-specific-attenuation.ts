@@ -1,5 +1,6 @@
+import { PHYSICAL_RANGES } from './physical-ranges';
 import { rainCoefficients, type RainCoefficientsOptions } from './p838-rain-coefficients';
-import { requireNonNegative } from './validate';
+import { requireNumberInRange } from './validate';
 
 /** Options of {@link rainSpecificAttenuation}. */
 export interface RainSpecificAttenuationOptions extends RainCoefficientsOptions {
@@ -20,6 +21,6 @@ export interface RainSpecificAttenuationOptions extends RainCoefficientsOptions 
  */
 export function rainSpecificAttenuation(options: RainSpecificAttenuationOptions): number {
   const { k, alpha } = rainCoefficients(options);
-  const r = requireNonNegative(options.rainRateMmH, 'rainRateMmH');
+  const r = requireNumberInRange(options.rainRateMmH, 'rainRateMmH', 0, PHYSICAL_RANGES.measuredRainRateMmH.max, 'physical range');
   return r === 0 ? 0 : k * r ** alpha;
 }

@@ -1,4 +1,5 @@
 import { EngineInputError } from './errors';
+import { PHYSICAL_RANGES } from './physical-ranges';
 import { measuredRainCurve, type MeasuredRainPoint } from './measured-rain-curve';
 import { climateZoneRainRate, isClimateZone, type ClimateZone } from './p837-1-climate-zones';
 import { monthlyRainClimate } from './p837-7-monthly-climate';
@@ -15,12 +16,17 @@ export interface RainHeightInput {
 /** The four rain-climate sources of engine.md §1; give exactly one. */
 export type RainClimateInput =
   | ({ r001MmH: number } & RainHeightInput)
-  | ({ monthlyRainfallMm: readonly number[]; monthlyTemperatureC: readonly number[] } & RainHeightInput)
+  | ({
+      monthlyRainfallMm: readonly number[];
+      monthlyTemperatureC: readonly number[];
+      /** 'itu-r-maps' when the normals were read from the ITU-R P.837-7 / P.1510-1 maps at the site (the default source). */
+      origin?: 'itu-r-maps' | 'user';
+    } & RainHeightInput)
   | ({ measuredCurve: readonly MeasuredRainPoint[] } & RainHeightInput)
   | ({ climateZone: ClimateZone } & RainHeightInput);
 
 /** Which source was used; shown on the result and the quote. */
-export type ClimateSourceKind = 'r001' | 'monthly-normals' | 'measured-curve' | 'climate-zone';
+export type ClimateSourceKind = 'itu-r-maps' | 'r001' | 'monthly-normals' | 'measured-curve' | 'climate-zone';
 
 /** The rain climate as used by the study. */
 export interface ClimateSource {
@@ -60,7 +66,7 @@ export function resolveRainClimate(rain: RainClimateInput, prefix = 'rain.'): Cl
   }
   switch (given[0]) {
     case 'r001MmH': {
-      const v = requireNumberInRange(r.r001MmH, `${prefix}r001MmH`, 0, 1000);
+      const v = requireNumberInRange(r.r001MmH, `${prefix}r001MmH`, PHYSICAL_RANGES.r001MmH.min, PHYSICAL_RANGES.r001MmH.max, 'physical range');
       return { kind: 'r001', label: `R0.01 given by the user (${round(v)} mm/h)`, r001MmH: v, p0Percent: null };
     }
     case 'monthlyRainfallMm': {
@@ -70,7 +76,13 @@ export function resolveRainClimate(rain: RainClimateInput, prefix = 'rain.'): Cl
           monthlyTemperatureC: r.monthlyTemperatureC as number[],
         }),
       );
-      const v = climate.rainRateExceeded(0.01);
+      if (r.origin !== undefined && r.origin !== 'itu-r-maps' && r.origin !== 'user') {
+        throw new EngineInputError(`${prefix}origin`, `must be 'itu-r-maps' or 'user'; got ${String(r.origin)}`, r.origin);
+      }
+      const v = derivedR001(climate.rainRateExceeded(0.01), `${prefix}monthlyRainfallMm`, 'the monthly normals give');
+      if (r.origin === 'itu-r-maps') {
+        return { kind: 'itu-r-maps', label: "ITU-R P.837-7 Annex 1 from the ITU-R P.837-7 rainfall and P.1510-1 temperature maps at the site's coordinates", r001MmH: v, p0Percent: climate.p0Percent };
+      }
       return { kind: 'monthly-normals', label: 'ITU-R P.837-7 Annex 1 from monthly rainfall and temperature normals', r001MmH: v, p0Percent: climate.p0Percent };
     }
     case 'measuredCurve': {
@@ -82,7 +94,7 @@ export function resolveRainClimate(rain: RainClimateInput, prefix = 'rain.'): Cl
           r.measuredCurve,
         );
       }
-      const v = curve.rainRateAt(0.01);
+      const v = derivedR001(curve.rainRateAt(0.01), `${prefix}measuredCurve`, 'the measured curve gives');
       return {
         kind: 'measured-curve',
         label: `measured exceedance curve (${curve.points.length} points, ${curve.minPPercent}–${curve.maxPPercent} %), log-log interpolation at 0.01 %`,
@@ -98,6 +110,13 @@ export function resolveRainClimate(rain: RainClimateInput, prefix = 'rain.'): Cl
       return { kind: 'climate-zone', label: `ITU-R P.837-1 rain climate zone ${r.climateZone}`, r001MmH: v, p0Percent: null };
     }
   }
+}
+
+/** A derived R0.01 must be physical too: the source is refused, naming it, never passed on. */
+function derivedR001(v: number, field: string, what: string): number {
+  const max = PHYSICAL_RANGES.r001MmH.max;
+  if (!Number.isFinite(v) || v > max) throw new EngineInputError(field, `${what} R0.01 = ${round(v)} mm/h, above the physical range (at most ${max} mm/h); check the figures`, v);
+  return v;
 }
 
 function round(v: number): string {

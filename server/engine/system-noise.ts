@@ -1,4 +1,5 @@
-import { requireNonNegative, requirePositive } from './validate';
+import { PHYSICAL_RANGES as R } from './physical-ranges';
+import { requireNonNegative, requireNumberInRange } from './validate';
 
 /** Mean radiating temperature of rain, K (engine.md §4; common practice, no source). */
 export const MEDIUM_TEMPERATURE_K_DEFAULT = 275;
@@ -46,9 +47,9 @@ export function downlinkDegradation(options: SystemNoiseOptions & { attenuationD
 /** Validated temperatures (field names as in the trade-off's `receiver`). */
 export function checkSystemNoise(o: SystemNoiseOptions, prefix = ''): { lnb: number; ant: number; medium: number } {
   return {
-    lnb: requirePositive(o.lnbNoiseTempK, `${prefix}lnbNoiseTempK`),
-    ant: requireNonNegative(o.antennaNoiseTempK, `${prefix}antennaNoiseTempK`),
-    medium: o.mediumTempK === undefined ? MEDIUM_TEMPERATURE_K_DEFAULT : requireNonNegative(o.mediumTempK, `${prefix}mediumTempK`),
+    lnb: requireNumberInRange(o.lnbNoiseTempK, `${prefix}lnbNoiseTempK`, R.lnbNoiseTempK.min, R.lnbNoiseTempK.max, 'physical range'),
+    ant: requireNumberInRange(o.antennaNoiseTempK, `${prefix}antennaNoiseTempK`, R.antennaNoiseTempK.min, R.antennaNoiseTempK.max, 'physical range'),
+    medium: o.mediumTempK === undefined ? MEDIUM_TEMPERATURE_K_DEFAULT : requireNumberInRange(o.mediumTempK, `${prefix}mediumTempK`, R.mediumTempK.min, R.mediumTempK.max, 'physical range'),
   };
 }
 

@@ -4,6 +4,8 @@ import type { OutageFigures } from './outage-figures';
 import type { ExceedanceBound } from './p618-rain-path';
 import type { RainHeightSource } from './p839-rain-height';
 import type { ClimateSource, RainClimateInput } from './rain-climate-source';
+import type { AttenuationComponents } from './p618-total-attenuation';
+import type { SiteAtmosphere } from './site-atmosphere';
 
 /**
  * Input and result types of the dish trade-off (engine.md §4–§5). Conventions for bounds and
@@ -92,6 +94,12 @@ export interface TradeoffScenario {
   acm?: { modcods: readonly AcmModcodInput[] };
   /** Optional scintillation layer (ITU-R P.618-14 §2.4.1): wet refractivity N_wet at the site (ITU-R P.453). */
   scintillation?: { nWet: number };
+  /**
+   * The site's atmosphere from the ITU-R maps (server/climate-maps): with it the outage of every
+   * dish is where the P.618-14 §2.5 TOTAL (gases, clouds, rain, scintillation) reaches the fade
+   * threshold, and each component is reported beside it (engine.md §7).
+   */
+  atmosphere?: SiteAtmosphere;
 }
 
 /** Uplink of one dish. */
@@ -104,6 +112,8 @@ export interface UplinkOption extends OutageFigures {
   closes: boolean;
   /** Uplink rain attenuation that uses up the margin, dB (= margin: no noise increase at the satellite); null when it does not close. */
   fadeThresholdDb: number | null;
+  /** With an atmosphere: each attenuation component at the uplink outage p; null otherwise. */
+  attenuationAtOutage: AttenuationComponents | null;
 }
 
 /** Two-way outage: p_up + p_down (engine.md §4), an UPPER bound on the true two-way outage. */
@@ -137,6 +147,12 @@ export interface TradeoffOption extends OutageFigures {
   closes: boolean;
   /** A*, dB: rain attenuation at which the margin is used up, with the noise increase of rain; null when it does not close. */
   fadeThresholdDb: number | null;
+  /**
+   * With an atmosphere (result.attenuationModel 'total'): gas, cloud, rain and scintillation at
+   * this dish's outage p, and their P.618-14 §2.5 total (= the fade threshold unless bounded);
+   * null for rain-only studies and dishes that do not close.
+   */
+  attenuationAtOutage: AttenuationComponents | null;
   uplink: UplinkOption | null;
   twoWay: TwoWayOutage | null;
   acm: AcmThroughput | null;
@@ -178,6 +194,7 @@ export type EngineWarningCode =
   | 'target-not-met'
   | 'target-beyond-model-range'
   | 'scintillation-skipped'
+  | 'atmosphere-skipped'
   | 'scintillation-frequency-extrapolated'
   | 'acm-model-range'
   | 'pointing-error-large';
@@ -202,6 +219,10 @@ export interface TradeoffResult {
   climateSource: ClimateSource;
   /** Downlink free-space loss, dB. */
   freeSpaceLossDb: number;
+  /** 'total': outages are on the P.618-14 §2.5 total (gases, clouds, rain, scintillation); 'rain': rain only. */
+  attenuationModel: 'total' | 'rain';
+  /** The downlink's atmosphere as used ('total' only): station pressure (P.835), temperature (P.1510-1), N_wet (P.453-14), gases and clouds at 1 %. */
+  atmosphere: { pressureHpa: number; surfaceTemperatureK: number; nWetMedian: number; gas1PctDb: number; cloud1PctDb: number } | null;
   /** Downlink A_0.01 (ITU-R P.618-14 step 9), dB. */
   rainAttenuation001Db: number;
   options: TradeoffOption[];

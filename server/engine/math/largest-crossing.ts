@@ -63,7 +63,9 @@ export function sampleCurve(g: (x: number) => number, lower: number, upper: numb
       if (gs[i] < level) continue;
       // A peak narrower than the grid above this point would hold a larger crossing.
       if (peakAt.x > xs[i + 1] && peakAt.value >= level) break;
-      return { kind: 'at', x: crossing(g, level, xs[i], xs[i + 1]) };
+      // A peak inside this step: the largest crossing lies between it and the upper grid point.
+      const from = peakAt.x > xs[i] && peakAt.x < xs[i + 1] && peakAt.value >= level ? peakAt.x : xs[i];
+      return { kind: 'at', x: crossing(g, level, from, xs[i + 1]) };
     }
     if (peakAt.value < level) return { kind: 'never' };
     // The level is reached only inside a peak narrower than the grid.

@@ -39,7 +39,7 @@ describe('laws of the rain model (ITU-R P.618-14 §2.2.1.1)', () => {
       fc.property(pathArb, pArb, fc.double({ min: 1, max: 3, noNaN: true }), (path, p, factor) => {
         const pp = Math.min(5, Math.max(0.001, p));
         const a1 = rainAttenuation({ ...path, pPercent: pp });
-        const a2 = rainAttenuation({ ...path, r001MmH: Math.min(1000, path.r001MmH * factor), pPercent: pp });
+        const a2 = rainAttenuation({ ...path, r001MmH: Math.min(300, path.r001MmH * factor), pPercent: pp });
         expect(a2).toBeGreaterThanOrEqual(a1 * (1 - 1e-12));
       }),
       RUNS,

@@ -1,0 +1,147 @@
+import { sampleCurve, type SampledCurve } from './math/largest-crossing';
+import { gasSlantPathAttenuation } from './p676-12-gas-slant-path';
+import { standardPressureHpaP835 } from './p835-standard-pressure';
+import { cloudMassAbsorptionUnchecked, CLOUD_LIQUID_TEMPERATURE_K_P840_8 } from './p840-8-cloud-attenuation';
+import { scintillationTimeFactor } from './p618-scintillation';
+import { exceedanceOnCurve, MAX_P_PERCENT_P618_14, MIN_P_PERCENT_P618_14, type RainExceedance, type RainPath } from './p618-rain-path';
+import { atmosphereAt, type SiteAtmosphere } from './site-atmosphere';
+
+/** Below this p the total holds gases and clouds at their 1 % values (ITU-R P.618-14 §2.5). */
+export const HELD_BELOW_P_PERCENT_P618_14 = 1;
+/** Smallest elevation for P.676-12 Annex 2 and P.840-8 slant paths (1/sin θ), degrees. */
+export const MIN_ELEVATION_DEG_ATMOSPHERE = 5;
+/** Memo entries kept per path (the sample grid is shared by every dish of a study). */
+const MEMO_LIMIT = 512;
+const DEG = Math.PI / 180;
+const LN_P_MIN = Math.log(MIN_P_PERCENT_P618_14);
+const LN_P_MAX = Math.log(MAX_P_PERCENT_P618_14);
+/** A total of exactly 0 dB has no logarithm; this floor keeps ln finite and below any real threshold. */
+const LN_FLOOR = -690;
+
+/** The attenuation of each mechanism, and their combination, exceeded for p % of an average year. */
+export interface AttenuationComponents {
+  /** Gases, P.676-12 Annex 2 (reported at p; held at its 0.1 % value below 0.1 %), dB. */
+  gasDb: number;
+  /** Clouds, P.840-8 (reported at p; held at its 0.1 % value below 0.1 %), dB. */
+  cloudDb: number;
+  /** Rain, P.618-14 §2.2.1.1, dB. */
+  rainDb: number;
+  /** Tropospheric scintillation, P.618-14 §2.4.1 a(p)·σ, dB. */
+  scintillationDb: number;
+  /** P.618-14 §2.5: A_G + √((A_R + A_C)² + A_S²), gases and clouds at their 1 % values for p < 1 %, dB. */
+  totalDb: number;
+}
+
+/** Gases and clouds along one slant path at one frequency: the part of the total no dish changes. */
+export interface AtmosphericPath {
+  /** Station pressure, hPa (P.835 standard atmosphere at the station height). */
+  readonly pressureHpa: number;
+  /** A_G(p) and A_C(p), dB, for 0.001 ≤ p ≤ the last tabulated level (held below the first). */
+  gasAt(pPercent: number): number;
+  cloudAt(pPercent: number): number;
+}
+
+/**
+ * Prepare gases (ITU-R P.676-12 Annex 2: surface ρ(p) and V(p) from P.836-6, T from P.1510-1,
+ * pressure from the P.835 standard atmosphere at the station height) and clouds (P.840-8:
+ * L_red(p) K_l(f, 0 °C)/sin θ) for one path. Values are memoised per p (a study's dishes all
+ * sample the same p grid).
+ *
+ * Bad input: callers validate the frequency, θ ≥ 5°, the station height (−0.5–9 km) and the
+ * atmosphere (checkSiteAtmosphere) first.
+ *
+ * @example
+ * prepareAtmosphericPath({ frequencyGHz: 14.25, elevationDeg: 31.08, stationHeightKm: 0.031, atmosphere }).gasAt(1) // => 0.2269 dB at site V8
+ */
+export function prepareAtmosphericPath(o: { frequencyGHz: number; elevationDeg: number; stationHeightKm: number; atmosphere: SiteAtmosphere }): AtmosphericPath {
+  const pressureHpa = standardPressureHpaP835(Math.max(0, o.stationHeightKm));
+  const kl = cloudMassAbsorptionUnchecked(o.frequencyGHz, CLOUD_LIQUID_TEMPERATURE_K_P840_8);
+  const sinT = Math.sin(o.elevationDeg * DEG);
+  const gasMemo = new Map<number, number>();
+  const cloudMemo = new Map<number, number>();
+  const remember = (memo: Map<number, number>, p: number, v: number): number => {
+    if (memo.size >= MEMO_LIMIT) memo.clear();
+    memo.set(p, v);
+    return v;
+  };
+  const gasAt = (p: number): number => {
+    const hit = gasMemo.get(p);
+    if (hit !== undefined) return hit;
+    const a = atmosphereAt(o.atmosphere.levels, p);
+    const g = gasSlantPathAttenuation({
+      frequencyGHz: o.frequencyGHz,
+      elevationDeg: o.elevationDeg,
+      pressureHpa,
+      temperatureK: o.atmosphere.surfaceTemperatureK,
+      surfaceVapourDensityGM3: a.surfaceVapourDensityGM3,
+      waterVapourContentKgM2: a.waterVapourContentKgM2,
+      stationHeightKm: Math.max(0, o.stationHeightKm),
+    }).totalDb;
+    return remember(gasMemo, p, g);
+  };
+  const cloudAt = (p: number): number => {
+    const hit = cloudMemo.get(p);
+    if (hit !== undefined) return hit;
+    return remember(cloudMemo, p, (atmosphereAt(o.atmosphere.levels, p).reducedCloudLiquidKgM2 * kl) / sinT);
+  };
+  return { pressureHpa, gasAt, cloudAt };
+}
+
+/** The total attenuation of one dish's path and its inverse. */
+export interface TotalAttenuationCurve {
+  componentsAt(pPercent: number): AttenuationComponents;
+  totalAt(pPercent: number): number;
+  /** The largest p in 0.001–5 % whose total reaches the attenuation, with the model-range bounds of RainExceedance. */
+  exceedanceOf(attenuationDb: number): RainExceedance;
+  /** Largest total over the model range, dB. */
+  readonly maxAttenuationDb: number;
+}
+
+/**
+ * ITU-R P.618-14 §2.5 total attenuation for one dish: A_T(p) = A_G(p) + √((A_R(p) + A_C(p))² + A_S(p)²),
+ * with A_G and A_C at their 1 % values for p < 1 %, A_S(p) = a(p)·σ following the §2.4.1 step 8
+ * polynomial below 0.01 % as well (the ITU-R SG 3 validation examples of §2.5 do so at 0.001 %;
+ * a(p) keeps rising smoothly there, so holding it flat would understate the deepest fades).
+ * The inverse is the largest p whose total reaches the fade threshold (see sampleCurve), because
+ * step 10 of the rain model is not monotone everywhere.
+ *
+ * Bad input: the rain and atmospheric paths come prepared; σ ≥ 0 is validated by the caller.
+ *
+ * @example
+ * totalAttenuationCurve({ rainPath, atmosphericPath, scintillationSigmaDb: 0.0873 }).componentsAt(0.01).totalDb // => 7.5073 at site V8, 14.25 GHz
+ */
+export function totalAttenuationCurve(o: { rainPath: RainPath; atmosphericPath: AtmosphericPath | null; scintillationSigmaDb: number }): TotalAttenuationCurve {
+  const atm = o.atmosphericPath;
+  const gasHeld = atm ? atm.gasAt(HELD_BELOW_P_PERCENT_P618_14) : 0;
+  const cloudHeld = atm ? atm.cloudAt(HELD_BELOW_P_PERCENT_P618_14) : 0;
+  const sigma = o.scintillationSigmaDb;
+  const totalAt = (p: number): number => {
+    const below = p < HELD_BELOW_P_PERCENT_P618_14;
+    const g = atm ? (below ? gasHeld : atm.gasAt(p)) : 0;
+    const c = atm ? (below ? cloudHeld : atm.cloudAt(p)) : 0;
+    const rc = o.rainPath.attenuationAt(p) + c;
+    const s = sigma > 0 ? sigma * scintillationTimeFactor(p) : 0;
+    return g + Math.sqrt(rc * rc + s * s);
+  };
+  const componentsAt = (p: number): AttenuationComponents => ({
+    gasDb: atm ? atm.gasAt(p) : 0,
+    cloudDb: atm ? atm.cloudAt(p) : 0,
+    rainDb: o.rainPath.attenuationAt(p),
+    scintillationDb: sigma > 0 ? sigma * scintillationTimeFactor(p) : 0,
+    totalDb: totalAt(p),
+  });
+  const lnTotal = (lp: number): number => {
+    const t = totalAt(Math.exp(lp));
+    return t > 0 ? Math.log(t) : LN_FLOOR;
+  };
+  let curve: SampledCurve | null = null;
+  const sampled = (): SampledCurve => (curve ??= sampleCurve(lnTotal, LN_P_MIN, LN_P_MAX));
+  return {
+    componentsAt,
+    totalAt,
+    exceedanceOf: (a: number): RainExceedance => exceedanceOnCurve(sampled(), lnTotal(LN_P_MAX), a),
+    get maxAttenuationDb(): number {
+      return Math.exp(sampled().peak);
+    },
+  };
+}
