@@ -145,11 +145,11 @@ describe('POST /api/v1/tradeoff', () => {
   };
   const post = (body: unknown) => tradeoffRoute(apiRequest('/api/v1/tradeoff', { method: 'POST', json: body }), noParams);
 
-  it('returns exactly the engine’s result and saves nothing', async () => {
+  it('returns exactly the engine’s result and saves nothing (atmosphere: null, rain only; the maps are tested in tradeoff-api.test.ts)', async () => {
     asUser(tok.installer);
-    const { status, body } = await json(await post(scenario));
+    const { status, body } = await json(await post({ ...scenario, atmosphere: null }));
     expect(status).toBe(200);
-    expect(body).toEqual(JSON.parse(JSON.stringify(dishTradeoff(scenario))));
+    expect(body).toEqual({ ...JSON.parse(JSON.stringify(dishTradeoff(scenario))), mapInputs: { filled: [], mapVersions: [] } });
   });
 
   it('is for installers and admins only', async () => {
@@ -174,9 +174,13 @@ describe('POST /api/v1/tradeoff', () => {
     const shape = await json(await post({ ...scenario, dishes: [{ diameterM: 'big', efficiency: 0.6 }] }));
     expect(shape.status).toBe(422);
     expect(Object.keys(shape.body.error.fieldErrors)).toEqual(['dishes.0.diameterM']);
-    const engine = await json(await post({ ...scenario, dishes: [{ diameterM: -1, efficiency: 0.6 }] }));
+    const range = await json(await post({ ...scenario, dishes: [{ diameterM: -1, efficiency: 0.6 }] }));
+    expect(range.status).toBe(422);
+    expect(Object.keys(range.body.error.fieldErrors)).toEqual(['dishes.0.diameterM']);
+    // A measured curve that stops at 0.1 % cannot give R0.01: only the engine can say so.
+    const engine = await json(await post({ ...scenario, rain: { measuredCurve: [{ pPercent: 1, rainRateMmH: 2 }, { pPercent: 0.1, rainRateMmH: 9 }] } }));
     expect(engine.status).toBe(422);
-    expect(Object.keys(engine.body.error.fieldErrors)).toEqual(['dishes[0].diameterM']);
+    expect(Object.keys(engine.body.error.fieldErrors)).toEqual(['rain.measuredCurve']);
     const horizon = await json(await post({ ...scenario, satellite: { longitudeDeg: 150 } }));
     expect(horizon.body.error.message).toMatch(/below the horizon/);
     const foreignOrigin = await tradeoffRoute(apiRequest('/api/v1/tradeoff', { method: 'POST', json: scenario, headers: { origin: 'https://elsewhere.example' } }), noParams);
