@@ -11,6 +11,7 @@ import { Table, TBody, THead, Td, Th } from '@/components/ui/table';
 import { SelectInput, TextInput } from '@/components/study/form-fields';
 import { CsvFileInput } from '@/components/uploads/csv-file-input';
 import { availabilityText, boundMark, fixed, usd } from '@/components/study/format';
+import { EACH_SITE_CLIMATE, EACH_SITE_CLIMATE_LABEL } from '@/server/validation/campaign';
 
 type Act = (prev: ActionState<CampaignResponse> | null, input: FormData) => Promise<ActionState<CampaignResponse>>;
 export type CampaignChoices = { services: { value: string; label: string }[]; climates: { value: string; label: string }[] };
@@ -58,7 +59,8 @@ function Results({ data }: { data: CampaignResponse }) {
     <div className="mt-6 space-y-4" aria-live="polite">
       <div className="flex flex-wrap items-center justify-between gap-3">
         <p className="text-sm text-stone-700">
-          <strong>{data.filename}</strong> with {data.serviceName}, {data.climateName}, target {fixed(data.targetAvailabilityPercent, 3)} %, over {data.dishCount} active dish{data.dishCount === 1 ? '' : 'es'}.
+          <strong>{data.filename}</strong> with {data.serviceName}, target {fixed(data.targetAvailabilityPercent, 3)} %, over {data.dishCount} active dish{data.dishCount === 1 ? '' : 'es'}. Rain climate:{' '}
+          {data.climateOverride ? <>the profile “{data.climateName}” for every site (override); gases, clouds and altitude still from each site&apos;s coordinates.</> : <>{data.climateName.charAt(0).toLowerCase() + data.climateName.slice(1)}.</>}
         </p>
         <Button variant="secondary" onClick={() => download(data)}>
           Download all results (CSV)
@@ -86,6 +88,7 @@ function Results({ data }: { data: CampaignResponse }) {
                 <Th>Site</Th>
                 <Th numeric>Dish now (cm)</Th>
                 <Th numeric>Outage now (min/year)</Th>
+                <Th numeric className="hidden lg:table-cell">R0.01 (mm/h)</Th>
                 <Th numeric className="hidden md:table-cell">Availability now</Th>
                 <Th>Recommendation</Th>
                 <Th numeric className="hidden md:table-cell">Outage after (min/year)</Th>
@@ -100,6 +103,7 @@ function Results({ data }: { data: CampaignResponse }) {
                   <Th scope="row" className="whitespace-nowrap align-top font-medium text-stone-900">{r.siteRef}</Th>
                   <Td numeric className="whitespace-nowrap">{r.currentDishCm}</Td>
                   <Td numeric className="whitespace-nowrap">{minutes(r.currentOutageMinutesPerYear, r.currentOutageBound)}</Td>
+                  <Td numeric className="hidden whitespace-nowrap lg:table-cell">{fixed(r.climate.r001MmH, 1)}</Td>
                   <Td numeric className="hidden whitespace-nowrap md:table-cell">{availabilityText({ availabilityPercent: r.currentAvailabilityPercent, outageBound: r.currentOutageBound })}</Td>
                   <Td className="whitespace-nowrap">{r.verdict === 'upgrade' ? <span className="font-medium text-ledger-800">{r.recommendedDishCm} cm · {r.recommendedDishName}</span> : <span className="text-stone-600">{verdictWords(r.verdict)}</span>}</Td>
                   <Td numeric className="hidden whitespace-nowrap md:table-cell">{r.recommendedOutageMinutesPerYear === null || r.recommendedOutageBound === null ? '—' : minutes(r.recommendedOutageMinutesPerYear, r.recommendedOutageBound)}</Td>
@@ -116,8 +120,9 @@ function Results({ data }: { data: CampaignResponse }) {
 }
 
 /**
- * Upload a CSV of existing customer sites, pick the service, climate and target, and read the
- * upgrade recommendation for every site. Computed on each request; nothing is stored.
+ * Upload a CSV of existing customer sites, pick the service and target (and, only as an override,
+ * a rain climate profile), and read the upgrade recommendation for every site, each computed with
+ * its own climate from the ITU-R maps. Computed on each request; nothing is stored.
  */
 export function CampaignForm({ choices, action }: { choices: CampaignChoices; action: Act }) {
   const form = useRef<HTMLFormElement>(null);
@@ -141,7 +146,8 @@ export function CampaignForm({ choices, action }: { choices: CampaignChoices; ac
       >
         <p className="text-sm text-stone-600">
           Columns: <code className="rounded bg-stone-100 px-1 font-mono text-xs">site_ref, latitude, longitude, altitude_m, current_dish_cm</code>. Latitude and longitude in decimal degrees
-          or degrees, minutes and seconds. Comma, semicolon or tab separated, UTF-8, at most {CAMPAIGN_MAX_ROWS.toLocaleString('en-US')} sites and {CAMPAIGN_MAX_BYTES / 1024} KiB.
+          or degrees, minutes and seconds; altitude_m may be blank or left out (the ITU-R P.1511-1 height at the site is used). Comma, semicolon or tab separated, UTF-8, at most{' '}
+          {CAMPAIGN_MAX_ROWS.toLocaleString('en-US')} sites and {CAMPAIGN_MAX_BYTES / 1024} KiB.
           <span className="block text-xs">
             Example line: <code className="font-mono">HOLM-0042,47°30&apos;15&quot; N,2.25,140,60</code>
           </span>
@@ -149,7 +155,14 @@ export function CampaignForm({ choices, action }: { choices: CampaignChoices; ac
         <CsvFileInput id="campaign-file" label="Sites file (CSV)" maxBytes={CAMPAIGN_MAX_BYTES} limitedNoun="campaign files" errors={fieldErrors.file} tooBig={tooBig} onPick={setTooBig} />
         <div className="grid gap-4 sm:grid-cols-3">
           <SelectInput label="Service" name="serviceProfileId" options={choices.services} placeholder="Choose a service" errors={fieldErrors.serviceProfileId} />
-          <SelectInput label="Rain climate" name="climateProfileId" options={choices.climates} placeholder="Choose a climate profile" errors={fieldErrors.climateProfileId} />
+          <SelectInput
+            label="Rain climate"
+            name="climateProfileId"
+            defaultValue={EACH_SITE_CLIMATE}
+            options={[{ value: EACH_SITE_CLIMATE, label: EACH_SITE_CLIMATE_LABEL }, ...choices.climates]}
+            errors={fieldErrors.climateProfileId}
+            hint="A climate profile replaces every site's own rain climate; use one only when it holds better local data for all of them."
+          />
           <TextInput label="Target availability (%)" name="targetAvailabilityPercent" inputMode="decimal" defaultValue="99.9" errors={fieldErrors.targetAvailabilityPercent} hint="Of an average year, 90–99.999 %." />
         </div>
         <div className="flex flex-wrap items-center gap-3">

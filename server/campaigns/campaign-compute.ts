@@ -1,9 +1,11 @@
 import { dishTradeoff, isEngineInputError } from '@/server/engine';
 import type { OutageFigures } from '@/server/engine';
+import type { AttenuationComponents } from '@/server/engine/p618-total-attenuation';
 import type { TradeoffOption, TradeoffResult } from '@/server/engine/tradeoff-types';
 import { buildScenario } from '@/server/studies/build-scenario';
 import type { ClimateSnapshot, DishSnapshot, ServiceSnapshot } from '@/server/studies/snapshot';
 import type { CampaignProblem, CampaignSiteRow } from './campaign-csv';
+import { campaignSiteClimate, type CampaignSiteClimate } from './campaign-site-climate';
 
 export type CampaignVerdict = 'upgrade' | 'already-meets-target' | 'none-meets-target';
 
@@ -25,6 +27,15 @@ export interface CampaignResultRow {
   minutesSavedPerYear: number | null;
   /** Hardware + labour of the recommended dish, USD (exact decimal string); null when no upgrade. */
   upgradePriceUsd: string | null;
+  /** The climate this site was computed with, and where each figure came from. */
+  climate: CampaignSiteClimate;
+  /** 'total': outages on the P.618-14 §2.5 total (gases, clouds, rain, scintillation); 'rain': rain only (low elevation). */
+  attenuationModel: TradeoffResult['attenuationModel'];
+  /**
+   * Gas, cloud, rain and scintillation of the current dish's DOWNLINK at its outage, with their
+   * total (≈ its fade threshold); null for rain-only rows and dishes that do not close.
+   */
+  currentAttenuation: AttenuationComponents | null;
 }
 
 export interface CampaignOutcome {
@@ -41,7 +52,10 @@ function basisFigures(result: TradeoffResult, option: TradeoffOption): OutageFig
   return result.recommendation.basis === 'two-way' && option.twoWay ? option.twoWay : option;
 }
 
-const PLAIN: [RegExp, string][] = [[/below the horizon/, 'the satellite is below the horizon at this site; no dish can see it. Check the coordinates or the service.']];
+const PLAIN: [RegExp, string][] = [
+  [/below the horizon/, 'the satellite is below the horizon at this site; no dish can see it. Check the coordinates or the service.'],
+  [/no ITU-R map data/, 'the ITU-R maps have no climate data at these coordinates (and no geostationary satellite is in view there). Check the coordinates.'],
+];
 
 function engineProblem(line: number, siteRef: string, error: unknown): CampaignProblem {
   if (!isEngineInputError(error)) throw error;
@@ -51,14 +65,16 @@ function engineProblem(line: number, siteRef: string, error: unknown): CampaignP
 
 /**
  * Every site of a campaign through the engine, with the same scenario building as a study
- * (buildScenario), over the company's active catalogue. Pure: no database. A site the engine
- * refuses, or whose current dish is not in the catalogue, becomes a problem on its line; the
- * others go on.
+ * (buildScenario), over the company's active catalogue, each site with its own climate and
+ * atmosphere from the ITU-R maps at its coordinates (campaignSiteClimate). No database; reads the
+ * maps. A site the maps or the engine refuse (no map data, satellite below the horizon), or whose
+ * current dish is not in the catalogue, becomes a problem on its line; the others go on.
  */
 export function computeCampaign(o: {
   rows: CampaignSiteRow[];
   service: ServiceSnapshot;
-  climate: ClimateSnapshot;
+  /** A company profile overriding the RAIN climate of every site; null: each site's own, from the maps. */
+  climate: ClimateSnapshot | null;
   dishes: DishSnapshot[];
   targetAvailabilityPercent: number;
   /** Problems found while reading the file, merged by line into the outcome. */
@@ -71,13 +87,17 @@ export function computeCampaign(o: {
   for (const row of o.rows) {
     let built: ReturnType<typeof buildScenario>;
     let result: TradeoffResult;
+    let site: ReturnType<typeof campaignSiteClimate>;
     try {
+      site = campaignSiteClimate(row, o.climate);
       built = buildScenario({
-        site: { id: null, name: row.siteRef, customerId: null, customerName: '', latDeg: row.latDeg, lonDeg: row.lonDeg, altitudeM: row.altitudeM },
+        site: { id: null, name: row.siteRef, customerId: null, customerName: '', latDeg: row.latDeg, lonDeg: row.lonDeg, altitudeM: site.altitudeM },
         service: o.service,
-        climate: o.climate,
+        climate: site.rainClimate,
         dishes: o.dishes,
         targetAvailabilityPercent: o.targetAvailabilityPercent,
+        atmosphere: site.atmosphere,
+        fallbackIsothermKm: site.mapsIsothermKm,
       });
       result = dishTradeoff(built.scenario);
     } catch (e) {
@@ -111,6 +131,9 @@ export function computeCampaign(o: {
       currentOutageMinutesPerYear: current.outageMinutesPerYear,
       currentOutageBound: current.outageBound,
       currentAvailabilityPercent: current.availabilityPercent,
+      climate: site.describe(result),
+      attenuationModel: result.attenuationModel,
+      currentAttenuation: result.options[currentIndex].attenuationAtOutage,
     };
     if (currentMeets) {
       results.push({ ...base, verdict: 'already-meets-target', recommendedDishName: null, recommendedDishCm: null, recommendedOutageMinutesPerYear: null, recommendedOutageBound: null, minutesSavedPerYear: null, upgradePriceUsd: null });

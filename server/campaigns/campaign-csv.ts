@@ -7,8 +7,10 @@ export const CAMPAIGN_MAX_ROWS = 5000;
 /** 5 000 rows of ~60 characters is about 300 KiB; 512 KiB leaves room for long site references and DMS text. */
 export const CAMPAIGN_MAX_BYTES = 512 * 1024;
 
+/** altitude_m may be left out (column or cell): the site's ITU-R P.1511-1 topographic height is used. */
 export const CAMPAIGN_CSV_COLUMNS = {
-  required: ['site_ref', 'latitude', 'longitude', 'altitude_m', 'current_dish_cm'],
+  required: ['site_ref', 'latitude', 'longitude', 'current_dish_cm'],
+  optional: ['altitude_m'],
 } as const;
 
 /** One existing site as read from the file (coordinates in decimal degrees, north and east positive). */
@@ -17,7 +19,8 @@ export interface CampaignSiteRow {
   siteRef: string;
   latDeg: number;
   lonDeg: number;
-  altitudeM: number;
+  /** Null when the file gives none: the ITU-R P.1511-1 height at the site is used. */
+  altitudeM: number | null;
   currentDishCm: number;
 }
 
@@ -56,7 +59,7 @@ export function readCampaignBytes(bytes: Uint8Array, filename: string): { ok: tr
 }
 
 function numberCell(row: { line: number; values: Record<string, string> }, column: string, range: { min: number; max: number }, unit: string, problems: CsvProblem[]): number | null {
-  const cell = row.values[column];
+  const cell = row.values[column] ?? '';
   if (cell === '') {
     problems.push({ line: row.line, column, message: `Line ${row.line}, ${column}: a value is required.` });
     return null;
@@ -74,8 +77,8 @@ function numberCell(row: { line: number; values: Record<string, string> }, colum
 }
 
 /**
- * A campaign CSV (`site_ref, latitude, longitude, altitude_m, current_dish_cm`) → the sites to
- * compute and a problem per bad cell, by line. A bad row is left out; the others go on.
+ * A campaign CSV (`site_ref, latitude, longitude, current_dish_cm`, optional `altitude_m`) → the
+ * sites to compute and a problem per bad cell, by line. A bad row is left out; the others go on.
  */
 export function parseCampaignCsv(text: string): CampaignCsv {
   const table = readCsvTable(text, CAMPAIGN_CSV_COLUMNS);
@@ -95,13 +98,14 @@ export function parseCampaignCsv(text: string): CampaignCsv {
       if (!r.ok) own.push({ line: row.line, column, message: `Line ${row.line}, ${column}: ${r.error}` });
       return r.ok ? r.value : null;
     });
-    const altitudeM = numberCell(row, 'altitude_m', ALTITUDE_M, 'm', own);
+    // A blank altitude is "not known": the site's P.1511-1 height is used (campaign-compute.ts).
+    const altitudeM = (row.values.altitude_m ?? '') === '' ? null : numberCell(row, 'altitude_m', ALTITUDE_M, 'm', own);
     const currentDishCm = numberCell(row, 'current_dish_cm', DISH_CM, 'cm', own);
     if (own.length) {
       problems.push(...own.map((p) => (siteRef ? { ...p, siteRef } : p)));
       continue;
     }
-    rows.push({ line: row.line, siteRef, latDeg: coords[0]!, lonDeg: coords[1]!, altitudeM: altitudeM!, currentDishCm: currentDishCm! });
+    rows.push({ line: row.line, siteRef, latDeg: coords[0]!, lonDeg: coords[1]!, altitudeM, currentDishCm: currentDishCm! });
   }
   return { rows, problems, rowCount: table.rows.length };
 }

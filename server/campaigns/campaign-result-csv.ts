@@ -25,7 +25,24 @@ export const CAMPAIGN_RESULT_HEADER = [
   'recommended_outage_bound',
   'minutes_saved_per_year',
   'upgrade_price_usd',
+  // Each site's own climate (issue 9), each figure beside its source.
+  'r001_mm_h',
+  'rain_climate_source',
+  'rain_height_km',
+  'rain_height_source',
+  'altitude_m_used',
+  'altitude_source',
+  // What makes up the current dish's downlink fade threshold at its outage (P.618-14 §2.5).
+  'attenuation_model',
+  'current_outage_gas_db',
+  'current_outage_cloud_db',
+  'current_outage_rain_db',
+  'current_outage_scintillation_db',
+  'current_outage_total_db',
 ] as const;
+
+const MODEL_WORDS = { total: 'total: gases, clouds, rain, scintillation', rain: 'rain only' } as const;
+const ALTITUDE_SOURCE_WORDS = { file: 'file', 'ITU-R P.1511-1': 'ITU-R P.1511-1 at the site' } as const;
 
 /** Outside the P.618 model range the engine gives a bound, not a value: the file says which way. */
 const BOUND_WORDS = { none: '', 'below-model-range': 'at most', 'above-model-range': 'at least' } as const;
@@ -57,6 +74,18 @@ export function campaignResultCsv(results: CampaignResultRow[], problems: Campai
       boundWords(r.recommendedOutageBound),
       fixed(r.minutesSavedPerYear, 1),
       r.upgradePriceUsd ?? '',
+      fixed(r.climate.r001MmH, 1),
+      r.climate.rainClimateSource,
+      fixed(r.climate.rainHeightKm, 3),
+      r.climate.rainHeightSource,
+      String(r.climate.altitudeM),
+      ALTITUDE_SOURCE_WORDS[r.climate.altitudeSource],
+      MODEL_WORDS[r.attenuationModel],
+      fixed(r.currentAttenuation?.gasDb ?? null, 2),
+      fixed(r.currentAttenuation?.cloudDb ?? null, 2),
+      fixed(r.currentAttenuation?.rainDb ?? null, 2),
+      fixed(r.currentAttenuation?.scintillationDb ?? null, 2),
+      fixed(r.currentAttenuation?.totalDb ?? null, 2),
     ],
   }));
   for (const p of problems) {

@@ -6,7 +6,7 @@ import { getClimateProfile } from '@/db/queries/climate-profiles';
 import { InvalidInputError, NotFoundError } from '@/server/errors';
 import { assertUploadWithinPlan } from '@/server/studies/plan-limit';
 import { climateSnapshotOf, dishSnapshotOf, serviceSnapshotOf } from '@/server/studies/snapshot-of';
-import type { CampaignInput } from '@/server/validation/campaign';
+import { EACH_SITE_CLIMATE_LABEL, type CampaignInput } from '@/server/validation/campaign';
 import { computeCampaign, type CampaignOutcome } from './campaign-compute';
 import { parseCampaignCsv, readCampaignBytes } from './campaign-csv';
 import { campaignResultCsv } from './campaign-result-csv';
@@ -23,7 +23,10 @@ export interface CampaignResponse extends Omit<CampaignOutcome, 'results'> {
   csv: string;
   csvFilename: string;
   serviceName: string;
+  /** How the page names the rain climate: each site's own (ITU-R maps) or the override profile. */
   climateName: string;
+  /** True when a company profile overrode every site's rain climate. */
+  climateOverride: boolean;
   targetAvailabilityPercent: number;
   dishCount: number;
 }
@@ -49,8 +52,9 @@ export async function runCampaign(companyId: number, input: CampaignInput): Prom
   const { service, climate, dishes } = await sequelize.transaction(async (t) => {
     const service = await getServiceProfile(companyId, input.serviceProfileId, t);
     if (!service) throw new NotFoundError('That service profile');
-    const climate = await getClimateProfile(companyId, input.climateProfileId, t);
-    if (!climate) throw new NotFoundError('That climate profile');
+    // No profile: each site's own rain climate from the ITU-R maps (the default, engine.md §1).
+    const climate = input.climateProfileId === null ? null : await getClimateProfile(companyId, input.climateProfileId, t);
+    if (input.climateProfileId !== null && !climate) throw new NotFoundError('That climate profile');
     await assertUploadWithinPlan(companyId, t);
     return { service, climate, dishes: await listDishes(companyId, { activeOnly: true }) };
   });
@@ -62,7 +66,7 @@ export async function runCampaign(companyId: number, input: CampaignInput): Prom
   const outcome = computeCampaign({
     rows: parsed.rows,
     service: serviceSnapshotOf(service),
-    climate: climateSnapshotOf(climate),
+    climate: climate ? climateSnapshotOf(climate) : null,
     dishes: dishes.map(dishSnapshotOf),
     targetAvailabilityPercent: input.targetAvailabilityPercent,
     fileProblems: parsed.problems,
@@ -76,7 +80,8 @@ export async function runCampaign(companyId: number, input: CampaignInput): Prom
     csv: campaignResultCsv(outcome.results, outcome.problems),
     csvFilename: `${filename.replace(/\.[^.]*$/, '').replace(/[^A-Za-z0-9._-]+/g, '-').slice(0, 80) || 'campaign'}-upgrades.csv`,
     serviceName: service.name,
-    climateName: climate.name,
+    climateName: climate ? climate.name : EACH_SITE_CLIMATE_LABEL,
+    climateOverride: climate !== null,
     targetAvailabilityPercent: input.targetAvailabilityPercent,
     dishCount: dishes.length,
   };

@@ -8,11 +8,26 @@ const campaignFile = z.custom<File>(
   { error: 'Choose a CSV file of customer sites.' },
 );
 
-/** An upgrade campaign: the sites file, and the service, climate and target every site is computed with. */
+/**
+ * The campaign form's value for the default rain climate: each site's own, from the ITU-R maps at
+ * its coordinates. A blank or missing value means the same.
+ */
+export const EACH_SITE_CLIMATE = 'maps';
+/** What the form and the result call that default (the study form says the same of one site). */
+export const EACH_SITE_CLIMATE_LABEL = "From each site's coordinates (ITU-R maps)";
+
+/**
+ * An upgrade campaign: the sites file, the service and target every site is computed with, and
+ * optionally a company climate profile overriding the rain climate of every site (null: each
+ * site's own climate from the ITU-R maps).
+ */
 export const campaignSchema = z.object({
   file: campaignFile,
   serviceProfileId: idField('service profile'),
-  climateProfileId: idField('climate profile'),
+  climateProfileId: z.preprocess(
+    (v) => (v === undefined || v === null || v === EACH_SITE_CLIMATE || (typeof v === 'string' && v.trim() === '') ? null : v),
+    idField('climate profile').nullable(),
+  ),
   targetAvailabilityPercent: z.preprocess(
     (v) => (v === undefined || v === null || v === '' ? TARGET_AVAILABILITY_PERCENT.default : v),
     numberIn('Target availability', TARGET_AVAILABILITY_PERCENT.min, TARGET_AVAILABILITY_PERCENT.max, '%'),

@@ -1,51 +1,112 @@
 import { describe, expect, it } from 'vitest';
+import Papa from 'papaparse';
 import { dishTradeoff } from '@/server/engine';
+import { siteClimate } from '@/server/climate-maps';
 import { buildScenario } from '@/server/studies/build-scenario';
+import { mapsAtmosphere, mapsAltitudeM, mapsClimateSnapshot } from '@/server/studies/maps-climate';
 import { computeCampaign } from '@/server/campaigns/campaign-compute';
 import { parseCampaignCsv } from '@/server/campaigns/campaign-csv';
-import { campaignResultCsv } from '@/server/campaigns/campaign-result-csv';
-import { bigCampaignCsv, climate, HEADER, SEVEN, service } from './campaign-fixture';
+import { CAMPAIGN_RESULT_HEADER, campaignResultCsv } from '@/server/campaigns/campaign-result-csv';
+import { bigCampaignCsv, climate as knownR001, HEADER, SEVEN, service } from './campaign-fixture';
 
-describe('computeCampaign', () => {
+const siteAt = (name: string, latDeg: number, lonDeg: number, altitudeM: number) => ({ id: null, name, customerId: null, customerName: '', latDeg, lonDeg, altitudeM });
+
+describe('computeCampaign: each site with its own climate from the ITU-R maps', () => {
   const target = 99.9;
-  const file = `${HEADER}\nA,47.25,2.5,180,45\nB,47.25,2.5,180,150\nC,47.25,2.5,180,80\nD,-70,170,10,60\nE,46.5,3.1,220,60\n`;
+  // Invented site references; coordinates spread over places with very different rain.
+  const file = `${HEADER}\nA,47.25,2.5,180,45\nB,47.25,2.5,180,150\nC,47.25,2.5,180,80\nD,-70,170,10,60\nE,6.2,-1.6,,45\nF,88.9,100,0,60\n`;
   const parsed = parseCampaignCsv(file);
-  const out = computeCampaign({ rows: parsed.rows, service, climate, dishes: SEVEN, targetAvailabilityPercent: target, rowCount: parsed.rowCount });
+  const out = computeCampaign({ rows: parsed.rows, service, climate: null, dishes: SEVEN, targetAvailabilityPercent: target, rowCount: parsed.rowCount });
+  const row = (ref: string) => out.results.find((r) => r.siteRef === ref)!;
 
-  it('agrees with a direct dishTradeoff on the same scenario for an upgraded site', () => {
-    const a = out.results.find((r) => r.siteRef === 'A')!;
-    const direct = dishTradeoff(buildScenario({ site: { id: null, name: 'A', customerId: null, customerName: '', latDeg: 47.25, lonDeg: 2.5, altitudeM: 180 }, service, climate, dishes: SEVEN, targetAvailabilityPercent: target }).scenario);
+  it('agrees with a direct dishTradeoff on the site’s own maps climate and atmosphere', () => {
+    const a = row('A');
+    const direct = dishTradeoff(
+      buildScenario({ site: siteAt('A', 47.25, 2.5, 180), service, climate: mapsClimateSnapshot(47.25, 2.5), dishes: SEVEN, targetAvailabilityPercent: target, atmosphere: mapsAtmosphere(47.25, 2.5, 0.18) }).scenario,
+    );
+    expect(direct.attenuationModel).toBe('total');
     const rec = direct.recommendation.smallestMeetingTargetIndex!;
     expect(rec).toBeGreaterThan(0);
     expect(a.verdict).toBe('upgrade');
+    expect(a.attenuationModel).toBe('total');
     expect(a.currentOutageMinutesPerYear).toBe(direct.options[0].outageMinutesPerYear);
     expect(a.currentAvailabilityPercent).toBe(direct.options[0].availabilityPercent);
+    expect(a.currentAttenuation).toEqual(direct.options[0].attenuationAtOutage);
     expect(a.recommendedDishCm).toBe(Math.round(direct.options[rec].diameterM * 100));
     expect(a.recommendedOutageMinutesPerYear).toBe(direct.options[rec].outageMinutesPerYear);
     expect(a.minutesSavedPerYear).toBeCloseTo(direct.options[0].outageMinutesPerYear - direct.options[rec].outageMinutesPerYear, 9);
     expect(a.upgradePriceUsd).toBe(direct.options[rec].priceUsd);
+    const c = siteClimate({ latDeg: 47.25, lonDeg: 2.5 });
+    expect(a.climate).toEqual({
+      r001MmH: c.r001MmH,
+      rainClimateSource: 'ITU-R maps at the site (P.837-7 Annex 1)',
+      rainHeightKm: expect.closeTo(c.rainHeightKm, 9),
+      rainHeightSource: 'ITU-R maps at the site (P.839-4)',
+      altitudeM: 180,
+      altitudeSource: 'file',
+    });
   });
 
-  it('says so when the current dish already meets the target, and lists the other problems by line', () => {
-    expect(out.results.find((r) => r.siteRef === 'B')!.verdict).toBe('already-meets-target');
-    expect(out.problems.map((p) => p.line)).toEqual([4, 5]);
+  it('a row without altitude takes the P.1511-1 height, and a tropical site its own (much heavier) rain', () => {
+    const e = row('E');
+    expect(e.climate.altitudeSource).toBe('ITU-R P.1511-1');
+    expect(e.climate.altitudeM).toBe(mapsAltitudeM(6.2, -1.6));
+    expect(e.climate.r001MmH).toBe(siteClimate({ latDeg: 6.2, lonDeg: -1.6 }).r001MmH);
+    expect(e.climate.r001MmH).toBeGreaterThan(2 * row('A').climate.r001MmH);
+    expect(e.currentOutageMinutesPerYear).toBeGreaterThan(row('A').currentOutageMinutesPerYear);
+  });
+
+  it('lists a dish not in the catalogue, a satellite below the horizon and a site without map data as problems on their lines', () => {
+    expect(row('B').verdict).toBe('already-meets-target');
+    expect(out.problems.map((p) => p.line)).toEqual([4, 5, 7]);
     expect(out.problems[0].message).toContain('no active catalogue dish is 80 cm');
     expect(out.problems[1].message).toContain('below the horizon');
-    expect(out.counts).toMatchObject({ rows: 5, computed: 3, problems: 2 });
+    expect(out.problems[2]).toMatchObject({ line: 7, siteRef: 'F', message: expect.stringMatching(/^Line 7: the ITU-R maps have no climate data at these coordinates/) });
+    expect(out.counts).toMatchObject({ rows: 6, computed: 3, problems: 3 });
+  });
+
+  it('writes each row’s climate and the parts of its fade threshold to the CSV', () => {
+    const csv = Papa.parse<string[]>(campaignResultCsv(out.results, out.problems).trim()).data;
+    const col = (name: (typeof CAMPAIGN_RESULT_HEADER)[number]) => CAMPAIGN_RESULT_HEADER.indexOf(name);
+    const a = csv.find((r) => r[1] === 'A')!;
+    const e = csv.find((r) => r[1] === 'E')!;
+    expect(Number(a[col('r001_mm_h')])).toBeCloseTo(row('A').climate.r001MmH, 1);
+    expect(a[col('altitude_source')]).toBe('file');
+    expect(e[col('altitude_source')]).toBe('ITU-R P.1511-1 at the site');
+    expect(a[col('attenuation_model')]).toBe('total: gases, clouds, rain, scintillation');
+    const parts = (['current_outage_gas_db', 'current_outage_cloud_db', 'current_outage_rain_db', 'current_outage_scintillation_db'] as const).map((k) => Number(a[col(k)]));
+    expect(parts.every((p) => p > 0)).toBe(true);
+    expect(Number(a[col('current_outage_total_db')])).toBeGreaterThan(parts[2]);
+  });
+
+  it('a company profile overrides the RAIN climate of every site; gases, clouds and altitude stay each site’s own', () => {
+    const over = computeCampaign({ rows: parsed.rows, service, climate: knownR001, dishes: SEVEN, targetAvailabilityPercent: target });
+    const a = over.results.find((r) => r.siteRef === 'A')!;
+    const e = over.results.find((r) => r.siteRef === 'E')!;
+    expect(a.climate.r001MmH).toBe(42);
+    expect(e.climate.r001MmH).toBe(42);
+    expect(a.climate.rainClimateSource).toBe('climate profile "Known" (override)');
+    expect(a.climate.rainHeightSource).toBe('climate profile "Known"');
+    expect(a.attenuationModel).toBe('total');
+    expect(e.climate.altitudeM).toBe(mapsAltitudeM(6.2, -1.6));
+    const direct = dishTradeoff(
+      buildScenario({ site: siteAt('A', 47.25, 2.5, 180), service, climate: knownR001, dishes: SEVEN, targetAvailabilityPercent: target, atmosphere: mapsAtmosphere(47.25, 2.5, 0.18) }).scenario,
+    );
+    expect(a.currentOutageMinutesPerYear).toBe(direct.options[0].outageMinutesPerYear);
   });
 
   it('says no dish meets an unreachable target', () => {
-    const tight = computeCampaign({ rows: parsed.rows.slice(0, 1), service: { ...service, eirpDbw: 40 }, climate, dishes: SEVEN.slice(0, 2), targetAvailabilityPercent: 99.999 });
+    const tight = computeCampaign({ rows: parsed.rows.slice(0, 1), service: { ...service, eirpDbw: 40 }, climate: null, dishes: SEVEN.slice(0, 2), targetAvailabilityPercent: 99.999 });
     expect(tight.results[0].verdict).toBe('none-meets-target');
     expect(tight.results[0].upgradePriceUsd).toBeNull();
   });
 
   it('computes a full-size file of 5 000 sites × 7 dishes, every row, in file order (timing: npm run bench:campaign)', () => {
     const big = parseCampaignCsv(bigCampaignCsv(5000));
-    const r = computeCampaign({ rows: big.rows, service, climate, dishes: SEVEN, targetAvailabilityPercent: target });
+    const r = computeCampaign({ rows: big.rows, service, climate: null, dishes: SEVEN, targetAvailabilityPercent: target });
     const csv = campaignResultCsv(r.results, r.problems);
     expect(big.rows).toHaveLength(5000);
     expect(r.counts.computed).toBe(5000);
     expect(csv.split('\r\n')).toHaveLength(5001);
-  });
+  }, 120_000);
 });

@@ -52,6 +52,16 @@ describe('parseCampaignCsv', () => {
     expect(r.problems[0].message).toContain(`at most ${CAMPAIGN_MAX_ROWS}`);
   });
 
+  it('takes a blank altitude, or no altitude_m column at all, as "not known" (the maps give it), and says so in the header message', () => {
+    const blank = parseCampaignCsv(`${HEADER}\nA,47.25,2.5,,60\nB,47.25,2.5,180,60\n`);
+    expect(blank.problems).toEqual([]);
+    expect(blank.rows.map((r) => r.altitudeM)).toEqual([null, 180]);
+    const without = parseCampaignCsv('site_ref,latitude,longitude,current_dish_cm\nA,47.25,2.5,60\n');
+    expect(without.problems).toEqual([]);
+    expect(without.rows).toEqual([{ line: 2, siteRef: 'A', latDeg: 47.25, lonDeg: 2.5, altitudeM: null, currentDishCm: 60 }]);
+    expect(parseCampaignCsv('site_ref,latitude,longitude\nA,47,2\n').problems[0].message).toContain('(optional: altitude_m)');
+  });
+
   it('out-of-range altitude and dish size are line problems', () => {
     const r = parseCampaignCsv(`${HEADER}\nA,47,2,9000,60\nB,47,2,100,0\n`);
     expect(r.problems.map((p) => [p.line, p.column])).toEqual([[2, 'altitude_m'], [3, 'current_dish_cm']]);
@@ -75,7 +85,15 @@ describe('readCampaignBytes', () => {
 describe('campaignResultCsv', () => {
   it('writes a header with units and neutralises spreadsheet formulas in site references', () => {
     const text = campaignResultCsv(
-      [{ line: 2, siteRef: '=HYPERLINK("x")', currentDishCm: 60, currentDishName: 'D60', currentOutageMinutesPerYear: 812.34, currentOutageBound: 'none', currentAvailabilityPercent: 99.84546, verdict: 'upgrade', recommendedDishName: 'D90', recommendedDishCm: 90, recommendedOutageMinutesPerYear: 300.01, recommendedOutageBound: 'below-model-range', minutesSavedPerYear: 512.33, upgradePriceUsd: '279.00' }],
+      [
+        {
+          line: 2, siteRef: '=HYPERLINK("x")', currentDishCm: 60, currentDishName: 'D60', currentOutageMinutesPerYear: 812.34, currentOutageBound: 'none', currentAvailabilityPercent: 99.84546, verdict: 'upgrade',
+          recommendedDishName: 'D90', recommendedDishCm: 90, recommendedOutageMinutesPerYear: 300.01, recommendedOutageBound: 'below-model-range', minutesSavedPerYear: 512.33, upgradePriceUsd: '279.00',
+          climate: { r001MmH: 31.27, rainClimateSource: 'ITU-R maps at the site (P.837-7 Annex 1)', rainHeightKm: 2.7665, rainHeightSource: 'ITU-R maps at the site (P.839-4)', altitudeM: 212, altitudeSource: 'ITU-R P.1511-1' },
+          attenuationModel: 'total',
+          currentAttenuation: { gasDb: 0.0712, cloudDb: 0.2551, rainDb: 3.1049, scintillationDb: 0.1833, totalDb: 3.4399 },
+        },
+      ],
       [{ line: 3, siteRef: 'FW-9', message: 'Line 3: bad.' }, { line: 1, message: 'Line 1: first.' }],
     );
     const parsed = Papa.parse<string[]>(text.trim()).data;
@@ -84,8 +102,15 @@ describe('campaignResultCsv', () => {
     expect(parsed[0]).toContain('upgrade_price_usd');
     // In the file's line order, problems included, with their site reference.
     expect(parsed.map((r) => r[0])).toEqual(['line', '1', '2', '3']);
-    expect(parsed[2]).toEqual(['2', `'=HYPERLINK("x")`, 'D60', '60', '812.3', '', '99.8455', 'upgrade', 'D90', '90', '300.0', 'at most', '512.3', '279.00']);
+    expect(parsed[2]).toEqual([
+      '2', `'=HYPERLINK("x")`, 'D60', '60', '812.3', '', '99.8455', 'upgrade', 'D90', '90', '300.0', 'at most', '512.3', '279.00',
+      '31.3', 'ITU-R maps at the site (P.837-7 Annex 1)', '2.767', 'ITU-R maps at the site (P.839-4)', '212', 'ITU-R P.1511-1 at the site',
+      'total: gases, clouds, rain, scintillation', '0.07', '0.26', '3.10', '0.18', '3.44',
+    ]);
+    for (const column of ['r001_mm_h', 'rain_height_km', 'altitude_m_used', 'altitude_source', 'current_outage_gas_db', 'current_outage_scintillation_db']) expect(parsed[0]).toContain(column);
     expect(parsed[3].slice(0, 2)).toEqual(['3', 'FW-9']);
+    // A row that was not computed has no climate figures either.
+    expect(parsed[3].slice(CAMPAIGN_RESULT_HEADER.indexOf('r001_mm_h')).every((c) => c === '')).toBe(true);
     expect(parsed[3][CAMPAIGN_RESULT_HEADER.indexOf('recommendation')]).toBe('not computed: Line 3: bad.');
   });
 });
