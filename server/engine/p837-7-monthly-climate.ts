@@ -106,12 +106,22 @@ export function monthlyRainClimate(options: MonthlyRainClimateOptions): MonthlyR
     if (p >= p0) return 0;
     // Bracket in ln R: P(R > r) falls from P0 (r → 0) to 0 (r → ∞); widen until it straddles p.
     const lnTarget = Math.log(p);
-    const g = (lnR: number): number => Math.log(Math.max(exceeded(lnR), 1e-300)) - lnTarget;
+    // Newton asks for g and its slope at the same point: keep P(R > r) of the last point.
+    let lastLnR = Number.NaN;
+    let lastExceeded = 0;
+    const exceededAt = (lnR: number): number => {
+      if (lnR !== lastLnR) {
+        lastLnR = lnR;
+        lastExceeded = Math.max(exceeded(lnR), 1e-300);
+      }
+      return lastExceeded;
+    };
+    const g = (lnR: number): number => Math.log(exceededAt(lnR)) - lnTarget;
     let lo = Math.log(1);
     let hi = Math.log(100);
     while (g(lo) < 0) lo -= 4;
     while (g(hi) > 0) hi += 2;
-    return Math.exp(newtonInBracket(g, (x) => slope(x) / Math.max(exceeded(x), 1e-300), lo, hi));
+    return Math.exp(newtonInBracket(g, (x) => slope(x) / exceededAt(x), lo, hi));
   };
 
   return { p0Percent: p0, rainRateExceeded, probabilityExceeded };
