@@ -82,7 +82,9 @@ export function quoteStudySnapshotOf(study: StudyForQuote): QuoteStudySnapshot {
       modcod: inputs.service.modcod,
       transmits: inputs.service.uplink !== null,
     },
-    climate: { name: inputs.climate.name, sourceNote: inputs.climate.sourceNote },
+    climate: { name: inputs.climate.name, sourceNote: inputs.climate.sourceNote, kind: inputs.climate.kind },
+    // Studies computed before issue 9 have no attenuationModel: they were rain only.
+    attenuationModel: t.attenuationModel ?? 'rain',
     pointing: { azimuthDeg: t.azimuthDeg, elevationDeg: t.elevationDeg, polarizationSkewDeg: t.polarizationSkewDeg },
     targetAvailabilityPercent: t.recommendation.targetAvailabilityPercent,
     basis: t.recommendation.basis,

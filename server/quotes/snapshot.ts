@@ -1,4 +1,5 @@
 import type { ExceedanceBound } from '@/server/engine/p618-rain-path';
+import type { ClimateSnapshot } from '@/server/studies/snapshot';
 
 /**
  * What a quote keeps of its study, frozen at creation: the customer is shown exactly these
@@ -70,7 +71,20 @@ export interface QuoteStudySnapshot {
     /** A terminal that also transmits (VSAT return link): RF exposure caution applies. */
     transmits: boolean;
   };
-  climate: { name: string; sourceNote: string };
+  climate: {
+    name: string;
+    sourceNote: string;
+    /**
+     * Where the rain climate came from: 'itu-r-maps' (read at the site's coordinates) or a company
+     * profile's kind. Absent on quotes made before the maps existed: all of those used a profile.
+     */
+    kind?: ClimateSnapshot['kind'];
+  };
+  /**
+   * 'total': the outages count gases, clouds, rain and scintillation (ITU-R P.618-14 §2.5);
+   * 'rain': rain only. Absent on quotes made before issue 9, which were all rain only.
+   */
+  attenuationModel?: 'total' | 'rain';
   pointing: { azimuthDeg: number; elevationDeg: number; polarizationSkewDeg: number };
   targetAvailabilityPercent: number | null;
   basis: 'downlink' | 'two-way';

@@ -1,6 +1,5 @@
 import { asSignedOut, asUser, apiRequest, callAction } from './support/next-request';
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
-import { inflateSync } from 'node:zlib';
 import { models } from '@/db/models';
 import { closeSequelize } from '@/db/sequelize';
 import { GET as listRoute } from '@/app/api/v1/quotes/route';
@@ -12,6 +11,7 @@ import { uploadLogo } from '@/server/actions/branding';
 import { addDays, utcDay } from '@/server/quotes/status';
 import { createCompany, createUserWithRole, signInAs, type TestCompany, type TestUser } from './support/factories';
 import { draftQuote, sentQuote } from './quotes-fixtures';
+import { pdfText, pdfWords } from './support/pdf-words';
 
 let company: TestCompany;
 let installer: TestUser;
@@ -31,34 +31,6 @@ beforeAll(async () => {
 });
 afterAll(closeSequelize);
 beforeEach(() => asSignedOut());
-
-/** Raw PDF plus every Flate-compressed stream inflated (PDF 32000-1 §7.4.4): for object dictionaries. */
-function pdfText(pdf: Buffer): string {
-  const raw = pdf.toString('latin1');
-  let out = raw;
-  const re = /stream\r?\n/g;
-  let m: RegExpExecArray | null;
-  while ((m = re.exec(raw))) {
-    const start = m.index + m[0].length;
-    try {
-      out += inflateSync(pdf.subarray(start, raw.indexOf('endstream', start))).toString('latin1');
-    } catch {
-      /* not compressed */
-    }
-  }
-  return out;
-}
-
-/**
- * The words printed on the pages: react-pdf writes each line as a TJ array of hex strings in
- * WinAnsi codes (PDF 32000-1 §9.4.3), kerning numbers in between; lines are joined by spaces.
- */
-function pdfWords(pdf: Buffer): string {
-  const lines = [...pdfText(pdf).matchAll(/\[((?:<[0-9a-fA-F]*>\s*-?[\d.]*\s*)+)\]\s*TJ/g)].map((m) =>
-    [...m[1].matchAll(/<([0-9a-fA-F]*)>/g)].map((h) => Buffer.from(h[1], 'hex').toString('latin1')).join(''),
-  );
-  return lines.join(' ').replace(/\s+/g, ' ');
-}
 
 describe('GET /api/v1/quotes', () => {
   it('lists the company’s quotes with search, status filter, paging and counts; never another company’s', async () => {

@@ -10,6 +10,7 @@ import { Notice } from '@/components/ui/notice';
 import { openSharedPage } from '@/server/quotes/shared-quote';
 import { requestMetaFrom } from '@/server/auth/request-meta';
 import { siteAndServiceInWords } from '@/server/quotes/present';
+import { figuresSourceInWords } from '@/server/quotes/climate-words';
 import { diameterInWords } from '@/server/quotes/plain-words';
 import { isPastValidity, quoteReference } from '@/server/quotes/status';
 
@@ -34,6 +35,7 @@ export default async function SharedQuotePage({ params }: { params: Promise<{ to
   const { quote, companyName, showLogo } = shared;
   const ref = quoteReference(quote.number);
   const words = siteAndServiceInWords(quote.studySnapshot);
+  const sources = figuresSourceInWords(quote.studySnapshot, companyName);
   const decided = quote.status === 'accepted' || quote.status === 'declined';
   const expired = !decided && (quote.status === 'expired' || isPastValidity(quote.validUntil));
   const chosen = quote.chosenOption;
@@ -71,6 +73,10 @@ export default async function SharedQuotePage({ params }: { params: Promise<{ to
             <dd className="text-stone-900">{words.service}</dd>
             <dt className="font-medium text-stone-600">Dish direction</dt>
             <dd className="text-stone-900">{words.pointing}</dd>
+            <dt className="font-medium text-stone-600">Weather data</dt>
+            <dd className="text-stone-900">
+              {sources.rainClimate} {sources.attenuation}
+            </dd>
           </dl>
         </section>
 
@@ -126,7 +132,7 @@ export default async function SharedQuotePage({ params }: { params: Promise<{ to
       </main>
       <footer className="border-t border-stone-200 bg-white">
         <p className="mx-auto max-w-5xl px-5 py-4 text-xs text-stone-600">
-          Prepared by {companyName} with FadeLedger. Outage figures use the ITU-R rain-fade methods for your location: long-term statistics, not guarantees for any one year.
+          Prepared by {companyName} with FadeLedger. Outage figures use the ITU-R propagation methods with the weather data named above. {sources.caution}
         </p>
       </footer>
     </div>

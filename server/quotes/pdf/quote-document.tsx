@@ -1,6 +1,7 @@
 import { Document, Image, Page, StyleSheet, Text, View } from '@react-pdf/renderer';
 import type { QuoteDetail } from '@/db/queries/quotes';
 import { quoteCautions } from '../cautions';
+import { figuresSourceInWords } from '../climate-words';
 import { presentOptions, siteAndServiceInWords } from '../present';
 import { diameterInWords } from '../plain-words';
 import { QUOTE_STATUS_LABELS, quoteReference } from '../status';
@@ -63,6 +64,9 @@ export function QuoteDocument({ companyName, logo, quote, generatedAt }: QuotePd
   const options = presentOptions(quote.options, quote.chosenOptionIndex);
   const chosen = options.find((o) => o.quoted);
   const cautions = quoteCautions({ transmits: quote.studySnapshot.service.transmits });
+  const sources = figuresSourceInWords(quote.studySnapshot, companyName);
+  // The Recommendations behind the figures: P.676 and P.840 only when gases and clouds were counted.
+  const methods = quote.studySnapshot.attenuationModel === 'total' ? 'ITU-R P.618, P.676, P.837, P.838, P.839, P.840, P.841' : 'ITU-R P.618, P.837, P.838, P.839, P.841';
   return (
     <Document title={w(`${ref} ${companyName}`)} author={w(companyName)} subject={w(`Quote for ${quote.siteName}`)} creator="FadeLedger" producer="FadeLedger">
       <Page size="A4" style={s.page}>
@@ -92,6 +96,10 @@ export function QuoteDocument({ companyName, logo, quote, generatedAt }: QuotePd
           {w(words.service)}
         </Text>
         <Text style={s.para}>{w(words.pointing)}</Text>
+        <Text style={s.para}>
+          <Text style={s.bold}>Weather data: </Text>
+          {w(`${sources.rainClimate} ${sources.attenuation}`)}
+        </Text>
 
         {chosen ? (
           <View style={s.box} wrap={false}>
@@ -185,7 +193,7 @@ export function QuoteDocument({ companyName, logo, quote, generatedAt }: QuotePd
           </Text>
         ))}
         <Text style={s.small}>
-          {w(`Figures from a study computed on ${dateWords(quote.studySnapshot.computedAt)} with FadeLedger engine ${quote.studySnapshot.engineVersion} (ITU-R P.618, P.837, P.838, P.839, P.841); rain climate: ${quote.studySnapshot.climate.name}.`)}
+          {w(`Figures from a study computed on ${dateWords(quote.studySnapshot.computedAt)} with FadeLedger engine ${quote.studySnapshot.engineVersion} (${methods}); rain climate: ${quote.studySnapshot.climate.name}. ${sources.caution}`)}
         </Text>
 
         <View style={s.footer} fixed>

@@ -21,6 +21,8 @@ import { AppError } from '@/server/errors';
 import { readQuote, type QuoteWithHistory } from '@/server/quotes/read-quote';
 import { isEditable, isPastValidity, isShareable, quoteReference } from '@/server/quotes/status';
 import { siteAndServiceInWords } from '@/server/quotes/present';
+import { figuresSourceInWords } from '@/server/quotes/climate-words';
+import { getCompanyName } from '@/db/queries/branding';
 
 export const metadata: Metadata = { title: 'Quote' };
 
@@ -40,6 +42,8 @@ export default async function QuotePage({ params }: { params: Promise<{ id: stri
   const canShare = can(ctx.role, 'quote.share');
   const shareable = isShareable(quote.status) && !isPastValidity(quote.validUntil);
   const words = siteAndServiceInWords(quote.studySnapshot);
+  // The customer's page names the company that chose any override climate; this card shows the same words.
+  const sources = figuresSourceInWords(quote.studySnapshot, (await getCompanyName(ctx.companyId)) ?? 'your company');
   const waiting = quote.status === 'sent' || quote.status === 'viewed';
   return (
     <>
@@ -92,6 +96,9 @@ export default async function QuotePage({ params }: { params: Promise<{ id: stri
           <Card aria-labelledby="offer-title">
             <CardHeader id="offer-title" title="What the customer sees" description={`${words.site} ${words.service}`} />
             <CardBody className="space-y-5">
+              <p className="text-sm text-stone-700">
+                {sources.rainClimate} {sources.attenuation}
+              </p>
               <OptionCards options={quote.options} chosenIndex={quote.chosenOptionIndex} currency={quote.currency} />
               <div>
                 <h3 className="mb-2 text-sm font-semibold text-stone-900">Price of {quote.chosenOption.dishName}</h3>
