@@ -20,6 +20,9 @@ export class ClimateProfile extends Model<InferAttributes<ClimateProfile>, Infer
   declare data: ClimateData;
   declare zeroIsothermKm: string | null;
   declare sourceNote: string;
+  /** Where the figures were measured or made for (exact decimal strings); null = not known. */
+  declare latDeg: CreationOptional<string | null>;
+  declare lonDeg: CreationOptional<string | null>;
   declare uploadId: number | null;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
@@ -35,6 +38,8 @@ export function initClimateProfile(sequelize: Sequelize): void {
       data: { type: DataTypes.JSON, allowNull: false },
       zeroIsothermKm: decimalAttribute('zeroIsothermKm', 5, 3, { allowNull: true }),
       sourceNote: { type: DataTypes.STRING(500), allowNull: false },
+      latDeg: decimalAttribute('latDeg', 8, 5, { allowNull: true }),
+      lonDeg: decimalAttribute('lonDeg', 9, 5, { allowNull: true }),
       uploadId: { type: DataTypes.INTEGER, allowNull: true },
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,

@@ -23,6 +23,8 @@ export async function createClimateProfile(companyId: number, input: ClimateProf
       data: input.data,
       zeroIsothermKm: input.zeroIsothermKm === undefined ? null : input.zeroIsothermKm.toFixed(3),
       sourceNote: input.sourceNote,
+      latDeg: input.latDeg === undefined ? null : input.latDeg.toFixed(5),
+      lonDeg: input.lonDeg === undefined ? null : input.lonDeg.toFixed(5),
       uploadId: o.uploadId ?? null,
     },
     { transaction: o.transaction },

@@ -2,6 +2,7 @@ import 'server-only';
 import { QueryTypes, type Transaction } from 'sequelize';
 import { models } from '../models';
 import type { ListQuery, Paged } from '@/server/validation/paging';
+import type { AltitudeSource } from '../models/site';
 import { containsPattern, paged } from './paging';
 
 export interface SiteListItem {
@@ -13,6 +14,7 @@ export interface SiteListItem {
   latDeg: number;
   lonDeg: number;
   altitudeM: number;
+  altitudeSource: AltitudeSource;
   notes: string | null;
   studyCount: number;
 }
@@ -23,6 +25,8 @@ export interface SiteFieldsInput {
   latDeg: number;
   lonDeg: number;
   altitudeM: number;
+  /** Typed in ('user', the default) or taken from the ITU-R P.1511-1 map. */
+  altitudeSource?: AltitudeSource;
   notes?: string | null;
 }
 
@@ -41,8 +45,8 @@ export async function listSites(companyId: number, query: ListQuery & { customer
   }
   const from = `FROM sites s JOIN customers c ON c.id = s.customer_id AND c.company_id = s.company_id WHERE ${where.join(' AND ')}`;
   const [{ total }] = await sequelize.query<{ total: number }>(`SELECT COUNT(*) AS total ${from}`, { replacements, type: QueryTypes.SELECT });
-  const rows = await sequelize.query<{ id: number; name: string; address: string | null; customer_id: number; customer_name: string; lat_deg: string; lon_deg: string; altitude_m: string; notes: string | null; study_count: number }>(
-    `SELECT s.id, s.name, s.address, s.customer_id, c.name AS customer_name, s.lat_deg, s.lon_deg, s.altitude_m, s.notes,
+  const rows = await sequelize.query<{ id: number; name: string; address: string | null; customer_id: number; customer_name: string; lat_deg: string; lon_deg: string; altitude_m: string; altitude_source: AltitudeSource; notes: string | null; study_count: number }>(
+    `SELECT s.id, s.name, s.address, s.customer_id, c.name AS customer_name, s.lat_deg, s.lon_deg, s.altitude_m, s.altitude_source, s.notes,
             (SELECT COUNT(*) FROM studies st WHERE st.company_id = s.company_id AND st.site_id = s.id) AS study_count
        ${from} ORDER BY s.name, s.id LIMIT :limit OFFSET :offset`,
     { replacements, type: QueryTypes.SELECT },
@@ -57,6 +61,7 @@ export async function listSites(companyId: number, query: ListQuery & { customer
       latDeg: Number(r.lat_deg),
       lonDeg: Number(r.lon_deg),
       altitudeM: Number(r.altitude_m),
+      altitudeSource: r.altitude_source,
       notes: r.notes,
       studyCount: Number(r.study_count),
     })),
@@ -90,6 +95,7 @@ export async function createSite(companyId: number, customerId: number, input: S
       latDeg: input.latDeg.toFixed(6),
       lonDeg: input.lonDeg.toFixed(6),
       altitudeM: input.altitudeM.toFixed(1),
+      altitudeSource: input.altitudeSource ?? 'user',
       notes: input.notes ?? null,
     },
     { transaction: t },
@@ -106,6 +112,7 @@ export async function updateSite(companyId: number, id: number, customerId: numb
       latDeg: input.latDeg.toFixed(6),
       lonDeg: input.lonDeg.toFixed(6),
       altitudeM: input.altitudeM.toFixed(1),
+      altitudeSource: input.altitudeSource ?? 'user',
       notes: input.notes ?? null,
     },
     { where: { id, companyId } },

@@ -2,6 +2,7 @@ import { geoLookAngles } from '@/server/engine';
 import type { TradeoffScenario } from '@/server/engine/tradeoff-types';
 import type { RainClimateInput } from '@/server/engine/rain-climate-source';
 import type { ClimateZone } from '@/server/engine/p837-1-climate-zones';
+import type { SiteAtmosphere } from '@/server/engine/site-atmosphere';
 import type { ClimateSnapshot, DishSnapshot, ServiceSnapshot, SiteSnapshot } from './snapshot';
 
 /** ITU-R P.838-3: τ = 45° for circular polarization. */
@@ -21,11 +22,18 @@ export function downlinkTiltDeg(polarization: ServiceSnapshot['polarization'], o
   return Math.round((t > 90 ? 180 - t : t) * 1e6) / 1e6;
 }
 
-/** The study's climate profile as the engine's rain input (engine.md §1), with its rain height. */
-export function rainInputOf(climate: ClimateSnapshot): RainClimateInput {
-  const height = climate.zeroIsothermKm === null ? {} : { zeroIsothermHeightKm: climate.zeroIsothermKm };
+/**
+ * The study's rain climate as the engine's rain input (engine.md §1), with its rain height: the
+ * profile's own 0 °C isotherm, else the P.839-4 map value at the site (`fallbackIsothermKm`),
+ * else (old snapshots only) the engine's latitude approximation.
+ */
+export function rainInputOf(climate: ClimateSnapshot, fallbackIsothermKm: number | null = null): RainClimateInput {
+  const isotherm = climate.zeroIsothermKm ?? fallbackIsothermKm;
+  const height = isotherm === null ? {} : { zeroIsothermHeightKm: isotherm };
   const data = climate.data as Record<string, unknown>;
   switch (climate.kind) {
+    case 'itu-r-maps':
+      return { monthlyRainfallMm: data.monthlyRainfallMm as number[], monthlyTemperatureC: data.monthlyTemperatureC as number[], origin: 'itu-r-maps', ...height };
     case 'known-r001':
       return { r001MmH: data.r001MmH as number, ...height };
     case 'monthly-normals':
@@ -47,6 +55,10 @@ export function buildScenario(o: {
   climate: ClimateSnapshot;
   dishes: DishSnapshot[];
   targetAvailabilityPercent: number;
+  /** The site's atmosphere from the ITU-R maps: outages on the P.618 §2.5 total. Null only for old snapshots. */
+  atmosphere?: SiteAtmosphere | null;
+  /** The P.839-4 map isotherm at the site, for override profiles that give none. */
+  fallbackIsothermKm?: number | null;
 }): { scenario: TradeoffScenario; downlinkTiltDeg: number; dishes: DishSnapshot[] } {
   const site = { latDeg: o.site.latDeg, lonDeg: o.site.lonDeg, altitudeKm: o.site.altitudeM / 1000 };
   const look = geoLookAngles({ ...site, satelliteLongitudeDeg: o.service.satelliteLongitudeDeg });
@@ -66,7 +78,7 @@ export function buildScenario(o: {
       otherLossesDb: s.otherLossesDb,
     },
     receiver: { lnbNoiseTempK: s.lnbNoiseTempK, antennaNoiseTempK: s.antennaNoiseTempK },
-    rain: rainInputOf(o.climate),
+    rain: rainInputOf(o.climate, o.fallbackIsothermKm ?? null),
     dishes: dishes.map((d) => ({ diameterM: d.diameterM, efficiency: d.efficiency, priceUsd: d.hardwarePrice, labourUsd: d.labourPrice })),
     targetAvailabilityPercent: o.targetAvailabilityPercent,
   };
@@ -84,5 +96,6 @@ export function buildScenario(o: {
     };
   }
   if (s.acmModcods && s.acmModcods.length) scenario.acm = { modcods: s.acmModcods };
+  if (o.atmosphere) scenario.atmosphere = o.atmosphere;
   return { scenario, downlinkTiltDeg: tilt, dishes };
 }

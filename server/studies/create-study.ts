@@ -11,6 +11,7 @@ import type { NewStudyInput } from '@/server/validation/study';
 import { toStudyInputError } from './engine-errors';
 import { assertStudyWithinPlan } from './plan-limit';
 import { computeStudyFromRows } from './snapshot-of';
+import { resolveSiteAltitude } from './site-altitude';
 import type { StudyInputsSnapshot, StudyResultSnapshot } from './snapshot';
 
 export interface StudyActor {
@@ -28,9 +29,10 @@ export function defaultStudyTitle(inputs: Pick<StudyInputsSnapshot, 'site' | 'se
 }
 
 /**
- * Create a study: the customer and site (picked or new), the service, climate and dishes of this
- * company, computed by the engine and stored with its snapshots — all in one transaction, so a
- * refused study leaves no half-made customer or site behind.
+ * Create a study: the customer and site (picked or new; a blank altitude comes from the ITU-R
+ * P.1511-1 map), the service, the rain climate (the ITU-R maps at the site, or a company profile
+ * as an override) and dishes of this company, computed by the engine and stored with its
+ * snapshots — all in one transaction, so a refused study leaves no half-made customer or site behind.
  */
 export async function createStudy(actor: StudyActor, input: NewStudyInput): Promise<{ id: number }> {
   const { sequelize } = models();
@@ -38,8 +40,8 @@ export async function createStudy(actor: StudyActor, input: NewStudyInput): Prom
   return sequelize.transaction(async (t) => {
     const service = await getServiceProfile(companyId, input.serviceProfileId, t);
     if (!service) throw new NotFoundError('That service profile');
-    const climate = await getClimateProfile(companyId, input.climateProfileId, t);
-    if (!climate) throw new NotFoundError('That climate profile');
+    const climate = input.climateProfileId === null ? null : await getClimateProfile(companyId, input.climateProfileId, t);
+    if (input.climateProfileId !== null && !climate) throw new NotFoundError('That climate profile');
     const dishes = await getDishesByIds(companyId, input.dishIds, t);
     if (dishes.length !== input.dishIds.length) throw new NotFoundError('One of the chosen dishes');
 
@@ -58,20 +60,22 @@ export async function createStudy(actor: StudyActor, input: NewStudyInput): Prom
       throw new InvalidInputError('That site belongs to another customer.', { siteId: ['That site belongs to another customer.'] });
     }
 
+    // The map altitude is read before anything is written, so a site it cannot fill is refused cleanly.
+    const altitude = 'id' in input.site ? null : resolveSiteAltitude(input.site.latDeg, input.site.lonDeg, input.site.altitudeM);
     await assertStudyWithinPlan(companyId, t);
     if (!('id' in input.customer)) {
       customer = await createCustomer(companyId, { name: input.customer.name, email: null, phone: null, notes: null }, t);
     }
-    if (!('id' in input.site)) {
-      const { name, latDeg, lonDeg, altitudeM } = input.site;
-      site = await createSite(companyId, customer!.id, { name, latDeg, lonDeg, altitudeM }, t);
+    if (!('id' in input.site) && altitude) {
+      const { name, latDeg, lonDeg } = input.site;
+      site = await createSite(companyId, customer!.id, { name, latDeg, lonDeg, ...altitude }, t);
     }
     if (!customer || !site) throw new Error('createStudy: customer and site are resolved above');
     let computed;
     try {
       computed = computeStudyFromRows({ site, customerName: customer.name, service, climate, dishes, targetAvailabilityPercent: input.targetAvailabilityPercent });
     } catch (e) {
-      toStudyInputError(e);
+      toStudyInputError(e, { siteTypedIn: !('id' in input.site) });
     }
     const id = await insertStudy(
       companyId,
@@ -79,7 +83,7 @@ export async function createStudy(actor: StudyActor, input: NewStudyInput): Prom
         customerId: customer.id,
         siteId: site.id,
         serviceProfileId: service.id,
-        climateProfileId: climate.id,
+        climateProfileId: climate?.id ?? null,
         revisionOfStudyId: null,
         revision: 1,
         title: input.title ?? defaultStudyTitle(computed.inputs),

@@ -13,9 +13,10 @@ import { assertStudyWithinPlan } from './plan-limit';
 import { computeStudyFromRows } from './snapshot-of';
 
 /**
- * Re-run a study with today's site, service, climate and catalogue rows and today's engine, as
- * a new revision of the same chain. The old study is left exactly as it was: quotes made from it
- * keep their figures.
+ * Re-run a study with today's site, service, climate and catalogue rows, today's ITU-R maps at the
+ * site and today's engine, as a new revision of the same chain. A study on the maps stays on the
+ * maps; one with an override profile needs that profile still. The old study is left exactly as it
+ * was: quotes made from it keep their figures.
  */
 export async function rerunStudy(actor: StudyActor, studyId: number): Promise<{ id: number; revision: number }> {
   const { sequelize } = models();
@@ -31,8 +32,10 @@ export async function rerunStudy(actor: StudyActor, studyId: number): Promise<{ 
     if (!customer) throw gone('customer');
     const service = old.serviceProfileId ? await getServiceProfile(companyId, old.serviceProfileId, t) : null;
     if (!service) throw gone('service profile');
+    // No profile id: the maps (kind 'itu-r-maps'), or a profile deleted since (its id was unlinked).
+    const onMaps = old.climateProfileId === null && old.inputs.climate.kind === 'itu-r-maps';
     const climate = old.climateProfileId ? await getClimateProfile(companyId, old.climateProfileId, t) : null;
-    if (!climate) throw gone('climate profile');
+    if (!climate && !onMaps) throw gone('climate profile');
     const ids = old.inputs.dishes.map((d) => d.dishId).filter((id): id is number => id !== null);
     const dishes = await getDishesByIds(companyId, ids, t);
     if (dishes.length === 0) throw gone('dish selection');
@@ -52,7 +55,7 @@ export async function rerunStudy(actor: StudyActor, studyId: number): Promise<{ 
         customerId: customer.id,
         siteId: site.id,
         serviceProfileId: service.id,
-        climateProfileId: climate.id,
+        climateProfileId: climate?.id ?? null,
         revisionOfStudyId: rootId,
         revision,
         title: old.title,

@@ -7,7 +7,7 @@ import { computeStudy } from './compute-study';
 
 /** Database rows (exact decimal strings) → the plain snapshot a study keeps (numbers for physics, strings for money). */
 
-export function siteSnapshotOf(site: Pick<Site, 'id' | 'name' | 'customerId' | 'latDeg' | 'lonDeg' | 'altitudeM'>, customerName: string): SiteSnapshot {
+export function siteSnapshotOf(site: Pick<Site, 'id' | 'name' | 'customerId' | 'latDeg' | 'lonDeg' | 'altitudeM' | 'altitudeSource'>, customerName: string): SiteSnapshot {
   return {
     id: site.id,
     name: site.name,
@@ -16,6 +16,7 @@ export function siteSnapshotOf(site: Pick<Site, 'id' | 'name' | 'customerId' | '
     latDeg: Number(site.latDeg),
     lonDeg: Number(site.lonDeg),
     altitudeM: Number(site.altitudeM),
+    altitudeSource: site.altitudeSource ?? 'user',
   };
 }
 
@@ -49,6 +50,8 @@ export function climateSnapshotOf(c: ClimateProfile): ClimateSnapshot {
     data: jsonOf(c.data),
     zeroIsothermKm: c.zeroIsothermKm === null ? null : Number(c.zeroIsothermKm),
     sourceNote: c.sourceNote,
+    // Recorded for every profile (null = unknown place), so the study can warn when it was made elsewhere.
+    location: c.latDeg === null || c.latDeg === undefined || c.lonDeg === null || c.lonDeg === undefined ? null : { latDeg: Number(c.latDeg), lonDeg: Number(c.lonDeg) },
   };
 }
 
@@ -77,14 +80,15 @@ export function computeStudyFromRows(o: {
   site: Site;
   customerName: string;
   service: ServiceProfile;
-  climate: ClimateProfile;
+  /** An override profile of the rain climate; null = the ITU-R maps at the site (the default). */
+  climate: ClimateProfile | null;
   dishes: Dish[];
   targetAvailabilityPercent: number;
 }): ReturnType<typeof computeStudy> {
   return computeStudy({
     site: siteSnapshotOf(o.site, o.customerName),
     service: serviceSnapshotOf(o.service),
-    climate: climateSnapshotOf(o.climate),
+    climate: o.climate ? climateSnapshotOf(o.climate) : null,
     dishes: o.dishes.map(dishSnapshotOf),
     targetAvailabilityPercent: o.targetAvailabilityPercent,
   });

@@ -38,7 +38,7 @@ export async function confirmUpload(actor: { companyId: number; userId: string }
       const { added, updated } = await upsertDishesByName(actor.companyId, parsed.dishes, t);
       return { kind: 'dish-catalogue', uploadId: upload.id, added, updated, report: parsed.report };
     }
-    const base = { name: input.name as string, sourceNote: input.sourceNote as string, zeroIsothermKm: input.zeroIsothermKm };
+    const base = { name: input.name as string, sourceNote: input.sourceNote as string, zeroIsothermKm: input.zeroIsothermKm, latDeg: input.latDeg, lonDeg: input.lonDeg };
     const profile =
       parsed.kind === 'rain-curve'
         ? await createClimateProfile(actor.companyId, { ...base, kind: 'measured-curve', data: { points: parsed.points } }, { uploadId: upload.id, transaction: t })

@@ -1,8 +1,10 @@
 import { z } from 'zod';
 import { CLIMATE_ZONES } from '@/server/engine/p837-1-climate-zones';
-import { idField, numberIn, optionalNumberIn, requiredText } from './fields';
+import { idField, numberIn, optionalCoordinateField, optionalNumberIn, requiredText } from './fields';
 
+/** How each climate source reads on screen; 'itu-r-maps' is the default (no profile), the rest are profile kinds. */
 export const CLIMATE_KIND_LABELS = {
+  'itu-r-maps': 'ITU-R digital maps at the site (P.837-7, P.839-4, P.1510-1)',
   'monthly-normals': 'Monthly normals (ITU-R P.837-7 Annex 1)',
   'measured-curve': 'Measured exceedance curve',
   'known-r001': 'Known R0.01',
@@ -70,20 +72,38 @@ export const climateDataSchemas = {
   'climate-zone': climateZoneDataSchema,
 } as const;
 
+/**
+ * The place a profile's figures were measured or made for (decimal or DMS, like a site): both or
+ * neither. A study warns when its override profile was made far from the site or for no known place.
+ */
+export const profileLocationFields = {
+  latDeg: optionalCoordinateField('lat'),
+  lonDeg: optionalCoordinateField('lon'),
+};
+
+/** Refuses a location with only one of its two coordinates, naming the missing box. */
+export function requireBothCoordinates(v: { latDeg?: number; lonDeg?: number }, ctx: z.RefinementCtx): void {
+  if (v.latDeg !== undefined && v.lonDeg === undefined) ctx.addIssue({ code: 'custom', path: ['lonDeg'], message: 'Give the longitude too, or leave both blank.' });
+  if (v.lonDeg !== undefined && v.latDeg === undefined) ctx.addIssue({ code: 'custom', path: ['latDeg'], message: 'Give the latitude too, or leave both blank.' });
+}
+
 const profileFields = {
   name: requiredText('Name', 120),
-  // ITU-R P.839-4 h0 above mean sea level; blank → the labelled latitude approximation.
+  // ITU-R P.839-4 h0 above mean sea level; blank → the P.839-4 map value at each study's site.
   zeroIsothermKm: optionalNumberIn('0 °C isotherm height', 0, 8, 'km'),
   sourceNote: requiredText('Source', 500),
+  ...profileLocationFields,
 };
 
 /** A climate profile with its data, as the API, the seed and the form (known R0.01 / zone) give it. */
-export const climateProfileSchema = z.discriminatedUnion('kind', [
-  z.object({ kind: z.literal('monthly-normals'), ...profileFields, data: monthlyNormalsDataSchema }),
-  z.object({ kind: z.literal('measured-curve'), ...profileFields, data: measuredCurveDataSchema }),
-  z.object({ kind: z.literal('known-r001'), ...profileFields, data: knownR001DataSchema }),
-  z.object({ kind: z.literal('climate-zone'), ...profileFields, data: climateZoneDataSchema }),
-]);
+export const climateProfileSchema = z
+  .discriminatedUnion('kind', [
+    z.object({ kind: z.literal('monthly-normals'), ...profileFields, data: monthlyNormalsDataSchema }),
+    z.object({ kind: z.literal('measured-curve'), ...profileFields, data: measuredCurveDataSchema }),
+    z.object({ kind: z.literal('known-r001'), ...profileFields, data: knownR001DataSchema }),
+    z.object({ kind: z.literal('climate-zone'), ...profileFields, data: climateZoneDataSchema }),
+  ])
+  .superRefine(requireBothCoordinates);
 export type ClimateProfileInput = z.infer<typeof climateProfileSchema>;
 
 /**
@@ -97,8 +117,9 @@ export const climateFormSchema = z
     r001MmH: optionalNumberIn('R0.01', 0, 300, 'mm/h'),
     zone: z.string().optional(),
   })
+  .superRefine(requireBothCoordinates)
   .transform((v, ctx) => {
-    const base = { name: v.name, zeroIsothermKm: v.zeroIsothermKm, sourceNote: v.sourceNote };
+    const base = { name: v.name, zeroIsothermKm: v.zeroIsothermKm, sourceNote: v.sourceNote, latDeg: v.latDeg, lonDeg: v.lonDeg };
     if (v.kind === 'known-r001') {
       if (v.r001MmH === undefined) {
         ctx.addIssue({ code: 'custom', path: ['r001MmH'], message: 'R0.01 is required.' });

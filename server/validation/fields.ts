@@ -119,6 +119,11 @@ export function coordinateField(axis: CoordinateAxis, label?: string) {
   });
 }
 
+/** An optional latitude or longitude (decimal or DMS): blank is "not given" (undefined). */
+export function optionalCoordinateField(axis: CoordinateAxis, label?: string) {
+  return z.preprocess((v) => (v === null ? undefined : blankToUndefined(v)), coordinateField(axis, label).optional());
+}
+
 /** Field errors of a failed parse in the ActionState shape (`{ field: [messages] }`). */
 export function fieldErrorsOf(error: z.ZodError): Record<string, string[]> {
   const out: Record<string, string[]> = {};

@@ -9,9 +9,13 @@ export const TARGET_AVAILABILITY_PERCENT = { min: 90, max: 99.999, default: 99.9
 /** Dishes compared in one study (a table that still reads on a phone). */
 export const STUDY_DISHES = { min: 1, max: 12 } as const;
 
-/** Blank altitude means sea level; anything else must be a number in range (NaN otherwise). */
-function altitudeOf(v: unknown): number {
-  const text = v === undefined || v === null || String(v).trim() === '' ? '0' : String(v).trim();
+/**
+ * A blank altitude is `undefined` (the server takes the ITU-R P.1511-1 ground height at the site);
+ * anything else must be a number in range (NaN otherwise).
+ */
+function altitudeOf(v: unknown): number | undefined {
+  if (v === undefined || v === null || String(v).trim() === '') return undefined;
+  const text = String(v).trim();
   const n = /^[+-]?\d+(\.\d+)?$/.test(text) ? Number(text) : Number.NaN;
   return n >= SITE_ALTITUDE_M.min && n <= SITE_ALTITUDE_M.max ? n : Number.NaN;
 }
@@ -19,10 +23,21 @@ function altitudeOf(v: unknown): number {
 const optionalIdField = (label: string) =>
   z.preprocess((v) => (v === undefined || v === null || v === '' ? undefined : v), idField(label).optional());
 
+/** The climate select's value for the default source: the ITU-R maps at the site (no profile). */
+export const MAPS_CLIMATE_VALUE = 'maps';
+
+/** '' or 'maps' → null (the ITU-R maps at the site, the default); otherwise the id of an override profile. */
+const climateProfileField = z.preprocess(
+  (v) => (v === undefined || v === null || v === '' || v === MAPS_CLIMATE_VALUE ? null : v),
+  idField('climate profile').nullable(),
+);
+
 /**
  * The new-study form. The customer and the site are either picked (`customerId`, `siteId`) or
- * typed in (`newCustomerName`; `siteName` + coordinates in decimal degrees or DMS + altitude),
- * chosen by `customerMode` / `siteMode`. The same schema runs in the browser and in the action.
+ * typed in (`newCustomerName`; `siteName` + coordinates in decimal degrees or DMS + altitude, blank
+ * = the ITU-R P.1511-1 map), chosen by `customerMode` / `siteMode`. The rain climate is the ITU-R
+ * maps at the site unless a company profile is chosen as an override (`climateProfileId`).
+ * The same schema runs in the browser and in the action.
  */
 export const newStudySchema = z
   .object({
@@ -37,7 +52,7 @@ export const newStudySchema = z
     lonDeg: z.union([z.string(), z.number()]).optional(),
     altitudeM: z.union([z.string(), z.number()]).optional(),
     serviceProfileId: idField('service profile'),
-    climateProfileId: idField('climate profile'),
+    climateProfileId: climateProfileField,
     dishIds: idListField('dishes', STUDY_DISHES.min, STUDY_DISHES.max, 'dish'),
     targetAvailabilityPercent: z.preprocess(
       (v) => (v === undefined || v === null || v === '' ? TARGET_AVAILABILITY_PERCENT.default : v),
@@ -60,7 +75,8 @@ export const newStudySchema = z
         const lon = parseCoordinate(String(v.lonDeg ?? ''), 'lon');
         if (!lat.ok) ctx.addIssue({ code: 'custom', path: ['latDeg'], message: lat.error });
         if (!lon.ok) ctx.addIssue({ code: 'custom', path: ['lonDeg'], message: lon.error });
-        if (!Number.isFinite(altitudeOf(v.altitudeM))) {
+        const altitude = altitudeOf(v.altitudeM);
+        if (altitude !== undefined && !Number.isFinite(altitude)) {
           ctx.addIssue({ code: 'custom', path: ['altitudeM'], message: `Altitude must be between ${SITE_ALTITUDE_M.min} and ${SITE_ALTITUDE_M.max} m.` });
         }
       } else if (v.siteId === undefined) {
@@ -72,7 +88,7 @@ export const newStudySchema = z
   .transform((v) => {
     const newSite = v.siteMode === 'new' || v.customerMode === 'new';
     const customer: { id: number } | { name: string } = v.customerMode === 'new' ? { name: v.newCustomerName as string } : { id: v.customerId as number };
-    const site: { id: number } | { name: string; latDeg: number; lonDeg: number; altitudeM: number } = newSite
+    const site: { id: number } | { name: string; latDeg: number; lonDeg: number; altitudeM: number | undefined } = newSite
       ? {
           name: v.siteName as string,
           latDeg: (parseCoordinate(String(v.latDeg), 'lat') as { value: number }).value,
@@ -85,7 +101,7 @@ export const newStudySchema = z
       customer,
       site,
       serviceProfileId: v.serviceProfileId,
-      climateProfileId: v.climateProfileId,
+      climateProfileId: v.climateProfileId ?? null,
       dishIds: v.dishIds,
       targetAvailabilityPercent: v.targetAvailabilityPercent,
     };

@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { optionalNumberIn, optionalText } from './fields';
+import { profileLocationFields, requireBothCoordinates } from './climate';
 
 export const UPLOAD_KIND_LABELS = {
   'dish-catalogue': 'Dish catalogue',
@@ -22,7 +23,8 @@ export const climatePreviewSchema = z.object({ kind: z.enum(['rain-curve', 'clim
 
 /**
  * Confirm: the same file again (it is parsed again on the server: a preview is never trusted),
- * plus, for climate files, the profile's name, its source and an optional 0 °C isotherm height.
+ * plus, for climate files, the profile's name, its source, an optional 0 °C isotherm height and
+ * the optional place the figures were measured for.
  */
 export const uploadConfirmSchema = z
   .object({
@@ -31,9 +33,11 @@ export const uploadConfirmSchema = z
     name: optionalText('Profile name', 120),
     sourceNote: optionalText('Source', 500),
     zeroIsothermKm: optionalNumberIn('0 °C isotherm height', 0, 8, 'km'),
+    ...profileLocationFields,
   })
   .superRefine((v, ctx) => {
     if (v.kind === 'dish-catalogue') return;
+    requireBothCoordinates(v, ctx);
     if (!v.name) ctx.addIssue({ code: 'custom', path: ['name'], message: 'Name the climate profile.' });
     if (!v.sourceNote) ctx.addIssue({ code: 'custom', path: ['sourceNote'], message: 'Say where the figures come from (weather service, station, years).' });
   });
