@@ -58,6 +58,8 @@ export interface RainPath {
   readonly minAttenuationDb: number;
   /** Step 10, p already checked to lie in 0.001–5 %. */
   attenuationAt(pPercent: number): number;
+  /** Step 10 as ln A_p of ln p (the solvers work on logarithms; saves an exp/log pair per call). */
+  lnAttenuationAt(lnPPercent: number): number;
   /**
    * Inverse of step 10: the LARGEST p in the model range with A_p ≥ the attenuation (Brent on
    * ln p after a grid scan), so a non-monotone step 10 never hides a real p; attenuation ≥ 0.
@@ -191,6 +193,7 @@ export function prepareRainPathUnchecked(o: RainPathOptions): RainPath {
     },
     minAttenuationDb: Math.exp(lnMin),
     attenuationAt,
+    lnAttenuationAt: lnAttenuation,
     exceedanceOf,
   };
 }
@@ -236,6 +239,7 @@ function zeroPath(ls: number, cosT: number): RainPath {
     maxAttenuationDb: 0,
     minAttenuationDb: 0,
     attenuationAt: () => 0,
+    lnAttenuationAt: () => Number.NEGATIVE_INFINITY,
     // No rain fade at all: every threshold ≥ 0 dB is exceeded less than 0.001 % of the time.
     exceedanceOf: () => ({ pPercent: MIN_P_PERCENT_P618_14, bound: 'below-model-range' }),
   };

@@ -81,6 +81,11 @@ export function scintillationSigmaUnchecked(
 
 /** Step 8: time-percentage factor a(p). */
 export function scintillationTimeFactor(pPercent: number): number {
-  const lp = Math.log10(pPercent);
+  return scintillationTimeFactorLn(Math.log(pPercent));
+}
+
+/** Step 8 with ln p given (log10 p = ln p / ln 10). */
+export function scintillationTimeFactorLn(lnPPercent: number): number {
+  const lp = lnPPercent * Math.LOG10E;
   return -0.061 * lp * lp * lp + 0.072 * lp * lp - 1.71 * lp + 3.0;
 }

@@ -1,8 +1,9 @@
+import { brentRoot } from './math/brent';
 import { sampleCurve, type SampledCurve } from './math/largest-crossing';
 import { gasSlantPathAttenuation } from './p676-12-gas-slant-path';
 import { standardPressureHpaP835 } from './p835-standard-pressure';
 import { cloudMassAbsorptionUnchecked, CLOUD_LIQUID_TEMPERATURE_K_P840_8 } from './p840-8-cloud-attenuation';
-import { scintillationTimeFactor } from './p618-scintillation';
+import { scintillationTimeFactor, scintillationTimeFactorLn } from './p618-scintillation';
 import { exceedanceOnCurve, MAX_P_PERCENT_P618_14, MIN_P_PERCENT_P618_14, type RainExceedance, type RainPath } from './p618-rain-path';
 import { atmosphereAt, type SiteAtmosphere } from './site-atmosphere';
 
@@ -15,6 +16,9 @@ const MEMO_LIMIT = 512;
 const DEG = Math.PI / 180;
 const LN_P_MIN = Math.log(MIN_P_PERCENT_P618_14);
 const LN_P_MAX = Math.log(MAX_P_PERCENT_P618_14);
+const LN_P_HELD = Math.log(HELD_BELOW_P_PERCENT_P618_14);
+/** Within 1e-8 in ln of A_T(5 %) is the range end itself (rounding, not physics), as for rain alone. */
+const RANGE_END_SNAP_LN = 1e-8;
 /** A total of exactly 0 dB has no logarithm; this floor keeps ln finite and below any real threshold. */
 const LN_FLOOR = -690;
 
@@ -64,7 +68,10 @@ export function prepareAtmosphericPath(o: { frequencyGHz: number; elevationDeg: 
     memo.set(p, v);
     return v;
   };
-  const gasAt = (p: number): number => {
+  const firstLevelP = o.atmosphere.levels[0].pPercent;
+  const gasAt = (pPercent: number): number => {
+    // Below the first tabulated level the value is held: one memo entry serves every such p.
+    const p = Math.max(pPercent, firstLevelP);
     const hit = gasMemo.get(p);
     if (hit !== undefined) return hit;
     const a = atmosphereAt(o.atmosphere.levels, p);
@@ -79,7 +86,8 @@ export function prepareAtmosphericPath(o: { frequencyGHz: number; elevationDeg: 
     }).totalDb;
     return remember(gasMemo, p, g);
   };
-  const cloudAt = (p: number): number => {
+  const cloudAt = (pPercent: number): number => {
+    const p = Math.max(pPercent, firstLevelP);
     const hit = cloudMemo.get(p);
     if (hit !== undefined) return hit;
     return remember(cloudMemo, p, (atmosphereAt(o.atmosphere.levels, p).reducedCloudLiquidKgM2 * kl) / sinT);
@@ -115,12 +123,14 @@ export function totalAttenuationCurve(o: { rainPath: RainPath; atmosphericPath: 
   const gasHeld = atm ? atm.gasAt(HELD_BELOW_P_PERCENT_P618_14) : 0;
   const cloudHeld = atm ? atm.cloudAt(HELD_BELOW_P_PERCENT_P618_14) : 0;
   const sigma = o.scintillationSigmaDb;
-  const totalAt = (p: number): number => {
+  const totalAt = (p: number): number => totalAtLn(p, Math.log(p));
+  /** A_T at p, with ln p given too (the solvers have it). */
+  const totalAtLn = (p: number, lp: number): number => {
     const below = p < HELD_BELOW_P_PERCENT_P618_14;
     const g = atm ? (below ? gasHeld : atm.gasAt(p)) : 0;
     const c = atm ? (below ? cloudHeld : atm.cloudAt(p)) : 0;
-    const rc = o.rainPath.attenuationAt(p) + c;
-    const s = sigma > 0 ? sigma * scintillationTimeFactor(p) : 0;
+    const rc = Math.exp(o.rainPath.lnAttenuationAt(lp)) + c;
+    const s = sigma > 0 ? sigma * scintillationTimeFactorLn(lp) : 0;
     return g + Math.sqrt(rc * rc + s * s);
   };
   const componentsAt = (p: number): AttenuationComponents => ({
@@ -131,17 +141,32 @@ export function totalAttenuationCurve(o: { rainPath: RainPath; atmosphericPath: 
     totalDb: totalAt(p),
   });
   const lnTotal = (lp: number): number => {
-    const t = totalAt(Math.exp(lp));
+    const t = totalAtLn(Math.exp(lp), lp);
     return t > 0 ? Math.log(t) : LN_FLOOR;
   };
+  // Below 1 % gases and clouds are held, so sampling there costs no gas evaluation; that is also
+  // the only stretch where step 10 of the rain model can turn (just above 0.001 %).
   let curve: SampledCurve | null = null;
-  const sampled = (): SampledCurve => (curve ??= sampleCurve(lnTotal, LN_P_MIN, LN_P_MAX));
+  const sampledBelowHeld = (): SampledCurve => (curve ??= sampleCurve(lnTotal, LN_P_MIN, LN_P_HELD));
+  const exceedanceOf = (a: number): RainExceedance => {
+    if (!(a > 0)) return { pPercent: MAX_P_PERCENT_P618_14, bound: 'above-model-range' };
+    const lnA = Math.log(a);
+    if (lnA <= lnTotal(LN_P_HELD)) {
+      // From 1 % to 5 % every component falls with p (β = 0 in step 10; ρ, V and L_red fall with
+      // p on the maps; a(p) falls): one crossing at most, and it is the largest p.
+      const lnAt5 = lnTotal(LN_P_MAX);
+      if (lnA <= lnAt5) return lnA >= lnAt5 - RANGE_END_SNAP_LN ? { pPercent: MAX_P_PERCENT_P618_14, bound: 'none' } : { pPercent: MAX_P_PERCENT_P618_14, bound: 'above-model-range' };
+      const lp = brentRoot((x) => lnTotal(x) - lnA, LN_P_HELD, LN_P_MAX, 1e-12);
+      return { pPercent: Math.min(MAX_P_PERCENT_P618_14, Math.max(HELD_BELOW_P_PERCENT_P618_14, Math.exp(lp))), bound: 'none' };
+    }
+    return exceedanceOnCurve(sampledBelowHeld(), Number.NEGATIVE_INFINITY, a);
+  };
   return {
     componentsAt,
     totalAt,
-    exceedanceOf: (a: number): RainExceedance => exceedanceOnCurve(sampled(), lnTotal(LN_P_MAX), a),
+    exceedanceOf,
     get maxAttenuationDb(): number {
-      return Math.exp(sampled().peak);
+      return Math.exp(sampledBelowHeld().peak);
     },
   };
 }

@@ -1,5 +1,5 @@
 import { EngineInputError } from './errors';
-import { oxygenSpecificAttenuationUnchecked, vapourPressureHpa, waterVapourSpecificAttenuationUnchecked } from './p676-12-specific-attenuation';
+import { oxygenSpecificAttenuationUnchecked, vapourPressureHpa, waterVapourRatioUnchecked } from './p676-12-specific-attenuation';
 import { requireNumberInRange } from './validate';
 
 /*
@@ -184,9 +184,7 @@ export function waterVapourZenithAttenuationDbUnchecked(frequencyGHz: number, wa
   if (v === 0) return 0;
   const rhoRef = v / WATER_REF_SCALE_KM;
   const tRefK = 14 * Math.log((0.22 * v) / WATER_REF_SCALE_KM) + 3 + 273.15;
-  const ratio =
-    waterVapourSpecificAttenuationUnchecked(frequencyGHz, WATER_REF_PRESSURE_HPA, tRefK, rhoRef) /
-    waterVapourSpecificAttenuationUnchecked(WATER_REF_FREQUENCY_GHZ, WATER_REF_PRESSURE_HPA, tRefK, rhoRef);
+  const ratio = waterVapourRatioUnchecked(frequencyGHz, WATER_REF_FREQUENCY_GHZ, WATER_REF_PRESSURE_HPA, tRefK, rhoRef);
   return WATER_ZENITH_DB_PER_KG_M2 * v * ratio * waterStationHeightFactor(frequencyGHz, stationHeightKm);
 }
 

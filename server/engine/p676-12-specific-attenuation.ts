@@ -55,10 +55,11 @@ export function oxygenSpecificAttenuationUnchecked(f: number, p: number, t: numb
   const e = vapourPressureHpa(rho, t);
   const theta3 = theta * theta * theta;
   const theta08 = theta ** 0.8;
+  const lnTheta = Math.log(theta);
   let sum = 0;
   for (const [fi, a1, a2, a3, a4, a5, a6] of OXYGEN_LINES_P676_12) {
     const s = a1 * 1e-7 * p * theta3 * Math.exp(a2 * (1 - theta));
-    let df = a3 * 1e-4 * (p * theta ** (0.8 - a4) + 1.1 * e * theta);
+    let df = a3 * 1e-4 * (p * (a4 === 0 ? theta08 : Math.exp((0.8 - a4) * lnTheta)) + 1.1 * e * theta);
     df = Math.sqrt(df * df + 2.25e-6); // eq. 6b: Zeeman splitting
     const delta = (a5 + a6 * theta) * 1e-4 * (p + e) * theta08;
     sum += s * lineShape(f, fi, df, delta);
@@ -83,6 +84,28 @@ export function waterVapourSpecificAttenuationUnchecked(f: number, p: number, t:
     sum += s * lineShape(f, fi, df, 0);
   }
   return 0.182 * f * sum;
+}
+
+/**
+ * γ_w(f)/γ_w(fRef) at one pressure, temperature and density: line strengths and widths do not
+ * depend on frequency, so both sums share them (the P.676-12 Annex 2 water-vapour ratio, at half
+ * the cost of two full evaluations). Inputs already validated, ρ > 0.
+ */
+export function waterVapourRatioUnchecked(f: number, fRef: number, p: number, t: number, rho: number): number {
+  const theta = 300 / t;
+  const lnTheta = Math.log(theta);
+  const e = vapourPressureHpa(rho, t);
+  let sum = 0;
+  let sumRef = 0;
+  for (const [fi, b1, b2, b3, b4, b5, b6] of WATER_VAPOUR_LINES_P676_12) {
+    // S ∝ b1 e θ^3.5 exp(b2(1 − θ)): its common factor e θ^3.5 cancels in the ratio.
+    const s = b1 * Math.exp(b2 * (1 - theta));
+    let df = b3 * 1e-4 * (p * Math.exp(b4 * lnTheta) + b5 * e * Math.exp(b6 * lnTheta));
+    df = 0.535 * df + Math.sqrt(0.217 * df * df + (2.1316e-12 * fi * fi) / theta);
+    sum += s * lineShape(f, fi, df, 0);
+    sumRef += s * lineShape(fRef, fi, df, 0);
+  }
+  return (f * sum) / (fRef * sumRef);
 }
 
 /** Line shape factor F_i (eq. 5), with interference δ. */

@@ -1,9 +1,11 @@
 import { brentRoot, SolverNumericError } from './brent';
 
 /** Grid points over the interval: fine enough that a step-10 bump (a fraction of a decade wide) spans several. */
-const SCAN_POINTS = 64;
+const SCAN_POINTS = 48;
 /** Golden-section steps when the peak lies between grid points (shrinks the bracket by 0.618^40 ≈ 4e-9). */
 const PEAK_REFINE_STEPS = 40;
+/** Probe just inside the lower end: tells a curve that starts by rising (a bump) from one that only falls. */
+const START_PROBE_SHARE = 1e-3;
 
 /** Where a curve reaches a level: the largest x with g(x) ≥ level, or why there is none. */
 export type Crossing =
@@ -54,7 +56,10 @@ export function sampleCurve(g: (x: number) => number, lower: number, upper: numb
     gs[i] = v;
     if (v > gs[arg]) arg = i;
   }
-  const peakAt = refinePeak(g, xs, gs, arg);
+  // A curve whose largest grid value is at the lower end and that falls right away has its peak
+  // there: no refinement needed (the common, monotone case).
+  const monotoneStart = arg === 0 && g(lower + START_PROBE_SHARE * (xs[1] - lower)) <= gs[0];
+  const peakAt = monotoneStart ? { x: lower, value: gs[0] } : refinePeak(g, xs, gs, arg);
 
   const largestReaching = (level: number): Crossing => {
     const last = SCAN_POINTS - 1;
