@@ -1,3 +1,4 @@
+import type { AtmosphereLevel, SiteAtmosphere } from '../engine/site-atmosphere';
 import { bilinearAt } from './bilinear';
 import { loadGrid } from './grid';
 import { TABULATED_P_PERCENT } from './log-p-interpolation';
@@ -5,26 +6,8 @@ import { cloudLiquidAtLevel, cloudLiquidGrid } from './p840-8-cloud-liquid';
 import { vapourAtLevel, vapourCell, vapourLevel } from './p836-6-water-vapour';
 import { checkCoordinates, checkStationHeight, mapValueOrRefuse, type SiteCoordinates } from './site-input';
 
-/** Water vapour and cloud liquid exceeded p % of the year, at one tabulated p. */
-export interface AtmosphereLevel {
-  pPercent: number;
-  /** ρ(p) at the station height, g/m³ (ITU-R P.836-6). */
-  surfaceVapourDensityGM3: number;
-  /** V(p) above the station height, kg/m² (ITU-R P.836-6). */
-  waterVapourContentKgM2: number;
-  /** L_red(p), kg/m² (ITU-R P.840-8). */
-  reducedCloudLiquidKgM2: number;
-}
-
-/** What gas and cloud attenuation need from the maps at a site. */
-export interface SiteAtmosphere {
-  /** Annual mean surface temperature, K (ITU-R P.1510-1, bilinear). */
-  surfaceTemperatureK: number;
-  /** Median wet term of surface refractivity, N-units (ITU-R P.453-14). */
-  nWetMedian: number;
-  /** One entry per tabulated p, 0.1 % to 99 % in ascending order. */
-  levels: AtmosphereLevel[];
-}
+// The engine owns the shape (it consumes it); the maps layer only fills it in.
+export type { AtmosphereLevel, SiteAtmosphere } from '../engine/site-atmosphere';
 
 /** Input of {@link siteAtmosphere}. */
 export interface SiteAtmosphereOptions extends SiteCoordinates {
