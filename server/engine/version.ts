@@ -3,6 +3,6 @@
  * which engine produced it; bump the minor on any change that moves a published figure.
  *
  * @example
- * ENGINE_VERSION // => '1.0.0'
+ * ENGINE_VERSION // => '1.1.0'
  */
-export const ENGINE_VERSION: string = '1.0.0';
+export const ENGINE_VERSION: string = '1.1.0';
