@@ -31,7 +31,7 @@ export async function startStripeFake(config: FakeConfig, log: (line: string) =>
     timeoutMs: config.webhookTimeoutMs,
     log,
   });
-  const ctx: FakeContext = { store, events, publicUrl: config.publicUrl ?? '', log };
+  const ctx: FakeContext = { store, events, secretKey: config.secretKey, publicUrl: config.publicUrl ?? '', log };
   const app = createServer(...stripeFakeHandlers(ctx, { webhookUrl: config.webhookUrl, startedAt: Date.now() }));
   app.disable('x-powered-by');
 

@@ -3,6 +3,8 @@
 export interface FakeConfig {
   /** 0 picks a free port (tests). */
   port: number;
+  /** The only API key accepted; any other gets Stripe's 401, as a key of another account would. */
+  secretKey: string;
   webhookSecret: string;
   /** Where events are POSTed; null records them without delivery. */
   webhookUrl: string | null;
@@ -32,6 +34,12 @@ export function readConfig(env: Record<string, string | undefined>): FakeConfig 
   if (!/^\d+$/.test(rawPort) || Number(rawPort) > 65535) {
     throw new ConfigError(`STRIPE_FAKE_PORT must be a port number (0-65535), got "${rawPort}".`);
   }
+  // The same variable the app reads, so the app and the fake cannot disagree by accident; a
+  // live-mode key is refused outright because this stand-in is for test mode only.
+  const secretKey = env.STRIPE_SECRET_KEY?.trim() ?? '';
+  if (!/^(sk|rk)_test_\S{4,}$/.test(secretKey)) {
+    throw new ConfigError('STRIPE_SECRET_KEY is required and must be a test-mode key like "sk_test_..." (the key the app uses; only it is accepted).');
+  }
   const secret = env.STRIPE_WEBHOOK_SECRET?.trim() ?? '';
   if (!/^whsec_\S{8,}$/.test(secret)) {
     throw new ConfigError('STRIPE_WEBHOOK_SECRET is required and must look like "whsec_..." (at least 8 characters after the prefix).');
@@ -40,6 +48,7 @@ export function readConfig(env: Record<string, string | undefined>): FakeConfig 
   const publicUrl = env.STRIPE_FAKE_PUBLIC_URL?.trim();
   return {
     port: Number(rawPort),
+    secretKey,
     webhookSecret: secret,
     webhookUrl: webhookUrl ? httpUrl('STRIPE_FAKE_WEBHOOK_URL', webhookUrl) : null,
     publicUrl: publicUrl ? httpUrl('STRIPE_FAKE_PUBLIC_URL', publicUrl) : null,

@@ -1,5 +1,5 @@
 // Entry point: `npx tsx docker-local/stripe-fake/server.ts [--pid-file PATH]`.
-// Env: STRIPE_WEBHOOK_SECRET (required), STRIPE_FAKE_PORT (12111), STRIPE_FAKE_WEBHOOK_URL,
+// Env: STRIPE_SECRET_KEY and STRIPE_WEBHOOK_SECRET (required), STRIPE_FAKE_PORT (12111), STRIPE_FAKE_WEBHOOK_URL,
 // STRIPE_FAKE_PUBLIC_URL, STRIPE_FAKE_PID_FILE. Writes nothing but the optional pid file.
 import { unlinkSync, writeFileSync } from 'node:fs';
 import { ConfigError, readConfig } from './config';

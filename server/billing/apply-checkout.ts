@@ -8,8 +8,10 @@ import { getStripe } from './stripe';
 
 /**
  * checkout.session.completed: links the provider customer to the company and settles the
- * checkout row the return page is waiting on. If the subscription's own event has not arrived
- * yet, the subscription is fetched and applied now, so the page never waits on event order.
+ * checkout row the return page is waiting on. If the subscription's own events have not arrived
+ * yet — none at all, or only its creation while it still waited on the first payment
+ * (`incomplete`) — the subscription is fetched and applied now, so the page never waits on
+ * event order.
  */
 export async function applyCheckoutCompleted(session: ProviderCheckoutSession, observedAt: number, t: Transaction): Promise<ApplyOutcome> {
   const checkout = await findCheckoutBySession(session.id, t);
@@ -22,7 +24,7 @@ export async function applyCheckoutCompleted(session: ProviderCheckoutSession, o
   let outcome: ApplyOutcome = 'applied';
   if (session.subscriptionId) {
     const known = await findSubscriptionByProviderId(session.subscriptionId, t);
-    if (!known) {
+    if (!known || known.status === 'incomplete') {
       const current = reshapeSubscription(await getStripe().subscriptions.retrieve(session.subscriptionId));
       outcome = await applySubscription(current, observedAt, t, { fetched: true, companyId: company.id });
     }

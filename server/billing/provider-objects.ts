@@ -42,16 +42,17 @@ export function reshapeSubscription(s: Stripe.Subscription): ProviderSubscriptio
   if (!(SUBSCRIPTION_STATUSES as readonly string[]).includes(s.status)) {
     throw new Error(`Unknown subscription status "${s.status}" from the payment provider.`);
   }
+  // Since API 2025-03-31 the period is on each item only; the subscription-level
+  // current_period_end is gone from the API version the SDK pins (and the webhook endpoint must
+  // use the same version), so it is not read even when an older payload carries it.
   const item = s.items?.data?.[0];
-  // Newer API versions carry the period on each item only; older ones on the subscription.
-  const legacyPeriodEnd = (s as unknown as { current_period_end?: number }).current_period_end;
   return {
     id: s.id,
     customerId: idOf(s.customer) as string,
     status: s.status as SubscriptionStatus,
     priceId: item?.price?.id ?? null,
     productId: idOf(item?.price?.product as string | { id: string } | undefined),
-    currentPeriodEnd: fromUnix(item?.current_period_end ?? legacyPeriodEnd),
+    currentPeriodEnd: fromUnix(item?.current_period_end),
     cancelAtPeriodEnd: Boolean(s.cancel_at_period_end) || (s.cancel_at != null && s.status !== 'canceled'),
     canceledAt: fromUnix(s.canceled_at),
     endedAt: fromUnix(s.ended_at),

@@ -6,18 +6,22 @@ import { stripeConfigFromEnv } from '@/server/billing/stripe';
 import { kindAndPriceProblems, newPlanSchema } from '@/server/billing/plan-schema';
 
 /**
- * Where provider data comes in (pure, no services needed): both the current API version's shapes
- * and the older ones a Stripe account may still be pinned to; and the client is configured from
- * the environment only (unset host = Stripe itself).
+ * Where provider data comes in (pure, no services needed): the current API version's shapes (and,
+ * for invoices, the older one a Stripe account may still be pinned to); and the client is
+ * configured from the environment only (unset host = Stripe itself).
  */
 const sub = (over: Record<string, unknown>) => ({ id: 'sub_1', customer: 'cus_1', status: 'active', cancel_at_period_end: false, cancel_at: null, canceled_at: null, ended_at: null, metadata: {}, items: { data: [] }, ...over }) as unknown as Stripe.Subscription;
 
 describe('provider objects', () => {
-  it('reads the period end from the item (current API) or the subscription (older API)', () => {
+  it('reads the period end from the item, never from the subscription (gone since API 2025-03-31)', () => {
     const current = reshapeSubscription(sub({ items: { data: [{ current_period_end: 1_900_000_000, price: { id: 'price_a', product: 'prod_a' } }] } }));
     expect(current).toMatchObject({ priceId: 'price_a', productId: 'prod_a', currentPeriodEnd: new Date(1_900_000_000_000) });
+    // A payload that still carries the retired field next to the item's: the item's value wins.
+    const both = reshapeSubscription(sub({ current_period_end: 1_800_000_000, items: { data: [{ current_period_end: 1_900_000_000, price: { id: 'price_a', product: 'prod_a' } }] } }));
+    expect(both.currentPeriodEnd).toEqual(new Date(1_900_000_000_000));
+    // Only the retired field: no period rather than a value the pinned API version does not send.
     const legacy = reshapeSubscription(sub({ current_period_end: 1_800_000_000, items: { data: [{ price: { id: 'price_b', product: { id: 'prod_b' } } }] } }));
-    expect(legacy).toMatchObject({ productId: 'prod_b', currentPeriodEnd: new Date(1_800_000_000_000) });
+    expect(legacy).toMatchObject({ productId: 'prod_b', currentPeriodEnd: null });
   });
 
   it('treats a cancel_at date like cancel at period end (newer portals set the date)', () => {

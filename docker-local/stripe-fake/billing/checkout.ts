@@ -6,7 +6,7 @@ import { makeSubscription } from '../objects/billing';
 import { periodSeconds } from '../objects/catalog';
 import type { CheckoutSession, Customer } from '../objects/types';
 import { nowSeconds } from '../state/ids';
-import { chargeFirstInvoice } from './lifecycle';
+import { startSubscription } from './lifecycle';
 
 export function findOpenSession(ctx: FakeContext, id: string): CheckoutSession {
   const session = ctx.store.checkoutSessions.get(id);
@@ -57,12 +57,14 @@ export function completeCheckout(ctx: FakeContext, id: string, typedEmail: strin
     start,
     periodEnd: trialEnd ?? start + periodSeconds(first),
     trialEnd,
+    // Without a trial it waits on its first payment (see startSubscription).
+    status: trialEnd ? 'trialing' : 'incomplete',
     metadata: structuredClone(extras.subscriptionMetadata),
     lines: extras.lineItems.map((li) => ({ price: li.price, quantity: li.quantity })),
   });
   ctx.store.subscriptions.set(subscription.id, subscription);
   ctx.store.track(subscription.id);
-  const invoice = chargeFirstInvoice(ctx, subscription);
+  const invoice = startSubscription(ctx, subscription);
 
   session.status = 'complete';
   session.payment_status = trialEnd ? 'no_payment_required' : 'paid';
@@ -80,8 +82,6 @@ export function completeCheckout(ctx: FakeContext, id: string, typedEmail: strin
   session.url = null;
 
   // Stripe does not promise an order; this is the usual one, the session event last.
-  ctx.events.emit('customer.subscription.created', subscription);
-  ctx.events.emit('invoice.paid', invoice);
   ctx.events.emit('checkout.session.completed', session);
   return session;
 }

@@ -3,7 +3,7 @@
 import type { FakeContext } from '../context';
 import { StripeApiError, noSuch } from '../http/errors';
 import type { Metadata } from '../http/params';
-import { makeItem } from '../objects/billing';
+import { makeItem, periodOf } from '../objects/billing';
 import { planOf } from '../objects/catalog';
 import type { Subscription } from '../objects/types';
 import { nowSeconds } from '../state/ids';
@@ -61,7 +61,7 @@ export function updateSubscription(ctx: FakeContext, subscription: Subscription,
         if (change.metadata !== undefined) item.metadata = change.metadata;
       } else if (price) {
         subscription.items.data.push(
-          makeItem(subscription.id, price, change.quantity ?? 1, subscription.current_period_start, subscription.current_period_end),
+          makeItem(subscription.id, price, change.quantity ?? 1, periodOf(subscription).start, periodOf(subscription).end),
         );
       }
     }
@@ -69,7 +69,7 @@ export function updateSubscription(ctx: FakeContext, subscription: Subscription,
     if (changes.cancelAtPeriodEnd !== undefined && changes.cancelAtPeriodEnd !== subscription.cancel_at_period_end) {
       const cancel = changes.cancelAtPeriodEnd;
       subscription.cancel_at_period_end = cancel;
-      subscription.cancel_at = cancel ? subscription.current_period_end : null;
+      subscription.cancel_at = cancel ? periodOf(subscription).end : null;
       subscription.canceled_at = cancel ? nowSeconds() : null;
       subscription.cancellation_details = { comment: null, feedback: null, reason: cancel ? 'cancellation_requested' : null };
     }

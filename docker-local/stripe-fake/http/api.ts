@@ -1,6 +1,6 @@
 // Wraps a /v1 route the way the Stripe API behaves around every call: API-key check, form
-// decoding, idempotent replay of POSTs (the SDK retries with the same Idempotency-Key),
-// `expand[]`, a request-id header and Stripe-shaped errors.
+// decoding, refusal of parameters the endpoint does not take, idempotent replay of POSTs (the SDK
+// retries with the same Idempotency-Key), `expand[]`, a request-id header and Stripe-shaped errors.
 import { createHash } from 'node:crypto';
 import { HttpResponse, type HttpResponseResolver } from 'msw';
 import type { FakeContext } from '../context';
@@ -11,6 +11,7 @@ import { applyExpand } from './expand';
 import { parseForm } from './form';
 import { listOf } from './list';
 import { Params } from './params';
+import { assertKnownParams, type Shape } from './shape';
 
 export interface ApiInput {
   params: Params;
@@ -21,17 +22,27 @@ export interface ApiInput {
 
 export type ApiHandler = (input: ApiInput) => object | Promise<object>;
 
-function checkApiKey(request: Request): void {
+class AuthenticationFailure extends StripeApiError {}
+
+/** Stripe echoes a refused key with its middle masked: `sk_test_****…abcd`. */
+function masked(key: string): string {
+  if (key.length <= 12) return `${key.slice(0, 3)}***`;
+  return `${key.slice(0, 8)}${'*'.repeat(key.length - 12)}${key.slice(-4)}`;
+}
+
+/**
+ * Only the configured secret key opens the API, as only your own account's keys open Stripe's: an
+ * app pointed at the fake with a stale or mistyped key fails here the way it would there.
+ */
+function checkApiKey(request: Request, secretKey: string): void {
   const header = request.headers.get('authorization') ?? '';
   let key = '';
   if (header.startsWith('Bearer ')) key = header.slice(7).trim();
   else if (header.startsWith('Basic ')) key = Buffer.from(header.slice(6), 'base64').toString('utf8').split(':')[0];
   if (!key) {
-    throw new StripeApiError(401, 'You did not provide an API key. You need to provide your API key in the Authorization header, using Bearer auth (e.g. \'Authorization: Bearer YOUR_SECRET_KEY\').');
+    throw new AuthenticationFailure(401, 'You did not provide an API key. You need to provide your API key in the Authorization header, using Bearer auth (e.g. \'Authorization: Bearer YOUR_SECRET_KEY\').');
   }
-  if (!/^(sk|rk)_test_/.test(key)) {
-    throw new StripeApiError(401, `Invalid API Key provided: ${key.slice(0, 8)}***. This local fake accepts test-mode secret keys (sk_test_...) only.`);
-  }
+  if (key !== secretKey) throw new AuthenticationFailure(401, `Invalid API Key provided: ${masked(key)}`);
 }
 
 /** Line items are not part of a session until expanded, as in the Stripe API. */
@@ -50,7 +61,11 @@ function json(body: unknown, status: number, headers: Record<string, string>): R
   return HttpResponse.json(body as object, { status, headers });
 }
 
-export function api(ctx: FakeContext, handler: ApiHandler): HttpResponseResolver<Record<string, string>> {
+/**
+ * `shape` names the parameters the endpoint takes (see http/shape.ts); `'any'` skips the check for
+ * an endpoint that refuses every call with its own explanation.
+ */
+export function api(ctx: FakeContext, shape: Shape | 'any', handler: ApiHandler): HttpResponseResolver<Record<string, string>> {
   return async ({ request, params: path }) => {
     const requestId = newId('req');
     const headers: Record<string, string> = { 'request-id': requestId };
@@ -62,7 +77,7 @@ export function api(ctx: FakeContext, handler: ApiHandler): HttpResponseResolver
     let fingerprint = '';
     let holdsKey = false;
     try {
-      checkApiKey(request);
+      checkApiKey(request, ctx.secretKey);
       const url = new URL(request.url);
       body = method === 'POST' ? await request.text() : url.search.slice(1);
       if (idempotencyKey) {
@@ -84,7 +99,9 @@ export function api(ctx: FakeContext, handler: ApiHandler): HttpResponseResolver
         ctx.store.idempotencyInFlight.add(idempotencyKey);
         holdsKey = true;
       }
-      const params = new Params(parseForm(body));
+      const form = parseForm(body);
+      if (shape !== 'any') assertKnownParams(form, shape);
+      const params = new Params(form);
       const result = await handler({ params, path, requestId, method });
       const expand = params.stringArray('expand') ?? [];
       const payload = expand.length
@@ -98,11 +115,17 @@ export function api(ctx: FakeContext, handler: ApiHandler): HttpResponseResolver
           ? error
           : new StripeApiError(500, 'An unexpected error occurred in the local Stripe fake.', { type: 'api_error' });
       if (!(error instanceof StripeApiError)) ctx.log(`500 on ${method} ${request.url}: ${error instanceof Error ? error.stack : String(error)}`);
+      // A refused key has no account, so no request log to point at (Stripe gives none either).
+      const authentication = failure instanceof AuthenticationFailure;
+      const logUrl = authentication ? undefined : `${ctx.publicUrl}/_fake/requests/${requestId}`;
+      const reply = failure.toBody(logUrl);
+      if (authentication) headers['www-authenticate'] = 'Bearer realm="Stripe"';
+      else ctx.store.logFailure(requestId, { method, path: new URL(request.url).pathname, status: failure.status, body: reply });
       // Stripe replays 4xx answers for a reused key too, but not 5xx or lock conflicts.
       if (holdsKey && failure.status < 500) {
-        remember(ctx, idempotencyKey, fingerprint, failure.status, failure.toBody());
+        remember(ctx, idempotencyKey, fingerprint, failure.status, reply);
       }
-      return json(failure.toBody(), failure.status, headers);
+      return json(reply, failure.status, headers);
     } finally {
       if (holdsKey && idempotencyKey) ctx.store.idempotencyInFlight.delete(idempotencyKey);
     }

@@ -1,6 +1,27 @@
-// Stripe-shaped errors: the SDK turns `{ error: { type, message, param, code } }` plus the HTTP
-// status into StripeInvalidRequestError (400/404), StripeAuthenticationError (401), etc.
+// Stripe-shaped errors: the SDK turns `{ error: { type, message, param, code, doc_url,
+// request_log_url } }` plus the HTTP status into StripeInvalidRequestError (400/404),
+// StripeAuthenticationError (any 401), StripeIdempotencyError, etc. Stripe's documented `type`
+// values are api_error, card_error, idempotency_error and invalid_request_error; a refused key is
+// an invalid_request_error with status 401, and the SDK picks the class by that status.
 export type StripeErrorType = 'invalid_request_error' | 'idempotency_error' | 'api_error' | 'card_error';
+
+/**
+ * Codes that have a page under Stripe's error-code reference; only these get a `doc_url`, so the
+ * fake never hands out a link to a page that does not exist.
+ */
+const DOCUMENTED_CODES = new Set([
+  'email_invalid',
+  'lock_timeout',
+  'parameter_missing',
+  'parameter_unknown',
+  'resource_already_exists',
+  'resource_missing',
+  'url_invalid',
+]);
+
+export interface ErrorBody {
+  error: { type: StripeErrorType; message: string; param?: string; code?: string; doc_url?: string; request_log_url?: string };
+}
 
 export class StripeApiError extends Error {
   readonly status: number;
@@ -20,10 +41,15 @@ export class StripeApiError extends Error {
     this.code = options.code;
   }
 
-  toBody(): { error: Record<string, string> } {
-    const error: Record<string, string> = { type: this.type, message: this.message };
-    if (this.param) error.param = this.param;
+  /** `requestLogUrl`: where this request can be looked up again (Stripe links its Dashboard log). */
+  toBody(requestLogUrl?: string): ErrorBody {
+    const error: ErrorBody['error'] = { type: this.type, message: this.message };
     if (this.code) error.code = this.code;
+    if (this.code && DOCUMENTED_CODES.has(this.code)) {
+      error.doc_url = `https://stripe.com/docs/error-codes/${this.code.replace(/_/g, '-')}`;
+    }
+    if (this.param) error.param = this.param;
+    if (requestLogUrl) error.request_log_url = requestLogUrl;
     return { error };
   }
 }
@@ -51,4 +77,9 @@ export function missingParam(param: string): StripeApiError {
 
 export function invalidParam(param: string, message: string): StripeApiError {
   return new StripeApiError(400, message, { param, code: 'parameter_invalid' });
+}
+
+/** Stripe's answer to a parameter the endpoint does not take, nested names included. */
+export function unknownParam(param: string): StripeApiError {
+  return new StripeApiError(400, `Received unknown parameter: ${param}`, { param, code: 'parameter_unknown' });
 }

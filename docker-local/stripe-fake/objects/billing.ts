@@ -2,7 +2,7 @@
 import type { Metadata } from '../http/params';
 import { newId, nowSeconds } from '../state/ids';
 import { planOf } from './catalog';
-import type { BillingReason, Customer, Invoice, InvoiceLine, Price, Subscription, SubscriptionItem } from './types';
+import type { BillingReason, Customer, Invoice, InvoiceLine, Price, Subscription, SubscriptionItem, SubscriptionStatus } from './types';
 
 export function makeItem(subscriptionId: string, price: Price, quantity: number, start: number, end: number): SubscriptionItem {
   return {
@@ -22,12 +22,19 @@ export function makeItem(subscriptionId: string, price: Price, quantity: number,
   };
 }
 
+/** The current billing period, read from the first item (where the API keeps it). */
+export function periodOf(subscription: Subscription): { start: number; end: number } {
+  const item = subscription.items.data[0];
+  return { start: item.current_period_start, end: item.current_period_end };
+}
+
 export function makeSubscription(fields: {
   customer: string;
   currency: string;
   start: number;
   periodEnd: number;
   trialEnd: number | null;
+  status: SubscriptionStatus;
   metadata: Metadata;
   lines: { price: Price; quantity: number }[];
 }): Subscription {
@@ -44,8 +51,6 @@ export function makeSubscription(fields: {
     collection_method: 'charge_automatically',
     created: fields.start,
     currency: fields.currency,
-    current_period_end: fields.periodEnd,
-    current_period_start: fields.start,
     customer: fields.customer,
     days_until_due: null,
     default_payment_method: null,
@@ -66,19 +71,21 @@ export function makeSubscription(fields: {
     pending_update: null,
     schedule: null,
     start_date: fields.start,
-    status: fields.trialEnd ? 'trialing' : 'active',
+    status: fields.status,
     test_clock: null,
     trial_end: fields.trialEnd,
     trial_start: fields.trialEnd ? fields.start : null,
   };
 }
 
-/** An invoice for the subscription's current period, priced from its items. */
+/**
+ * A draft invoice for the subscription's current period, priced from its items. Drafts have no
+ * number and are not yet due; `finalize` makes them open.
+ */
 export function makeInvoice(customer: Customer, subscription: Subscription, reason: BillingReason, free: boolean): Invoice {
   const id = newId('in');
   const now = nowSeconds();
-  const start = subscription.current_period_start;
-  const end = subscription.current_period_end;
+  const { start, end } = periodOf(subscription);
   const lines: InvoiceLine[] = subscription.items.data.map((item) => ({
     id: newId('il'),
     object: 'line_item',
@@ -109,8 +116,6 @@ export function makeInvoice(customer: Customer, subscription: Subscription, reas
     subscription: subscription.id,
   }));
   const total = lines.reduce((sum, line) => sum + line.amount, 0);
-  const number = `${customer.invoice_prefix}-${String(customer.next_invoice_sequence).padStart(4, '0')}`;
-  customer.next_invoice_sequence += 1;
   return {
     id,
     object: 'invoice',
@@ -131,14 +136,14 @@ export function makeInvoice(customer: Customer, subscription: Subscription, reas
     customer_name: customer.name,
     description: null,
     due_date: null,
-    effective_at: now,
+    effective_at: null,
     hosted_invoice_url: null,
     invoice_pdf: null,
     lines: { object: 'list', data: lines, has_more: false, total_count: lines.length, url: `/v1/invoices/${id}/lines` },
     livemode: false,
     metadata: {},
     next_payment_attempt: null,
-    number,
+    number: null,
     parent: {
       type: 'subscription_details',
       quote_details: null,
@@ -146,12 +151,22 @@ export function makeInvoice(customer: Customer, subscription: Subscription, reas
     },
     period_end: end,
     period_start: start,
-    status: 'open',
-    status_transitions: { finalized_at: now, marked_uncollectible_at: null, paid_at: null, voided_at: null },
+    status: 'draft',
+    status_transitions: { finalized_at: null, marked_uncollectible_at: null, paid_at: null, voided_at: null },
     subtotal: total,
     total,
     webhooks_delivered_at: null,
   };
+}
+
+/** Draft → open: numbered from the customer's sequence, as Stripe numbers at finalization. */
+export function finalize(invoice: Invoice, customer: Customer): void {
+  const now = nowSeconds();
+  invoice.number = `${customer.invoice_prefix}-${String(customer.next_invoice_sequence).padStart(4, '0')}`;
+  customer.next_invoice_sequence += 1;
+  invoice.status = 'open';
+  invoice.effective_at = now;
+  invoice.status_transitions.finalized_at = now;
 }
 
 export function markPaid(invoice: Invoice): void {

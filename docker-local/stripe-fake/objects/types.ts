@@ -81,7 +81,10 @@ export interface Price {
   unit_amount_decimal: string;
 }
 
-/** The legacy Plan object Stripe still embeds in each subscription item. */
+/**
+ * The legacy Plan view of an item's price. The stripe-node 23 types (API 2026-10-28) still list
+ * it as a field every subscription item returns, so the fake keeps it; the app reads `price`.
+ */
 export interface Plan {
   id: string;
   object: 'plan';
@@ -138,6 +141,10 @@ export type SubscriptionStatus =
   | 'unpaid'
   | 'paused';
 
+/**
+ * Since API version 2025-03-31 the billing period is on each item only (`items.data[].
+ * current_period_start/end`); the subscription itself no longer carries it, so neither does this.
+ */
 export interface Subscription {
   id: string;
   object: 'subscription';
@@ -150,12 +157,6 @@ export interface Subscription {
   collection_method: 'charge_automatically';
   created: number;
   currency: string;
-  /**
-   * Older API versions carried the period on the subscription; newer ones (the SDK's default)
-   * only on each item. Both are kept in step; read `items.data[0].current_period_end`.
-   */
-  current_period_end: number;
-  current_period_start: number;
   customer: string;
   days_until_due: null;
   default_payment_method: string | null;
@@ -171,6 +172,8 @@ export interface Subscription {
   schedule: null;
   start_date: number;
   status: SubscriptionStatus;
+  /** Present while paused: why and since when (Stripe adds it with the pause endpoint). */
+  status_details?: { paused: { subscription: { type: 'pause_requested' }; transitioned_at: number; type: 'subscription' } };
   test_clock: null;
   trial_end: number | null;
   trial_start: number | null;
@@ -226,7 +229,8 @@ export interface Invoice {
   livemode: false;
   metadata: Metadata;
   next_payment_attempt: number | null;
-  number: string;
+  /** Assigned when the invoice is finalized; a draft has none. */
+  number: string | null;
   parent: {
     type: 'subscription_details';
     quote_details: null;

@@ -1,6 +1,7 @@
 // The hosted test customer portal: the customer's subscriptions with plan change, cancel at
 // period end (and undo), paying an open invoice, and the invoice history.
 import type { Customer, Invoice, PortalSession, Price, Product, Subscription } from '../objects/types';
+import { periodOf } from '../objects/billing';
 import { day, escapeHtml, intervalLabel, money, page } from './html';
 import { DECLINE_LABEL } from './checkout-page';
 
@@ -33,9 +34,10 @@ function statusLine(sub: Subscription, invoices: Invoice[]): string {
     const open = invoices.find((i) => i.id === sub.latest_invoice && i.status === 'open');
     return `<div class="error" role="status">Payment failed${open ? `: ${escapeHtml(money(open.amount_remaining, open.currency))} is due` : ''}.</div>`;
   }
-  if (sub.cancel_at_period_end) return `<p>Ends on ${day(sub.current_period_end)}.</p>`;
+  if (sub.status === 'paused') return '<p>Paused: nothing is billed until it is resumed.</p>';
+  if (sub.cancel_at_period_end) return `<p>Ends on ${day(periodOf(sub).end)}.</p>`;
   if (sub.status === 'trialing' && sub.trial_end) return `<p>Trial ends on ${day(sub.trial_end)}.</p>`;
-  return `<p>Renews on ${day(sub.current_period_end)}.</p>`;
+  return `<p>Renews on ${day(periodOf(sub).end)}.</p>`;
 }
 
 function subscriptionCard(view: PortalView, sub: Subscription): string {
@@ -72,7 +74,7 @@ function subscriptionCard(view: PortalView, sub: Subscription): string {
 function invoiceTable(invoices: Invoice[]): string {
   if (invoices.length === 0) return '';
   const rows = invoices
-    .map((i) => `<tr><td>${escapeHtml(i.number)}</td><td>${day(i.created)}</td><td>${escapeHtml(i.status)}</td>
+    .map((i) => `<tr><td>${escapeHtml(i.number ?? 'draft')}</td><td>${day(i.created)}</td><td>${escapeHtml(i.status)}</td>
       <td class="num">${escapeHtml(money(i.total, i.currency))}</td></tr>`)
     .join('');
   return `<section class="card"><h2>Invoices</h2><table>
@@ -90,7 +92,7 @@ export function portalPage(view: PortalView): string {
   const none = live.length === 0 ? '<div class="card"><p>No current subscription.</p></div>' : '';
   const endedList = ended.length
     ? `<section class="card"><h2>Ended</h2><ul>${ended
-        .map((s) => `<li>${escapeHtml(priceLabel(s.items.data[0].price, view.products))} — ended ${day(s.ended_at ?? s.current_period_end)}</li>`)
+        .map((s) => `<li>${escapeHtml(priceLabel(s.items.data[0].price, view.products))} — ended ${day(s.ended_at ?? periodOf(s).end)}</li>`)
         .join('')}</ul></section>`
     : '';
   return page('Billing — test portal', `<h1>Billing</h1>

@@ -2,13 +2,16 @@
 import { http } from 'msw';
 import type { FakeContext } from '../context';
 import { api } from '../http/api';
+import { EXPANDABLE, type Shape } from '../http/shape';
 import { StripeApiError, noSuch } from '../http/errors';
 import type { PortalSession } from '../objects/types';
 import { newId, nowSeconds } from '../state/ids';
 
+const CREATE: Shape = { ...EXPANDABLE, customer: 'scalar', return_url: 'scalar', locale: 'scalar', flow_data: 'hash' };
+
 export function billingPortalRoutes(ctx: FakeContext) {
   return [
-    http.post('/v1/billing_portal/sessions', api(ctx, ({ params }) => {
+    http.post('/v1/billing_portal/sessions', api(ctx, CREATE, ({ params }) => {
       const customer = params.requiredString('customer');
       if (!ctx.store.customers.has(customer)) throw noSuch('cus', customer, 'customer');
       const returnUrl = params.nullableString('return_url') ?? null;

@@ -5,6 +5,7 @@ import type { FakeContext } from '../context';
 import { findOpenSession } from '../billing/checkout';
 import { assertUsablePrice } from '../billing/lifecycle';
 import { api } from '../http/api';
+import { EXPANDABLE, PAGINATED, type Shape } from '../http/shape';
 import { StripeApiError, missingParam, noSuch } from '../http/errors';
 import { listOf, paginate } from '../http/list';
 import type { Params } from '../http/params';
@@ -41,10 +42,29 @@ function lineItems(ctx: FakeContext, params: Params): CheckoutLineItem[] {
   });
 }
 
+// `price_data` is taken only to be refused with a clearer message than "unknown".
+const CREATE: Shape = {
+  ...EXPANDABLE,
+  mode: 'scalar',
+  ui_mode: 'scalar',
+  success_url: 'scalar',
+  cancel_url: 'scalar',
+  customer: 'scalar',
+  customer_email: 'scalar',
+  client_reference_id: 'scalar',
+  line_items: [{ price: 'scalar', quantity: 'scalar', price_data: 'hash' }],
+  subscription_data: { metadata: 'hash', trial_period_days: 'scalar' },
+  expires_at: 'scalar',
+  allow_promotion_codes: 'scalar',
+  locale: 'scalar',
+  metadata: 'hash',
+};
+const LIST: Shape = { ...PAGINATED, customer: 'scalar', subscription: 'scalar', status: 'scalar' };
+
 export function checkoutSessionRoutes(ctx: FakeContext) {
   const find = (id: string): CheckoutSession => findOpenSession(ctx, id);
   return [
-    http.post('/v1/checkout/sessions', api(ctx, ({ params }) => {
+    http.post('/v1/checkout/sessions', api(ctx, CREATE, ({ params }) => {
       const mode = params.requiredOneOf('mode', ['payment', 'setup', 'subscription'] as const);
       if (mode !== 'subscription') {
         throw new StripeApiError(400, `This local fake supports mode=subscription only (got ${mode}).`, { param: 'mode' });
@@ -124,7 +144,7 @@ export function checkoutSessionRoutes(ctx: FakeContext) {
       ctx.store.track(id);
       return session;
     })),
-    http.get('/v1/checkout/sessions', api(ctx, ({ params }) => {
+    http.get('/v1/checkout/sessions', api(ctx, LIST, ({ params }) => {
       const customer = params.string('customer');
       const subscription = params.string('subscription');
       const status = params.oneOf('status', ['open', 'complete', 'expired'] as const);
@@ -138,14 +158,14 @@ export function checkoutSessionRoutes(ctx: FakeContext) {
         );
       return paginate(newestFirst(ctx.store, all), params, '/v1/checkout/sessions');
     })),
-    http.get('/v1/checkout/sessions/:id', api(ctx, ({ path }) => find(path.id))),
-    http.get('/v1/checkout/sessions/:id/line_items', api(ctx, ({ path, params }) => {
+    http.get('/v1/checkout/sessions/:id', api(ctx, EXPANDABLE, ({ path }) => find(path.id))),
+    http.get('/v1/checkout/sessions/:id/line_items', api(ctx, PAGINATED, ({ path, params }) => {
       find(path.id);
       const items = ctx.store.checkoutExtras.get(path.id)?.lineItems ?? [];
       const url = `/v1/checkout/sessions/${path.id}/line_items`;
       return params.has('limit') || params.has('starting_after') ? paginate(items, params, url) : listOf(items, url);
     })),
-    http.post('/v1/checkout/sessions/:id/expire', api(ctx, ({ path }) => {
+    http.post('/v1/checkout/sessions/:id/expire', api(ctx, EXPANDABLE, ({ path }) => {
       const session = find(path.id);
       if (session.status !== 'open') {
         throw new StripeApiError(400, `Only Checkout Sessions with a status of \`open\` can be expired. This session has a status of \`${session.status}\`.`);

@@ -2,6 +2,7 @@
 import { http } from 'msw';
 import type { FakeContext } from '../context';
 import { api } from '../http/api';
+import { EXPANDABLE, PAGINATED, type Shape } from '../http/shape';
 import { StripeApiError, noSuch } from '../http/errors';
 import { paginate } from '../http/list';
 import type { Params } from '../http/params';
@@ -19,6 +20,10 @@ function checkEmail(params: Params): string | null | undefined {
   return email;
 }
 
+const FIELDS: Shape = { ...EXPANDABLE, email: 'scalar', name: 'scalar', description: 'scalar', phone: 'scalar', metadata: 'hash' };
+const UPDATE: Shape = { ...FIELDS, invoice_settings: { default_payment_method: 'scalar' } };
+const LIST: Shape = { ...PAGINATED, email: 'scalar' };
+
 export function customerRoutes(ctx: FakeContext) {
   const find = (id: string): Customer => {
     const customer = ctx.store.customers.get(id);
@@ -26,7 +31,7 @@ export function customerRoutes(ctx: FakeContext) {
     return customer;
   };
   return [
-    http.post('/v1/customers', api(ctx, ({ params }) => {
+    http.post('/v1/customers', api(ctx, FIELDS, ({ params }) => {
       const customer = makeCustomer({
         email: checkEmail(params) ?? null,
         name: params.nullableString('name') ?? null,
@@ -39,13 +44,13 @@ export function customerRoutes(ctx: FakeContext) {
       ctx.events.emit('customer.created', customer);
       return customer;
     })),
-    http.get('/v1/customers', api(ctx, ({ params }) => {
+    http.get('/v1/customers', api(ctx, LIST, ({ params }) => {
       const email = params.string('email');
       const all = [...ctx.store.customers.values()].filter((c) => email === undefined || c.email === email);
       return paginate(newestFirst(ctx.store, all), params, '/v1/customers');
     })),
-    http.get('/v1/customers/:id', api(ctx, ({ path }) => find(path.id))),
-    http.post('/v1/customers/:id', api(ctx, ({ path, params }) => {
+    http.get('/v1/customers/:id', api(ctx, EXPANDABLE, ({ path }) => find(path.id))),
+    http.post('/v1/customers/:id', api(ctx, UPDATE, ({ path, params }) => {
       const customer = find(path.id);
       const before = structuredClone(customer);
       const email = checkEmail(params);
@@ -65,7 +70,7 @@ export function customerRoutes(ctx: FakeContext) {
       if (Object.keys(previous).length) ctx.events.emit('customer.updated', customer, previous);
       return customer;
     })),
-    http.delete('/v1/customers/:id', api(ctx, ({ path }) => {
+    http.delete('/v1/customers/:id', api(ctx, {}, ({ path }) => {
       const customer = find(path.id);
       // Deleting a customer cancels its subscriptions at once, as on Stripe.
       for (const sub of ctx.store.subscriptions.values()) {

@@ -1,5 +1,5 @@
 // Test-only controls under /_fake/ (never part of the Stripe API; the app must not call them):
-// health, reset, the sent-event log, and clock-like moves of a subscription.
+// health, reset, the sent-event log, refused requests, and clock-like moves of a subscription.
 import { http, HttpResponse, type HttpResponseResolver } from 'msw';
 import type { FakeContext } from '../context';
 import { advancePeriod, failRenewal, payOpenInvoice } from '../billing/lifecycle';
@@ -64,6 +64,12 @@ export function fakeHookRoutes(ctx: FakeContext, options: FakeHookOptions) {
       const type = url.searchParams.get('type');
       const data = ctx.events.list().filter((r) => !type || r.event.type === type).map(summary);
       return { object: 'list', data, has_more: false, url: '/_fake/events' };
+    })),
+    // Where an API error's request_log_url points (Stripe points at its Dashboard's request log).
+    http.get('/_fake/requests/:id', hook(ctx, (path) => {
+      const failure = ctx.store.failedRequests.get(path.id);
+      if (!failure) throw new StripeApiError(404, `No refused request '${path.id}' is remembered (only the latest few hundred are kept, and reset forgets them).`, { code: 'resource_missing' });
+      return { id: path.id, object: 'request_log', ...failure };
     })),
     http.post('/_fake/events/:id/resend', hook(ctx, (path) => {
       const record = ctx.events.resend(path.id);

@@ -3,6 +3,7 @@
 import { http } from 'msw';
 import type { FakeContext } from '../context';
 import { api } from '../http/api';
+import { EXPANDABLE, PAGINATED, type Shape } from '../http/shape';
 import { StripeApiError, missingParam, noSuch } from '../http/errors';
 import { paginate } from '../http/list';
 import { makePrice, makeProduct } from '../objects/catalog';
@@ -12,6 +13,21 @@ import { newestFirst } from './newest-first';
 
 const INTERVALS: readonly Interval[] = ['day', 'week', 'month', 'year'];
 
+// Amount, currency, interval and product are not in UPDATE: Stripe refuses them on an existing
+// price (a new price is made instead), with the same "unknown parameter" answer.
+const UPDATE: Shape = { ...EXPANDABLE, active: 'scalar', nickname: 'scalar', lookup_key: 'scalar', metadata: 'hash' };
+const CREATE: Shape = {
+  ...UPDATE,
+  currency: 'scalar',
+  unit_amount: 'scalar',
+  unit_amount_decimal: 'scalar',
+  product: 'scalar',
+  product_data: { name: 'scalar', active: 'scalar', metadata: 'hash', statement_descriptor: 'scalar', unit_label: 'scalar' },
+  recurring: { interval: 'scalar', interval_count: 'scalar' },
+  transfer_lookup_key: 'scalar',
+};
+const LIST: Shape = { ...PAGINATED, active: 'scalar', product: 'scalar', currency: 'scalar', type: 'scalar', lookup_keys: 'list' };
+
 export function priceRoutes(ctx: FakeContext) {
   const find = (id: string): Price => {
     const price = ctx.store.prices.get(id);
@@ -19,7 +35,7 @@ export function priceRoutes(ctx: FakeContext) {
     return price;
   };
   return [
-    http.post('/v1/prices', api(ctx, ({ params }) => {
+    http.post('/v1/prices', api(ctx, CREATE, ({ params }) => {
       const currency = params.requiredString('currency').toLowerCase();
       if (!/^[a-z]{3}$/.test(currency)) throw new StripeApiError(400, `Invalid currency: ${currency}`, { param: 'currency' });
       let unitAmount = params.int('unit_amount', 0, 99_999_999);
@@ -84,7 +100,7 @@ export function priceRoutes(ctx: FakeContext) {
       ctx.events.emit('price.created', price);
       return price;
     })),
-    http.get('/v1/prices', api(ctx, ({ params }) => {
+    http.get('/v1/prices', api(ctx, LIST, ({ params }) => {
       const active = params.bool('active');
       const product = params.string('product');
       const currency = params.string('currency');
@@ -100,14 +116,9 @@ export function priceRoutes(ctx: FakeContext) {
       );
       return paginate(newestFirst(ctx.store, all), params, '/v1/prices');
     })),
-    http.get('/v1/prices/:id', api(ctx, ({ path }) => find(path.id))),
-    http.post('/v1/prices/:id', api(ctx, ({ path, params }) => {
+    http.get('/v1/prices/:id', api(ctx, EXPANDABLE, ({ path }) => find(path.id))),
+    http.post('/v1/prices/:id', api(ctx, UPDATE, ({ path, params }) => {
       const price = find(path.id);
-      for (const fixed of ['unit_amount', 'currency', 'recurring', 'product']) {
-        if (params.has(fixed)) {
-          throw new StripeApiError(400, `Received unknown parameter: ${fixed}. Prices cannot change their amount, currency, interval or product; create a new price instead.`, { param: fixed });
-        }
-      }
       const before = structuredClone(price);
       const active = params.bool('active');
       if (active !== undefined) price.active = active;

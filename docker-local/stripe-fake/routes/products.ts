@@ -2,6 +2,7 @@
 import { http } from 'msw';
 import type { FakeContext } from '../context';
 import { api } from '../http/api';
+import { EXPANDABLE, PAGINATED, type Shape } from '../http/shape';
 import { StripeApiError, noSuch } from '../http/errors';
 import { paginate } from '../http/list';
 import type { Params } from '../http/params';
@@ -14,6 +15,18 @@ function features(params: Params): { name: string }[] | undefined {
   return params.objectArray('marketing_features')?.map((f) => ({ name: f.requiredString('name') }));
 }
 
+const FIELDS: Shape = {
+  ...EXPANDABLE,
+  name: 'scalar',
+  description: 'scalar',
+  active: 'scalar',
+  metadata: 'hash',
+  marketing_features: [{ name: 'scalar' }],
+};
+const CREATE: Shape = { ...FIELDS, id: 'scalar', statement_descriptor: 'scalar', unit_label: 'scalar', url: 'scalar' };
+const UPDATE: Shape = { ...FIELDS, default_price: 'scalar' };
+const LIST: Shape = { ...PAGINATED, active: 'scalar', ids: 'list' };
+
 export function productRoutes(ctx: FakeContext) {
   const find = (id: string): Product => {
     const product = ctx.store.products.get(id);
@@ -21,7 +34,7 @@ export function productRoutes(ctx: FakeContext) {
     return product;
   };
   return [
-    http.post('/v1/products', api(ctx, ({ params }) => {
+    http.post('/v1/products', api(ctx, CREATE, ({ params }) => {
       const id = params.string('id');
       if (id !== undefined && ctx.store.products.has(id)) {
         throw new StripeApiError(400, `Product already exists.`, { param: 'id', code: 'resource_already_exists' });
@@ -42,7 +55,7 @@ export function productRoutes(ctx: FakeContext) {
       ctx.events.emit('product.created', product);
       return product;
     })),
-    http.get('/v1/products', api(ctx, ({ params }) => {
+    http.get('/v1/products', api(ctx, LIST, ({ params }) => {
       const active = params.bool('active');
       const ids = params.stringArray('ids');
       const all = [...ctx.store.products.values()].filter(
@@ -50,8 +63,8 @@ export function productRoutes(ctx: FakeContext) {
       );
       return paginate(newestFirst(ctx.store, all), params, '/v1/products');
     })),
-    http.get('/v1/products/:id', api(ctx, ({ path }) => find(path.id))),
-    http.post('/v1/products/:id', api(ctx, ({ path, params }) => {
+    http.get('/v1/products/:id', api(ctx, EXPANDABLE, ({ path }) => find(path.id))),
+    http.post('/v1/products/:id', api(ctx, UPDATE, ({ path, params }) => {
       const product = find(path.id);
       const before = structuredClone(product);
       const name = params.string('name');
@@ -81,7 +94,7 @@ export function productRoutes(ctx: FakeContext) {
       }
       return product;
     })),
-    http.delete('/v1/products/:id', api(ctx, ({ path }) => {
+    http.delete('/v1/products/:id', api(ctx, {}, ({ path }) => {
       const product = find(path.id);
       if ([...ctx.store.prices.values()].some((p) => p.product === product.id)) {
         throw new StripeApiError(400, 'This product cannot be deleted because it has one or more user-created prices.');

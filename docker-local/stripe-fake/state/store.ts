@@ -18,6 +18,17 @@ export interface CheckoutExtras {
   trialPeriodDays: number | null;
 }
 
+/** A refused API request, kept so the error's `request_log_url` leads somewhere. */
+export interface FailedRequest {
+  method: string;
+  path: string;
+  status: number;
+  body: object;
+}
+
+/** Enough for any test run to look its failures up; older ones are forgotten. */
+const FAILED_REQUESTS_KEPT = 500;
+
 export interface IdempotentReply {
   fingerprint: string;
   status: number;
@@ -35,6 +46,7 @@ export class Store {
   portalSessions = new Map<string, PortalSession>();
   idempotency = new Map<string, IdempotentReply>();
   idempotencyInFlight = new Set<string>();
+  failedRequests = new Map<string, FailedRequest>();
   /** Insertion order, so lists are newest-first even within one second. */
   private order = new Map<string, number>();
   private sequence = 0;
@@ -45,6 +57,13 @@ export class Store {
 
   rank(id: string): number {
     return this.order.get(id) ?? 0;
+  }
+
+  logFailure(requestId: string, failure: FailedRequest): void {
+    this.failedRequests.set(requestId, failure);
+    if (this.failedRequests.size > FAILED_REQUESTS_KEPT) {
+      this.failedRequests.delete(this.failedRequests.keys().next().value as string);
+    }
   }
 
   /** Finds any stored API object by id, for `expand[]`. */
@@ -67,6 +86,7 @@ export class Store {
     this.portalSessions.clear();
     this.idempotency.clear();
     this.idempotencyInFlight.clear();
+    this.failedRequests.clear();
     this.order.clear();
     this.sequence = 0;
   }

@@ -37,15 +37,29 @@ export class Dispatcher {
   private timers = new Set<NodeJS.Timeout>();
   /** Bumped by reset/close so deliveries queued before it are dropped. */
   private generation = 0;
+  /** `created` of the newest event so far (see nextCreated). */
+  private lastCreated = 0;
 
   constructor(private readonly options: DispatcherOptions) {}
+
+  /**
+   * Each event gets a later second than the one before it. A flow emits several events at once
+   * (created, invoice events, updated), and a receiver orders a subscription's events by `created`:
+   * within one second it could not tell which came last. A burst therefore runs a few seconds
+   * ahead of the wall clock, as if the flow had taken that long; it is never behind it. Kept across
+   * reset, so events after a reset never look older than those before it.
+   */
+  private nextCreated(): number {
+    this.lastCreated = Math.max(nowSeconds(), this.lastCreated + 1);
+    return this.lastCreated;
+  }
 
   emit(type: string, object: object, previousAttributes?: Record<string, unknown>, requestId: string | null = null): StripeEvent {
     const event: StripeEvent = {
       id: newId('evt'),
       object: 'event',
       api_version: this.options.apiVersion,
-      created: nowSeconds(),
+      created: this.nextCreated(),
       // A snapshot: later changes to the object must not alter an event already sent.
       data: previousAttributes
         ? { object: structuredClone(object), previous_attributes: structuredClone(previousAttributes) }

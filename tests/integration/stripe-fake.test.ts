@@ -1,7 +1,10 @@
 // The local Stripe fake (docker-local/stripe-fake) driven through the official stripe SDK, the
-// way the app uses it. Needs no database: the fake runs in-process on a free loopback port and a
-// small HTTP receiver stands in for the app's webhook endpoint. Reference for the expected wire
-// behaviour: the stripe-node 23 sources in node_modules/stripe (resources/*.js, Webhooks.js).
+// way the app uses it. Most tests run a fake of their own in this process on a free loopback port,
+// with a small HTTP receiver standing in for the app's webhook endpoint; the last block talks to
+// the fake the test services started (docker-local/services.sh) with the app's own client. The
+// entry-point tests start server.ts as a process, which is why this file is an integration test.
+// Reference for the wire behaviour: the stripe-node 23 sources in node_modules/stripe
+// (resources/*.js, Error.js, Webhooks.js) and Stripe's API reference (errors, events).
 import { spawn } from 'node:child_process';
 import { once } from 'node:events';
 import http from 'node:http';
@@ -12,9 +15,13 @@ import path from 'node:path';
 import Stripe from 'stripe';
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
 import { startStripeFake, type RunningFake } from '../../docker-local/stripe-fake/app';
-import { readConfig } from '../../docker-local/stripe-fake/config';
+import { ConfigError, readConfig } from '../../docker-local/stripe-fake/config';
+import { getEnv } from '@/server/env';
+import { getStripe, providerMessage, stripeConfigFromEnv } from '@/server/billing/stripe';
 
 const SECRET = 'whsec_unit_test_secret_0123456789';
+/** The one key this file's own fake accepts (the services' fake accepts STRIPE_SECRET_KEY). */
+const KEY = 'sk_test_fake_suite_key_0123456789';
 const DAY = 86_400;
 
 interface Received {
@@ -66,13 +73,17 @@ let fake: RunningFake;
 let receiver: Receiver;
 let stripe: Stripe;
 
+function client(key: string): Stripe {
+  return new Stripe(key, { host: '127.0.0.1', port: fake.port, protocol: 'http' });
+}
+
 beforeAll(async () => {
   receiver = new Receiver();
   const webhookUrl = await receiver.start();
-  const config = readConfig({ STRIPE_WEBHOOK_SECRET: SECRET, STRIPE_FAKE_PORT: '0', STRIPE_FAKE_WEBHOOK_URL: webhookUrl });
+  const config = readConfig({ STRIPE_SECRET_KEY: KEY, STRIPE_WEBHOOK_SECRET: SECRET, STRIPE_FAKE_PORT: '0', STRIPE_FAKE_WEBHOOK_URL: webhookUrl });
   // Short retry waits keep the retry test fast; the schedule itself is what is under test.
   fake = await startStripeFake({ ...config, retryDelaysMs: [50, 100] }, () => undefined);
-  stripe = new Stripe('sk_test_fake', { host: '127.0.0.1', port: fake.port, protocol: 'http' });
+  stripe = client(KEY);
 });
 
 afterAll(async () => {
@@ -87,6 +98,25 @@ beforeEach(async () => {
   receiver.failNext = 0;
 });
 
+/** Waits until every delivery (retries included) has settled. */
+async function settle(): Promise<void> {
+  const res = await fetch(`${fake.url}/_fake/events?wait=true`);
+  expect(res.status).toBe(200);
+}
+
+/** The events received so far, verified, in arrival order. */
+function receivedEvents(): Stripe.Event[] {
+  return receiver.received.map((r) => verified(r));
+}
+
+/** Event types with the status of the subscription they carry, e.g. `customer.subscription.updated:active`. */
+function trace(events: Stripe.Event[]): string[] {
+  return events.map((e) => {
+    const object = e.data.object as { object?: string; status?: string };
+    return object.object === 'subscription' || object.object === 'invoice' ? `${e.type}:${object.status}` : e.type;
+  });
+}
+
 async function catalog() {
   const product = await stripe.products.create({ name: 'Crew plan', metadata: { plan_code: 'crew' } });
   const crew = await stripe.prices.create({ product: product.id, currency: 'eur', unit_amount: 4900, recurring: { interval: 'month' } });
@@ -99,8 +129,14 @@ async function catalog() {
   return { product, crew, fleet };
 }
 
-/** Opens a checkout for a new customer and pays it on the hosted page, as a browser would. */
+/**
+ * Opens a checkout for a new customer and pays it on the hosted page, as a browser would. Returns
+ * the events this sent (from customer.created on) and clears the receiver, so a test sees only its
+ * own later events.
+ */
 async function subscribe(priceId: string, email = 'ops@installer-demo.example') {
+  await settle();
+  receiver.received = [];
   const customer = await stripe.customers.create({ email, metadata: { company_id: '42' } });
   const session = await stripe.checkout.sessions.create({
     mode: 'subscription',
@@ -117,7 +153,10 @@ async function subscribe(priceId: string, email = 'ops@installer-demo.example') 
   expect(paid.headers.get('location')).toBe(`http://127.0.0.1:3999/billing/return?session_id=${session.id}`);
   const done = await stripe.checkout.sessions.retrieve(session.id);
   const subscription = await stripe.subscriptions.retrieve(done.subscription as string);
-  return { customer, session, subscription };
+  await settle();
+  const events = receivedEvents();
+  receiver.received = [];
+  return { customer, session, subscription, events };
 }
 
 function verified(r: Received, secret = SECRET): Stripe.Event {
@@ -212,6 +251,90 @@ describe('SDK round trips', () => {
   });
 });
 
+describe('refusals the app must not be able to miss', () => {
+  it('an unknown parameter is a 400 parameter_unknown that the SDK raises as StripeInvalidRequestError, and nothing is created', async () => {
+    const error = (await stripe.customers
+      .create({ email: 'teal@demo.example', colour: 'teal' } as Stripe.CustomerCreateParams)
+      .catch((e: unknown) => e)) as Stripe.errors.StripeInvalidRequestError;
+    expect(error).toBeInstanceOf(Stripe.errors.StripeInvalidRequestError);
+    expect(error).toMatchObject({
+      type: 'StripeInvalidRequestError',
+      statusCode: 400,
+      code: 'parameter_unknown',
+      param: 'colour',
+      message: 'Received unknown parameter: colour',
+      doc_url: 'https://stripe.com/docs/error-codes/parameter-unknown',
+    });
+    expect(error.requestId).toMatch(/^req_/);
+    // The body is Stripe's error object: type, code, message, param, doc_url, request_log_url.
+    expect(error.raw).toMatchObject({ type: 'invalid_request_error', code: 'parameter_unknown', param: 'colour' });
+    expect(error.request_log_url).toBe(`${fake.url}/_fake/requests/${error.requestId}`);
+    const logged = (await (await fetch(error.request_log_url as string)).json()) as { method: string; path: string; status: number; body: unknown };
+    expect(logged).toMatchObject({ method: 'POST', path: '/v1/customers', status: 400, body: { error: { code: 'parameter_unknown', param: 'colour' } } });
+    // Refused before anything happened: no customer, no event.
+    expect((await stripe.customers.list()).data).toHaveLength(0);
+    await settle();
+    expect(receiver.types()).toEqual([]);
+  });
+
+  it('names nested unknown parameters the way Stripe does, on GET query strings too, and refuses retired ones', async () => {
+    const { crew } = await catalog();
+    const nested = await stripe.checkout.sessions
+      .create({
+        mode: 'subscription',
+        line_items: [{ price: crew.id, quantiy: 2 } as Stripe.Checkout.SessionCreateParams.LineItem],
+        success_url: 'http://127.0.0.1:3999/ok',
+      })
+      .catch((e: unknown) => e);
+    expect(nested).toMatchObject({ statusCode: 400, code: 'parameter_unknown', param: 'line_items[0][quantiy]', message: 'Received unknown parameter: line_items[0][quantiy]' });
+    const deeper = await stripe.checkout.sessions
+      .create({
+        mode: 'subscription',
+        line_items: [{ price: crew.id }],
+        success_url: 'http://127.0.0.1:3999/ok',
+        subscription_data: { trial_days: 14 } as Stripe.Checkout.SessionCreateParams.SubscriptionData,
+      })
+      .catch((e: unknown) => e);
+    expect(deeper).toMatchObject({ statusCode: 400, param: 'subscription_data[trial_days]' });
+    expect((await stripe.checkout.sessions.list()).data).toHaveLength(0);
+
+    const query = await stripe.customers.list({ emial: 'a@demo.example' } as Stripe.CustomerListParams).catch((e: unknown) => e);
+    expect(query).toMatchObject({ type: 'StripeInvalidRequestError', statusCode: 400, code: 'parameter_unknown', param: 'emial' });
+
+    // A price's amount cannot change: Stripe does not take the parameter on update at all.
+    const amount = await stripe.prices.update(crew.id, { unit_amount: 1 } as Stripe.PriceUpdateParams).catch((e: unknown) => e);
+    expect(amount).toMatchObject({ statusCode: 400, code: 'parameter_unknown', param: 'unit_amount' });
+    expect((await stripe.prices.retrieve(crew.id)).unit_amount).toBe(4900);
+  });
+
+  it('a key other than the configured one is a 401 that the SDK raises as StripeAuthenticationError, with the key masked', async () => {
+    const other = await client('sk_test_someone_elses_key_9xyz').customers.list().catch((e: unknown) => e) as Stripe.errors.StripeAuthenticationError;
+    expect(other).toBeInstanceOf(Stripe.errors.StripeAuthenticationError);
+    expect(other).toMatchObject({ type: 'StripeAuthenticationError', statusCode: 401 });
+    // Stripe's body for a refused key: an invalid_request_error (the 401 makes it an authentication
+    // error in the SDK), no code, no request log, only the first 8 and last 4 characters shown.
+    expect(other.message).toBe(`Invalid API Key provided: sk_test_${'*'.repeat(18)}9xyz`);
+    expect(other.raw).toMatchObject({ type: 'invalid_request_error' });
+    expect(other.code).toBeUndefined();
+    expect(other.request_log_url).toBeUndefined();
+    expect(other.message).not.toContain('someone_elses');
+
+    const live = await client('sk_live_the_wrong_mode_key_1').customers.create({ email: 'x@demo.example' }).catch((e: unknown) => e);
+    expect(live).toBeInstanceOf(Stripe.errors.StripeAuthenticationError);
+    expect((await stripe.customers.list()).data).toHaveLength(0);
+
+    const bare = await fetch(`${fake.url}/v1/customers`);
+    expect(bare.status).toBe(401);
+    expect(bare.headers.get('www-authenticate')).toBe('Bearer realm="Stripe"');
+    const body = (await bare.json()) as { error: { type: string; message: string } };
+    expect(body.error.type).toBe('invalid_request_error');
+    expect(body.error.message).toMatch(/^You did not provide an API key/);
+
+    // The configured key itself works.
+    expect((await stripe.customers.list()).object).toBe('list');
+  });
+});
+
 describe('checkout', () => {
   it('creates a session whose url opens the test checkout page', async () => {
     const { crew } = await catalog();
@@ -242,9 +365,9 @@ describe('checkout', () => {
     expect(bad).toMatchObject({ statusCode: 404, param: 'line_items[0][price]' });
   });
 
-  it('paying creates an active subscription, a paid invoice and signed webhooks, then redirects', async () => {
+  it('paying passes the subscription through incomplete to active, with the first invoice issued and paid in between', async () => {
     const { crew } = await catalog();
-    const { customer, session, subscription } = await subscribe(crew.id);
+    const { customer, session, subscription, events } = await subscribe(crew.id);
 
     const done = await stripe.checkout.sessions.retrieve(session.id, { expand: ['subscription', 'line_items'] });
     expect(done).toMatchObject({ status: 'complete', payment_status: 'paid', customer: customer.id, client_reference_id: 'company_42', url: null });
@@ -258,40 +381,74 @@ describe('checkout', () => {
     expect(item.price.id).toBe(crew.id);
     expect(item.current_period_end - item.current_period_start).toBe(30 * DAY);
     expect(Math.abs(item.current_period_end - (Date.now() / 1000 + 30 * DAY))).toBeLessThan(10);
-    expect((subscription as unknown as { current_period_end: number }).current_period_end).toBe(item.current_period_end);
+    // The current API keeps the period on the items only.
+    expect(subscription).not.toHaveProperty('current_period_end');
+    expect(subscription).not.toHaveProperty('current_period_start');
 
     const invoices = await stripe.invoices.list({ customer: customer.id });
     expect(invoices.data).toHaveLength(1);
     const invoice = invoices.data[0];
     expect(invoice.id).toMatch(/^in_/);
     expect(invoice).toMatchObject({ status: 'paid', amount_paid: 4900, amount_due: 4900, billing_reason: 'subscription_create' });
+    expect(invoice.number).toMatch(/^[A-Z0-9]{8}-0001$/);
     expect(invoice.parent?.subscription_details?.subscription).toBe(subscription.id);
     expect((await stripe.invoices.retrieve(invoice.id)).number).toBe(invoice.number);
     expect(subscription.latest_invoice).toBe(invoice.id);
 
-    await waitFor(() => receiver.types().includes('checkout.session.completed'), 'checkout webhook');
-    for (const r of receiver.received) {
-      const event = verified(r);
+    for (const event of events) {
       expect(event.id).toMatch(/^evt_/);
       expect(event).toMatchObject({ object: 'event', livemode: false, api_version: Stripe.API_VERSION });
     }
-    const types = receiver.types();
-    expect(types).toEqual(expect.arrayContaining(['checkout.session.completed', 'customer.subscription.created', 'invoice.paid']));
-    const completed = eventsOfType('checkout.session.completed')[0].data.object as Stripe.Checkout.Session;
+    // Stripe's sequence for a subscription Checkout: created while awaiting the first payment,
+    // the invoice drafted, finalized and paid, then the update to active, the session last.
+    expect(trace(events)).toEqual([
+      'customer.created',
+      'customer.subscription.created:incomplete',
+      'invoice.created:draft',
+      'invoice.finalized:open',
+      'invoice.paid:paid',
+      'invoice.payment_succeeded:paid',
+      'customer.subscription.updated:active',
+      'checkout.session.completed',
+    ]);
+    const activated = events[6];
+    expect(activated.data.previous_attributes).toEqual({ status: 'incomplete' });
+    const draft = events[2].data.object as Stripe.Invoice;
+    expect(draft).toMatchObject({ id: invoice.id, number: null, status_transitions: { finalized_at: null } });
+    expect((events[3].data.object as Stripe.Invoice).number).toBe(invoice.number);
+    const completed = events[7].data.object as Stripe.Checkout.Session;
     expect(completed).toMatchObject({ id: session.id, subscription: subscription.id, client_reference_id: 'company_42', metadata: { company_id: '42' } });
-    const created = eventsOfType('customer.subscription.created')[0].data.object as Stripe.Subscription;
+    const created = events[1].data.object as Stripe.Subscription;
     expect(created.items.data[0].price.id).toBe(crew.id);
+    expect(created.latest_invoice).toBe(invoice.id);
 
     const log = (await (await fetch(`${fake.url}/_fake/events?wait=true`)).json()) as { data: { type: string; delivery_status: string }[] };
     expect(log.data.filter((e) => e.type === 'invoice.paid').map((e) => e.delivery_status)).toEqual(['delivered']);
     // Retrieving the same event through the API gives the same object.
-    const viaApi = await stripe.events.retrieve(eventsOfType('invoice.paid')[0].id);
+    const viaApi = await stripe.events.retrieve(events[4].id);
     expect((viaApi.data.object as Stripe.Invoice).id).toBe(invoice.id);
   });
 
-  it('signatures verify only with the right secret and untouched body', async () => {
+  it('gives the events of a flow distinct `created` times in the order they were sent', async () => {
+    const startedAt = Math.floor(Date.now() / 1000);
     const { crew } = await catalog();
-    await subscribe(crew.id);
+    const { subscription, events } = await subscribe(crew.id);
+    await fetch(`${fake.url}/_fake/subscriptions/${subscription.id}/advance`, { method: 'POST' });
+    await settle();
+    const all = [...events, ...receivedEvents()];
+    expect(all.length).toBeGreaterThanOrEqual(12);
+    for (let i = 1; i < all.length; i++) expect(all[i].created, `${all[i].type} after ${all[i - 1].type}`).toBeGreaterThan(all[i - 1].created);
+    // Never behind the clock; ahead of it by at most one second per event of the burst.
+    const elapsed = Math.floor(Date.now() / 1000) - startedAt;
+    expect(all[0].created).toBeGreaterThanOrEqual(startedAt);
+    expect(all[all.length - 1].created - all[0].created).toBeLessThanOrEqual(all.length - 1 + elapsed);
+    // The API lists them newest first, which is now also descending `created`.
+    const listed = (await stripe.events.list({ limit: 100 })).data.map((e) => e.created);
+    expect(listed).toEqual([...listed].sort((a, b) => b - a));
+  });
+
+  it('signatures verify only with the right secret and untouched body', async () => {
+    await stripe.customers.create({ email: 'signed@demo.example' });
     const r = await waitFor(() => receiver.received[0], 'a webhook');
     expect(r.signature).toMatch(/^t=\d+,v1=[0-9a-f]{64}$/);
     expect(() => verified(r)).not.toThrow();
@@ -342,6 +499,18 @@ describe('checkout', () => {
       body: 'email=trial%40demo.example',
     });
     expect(paid.status).toBe(303);
+    await settle();
+    // Nothing to pay today: trialing from the start, with a paid zero invoice and no update.
+    expect(trace(receivedEvents()).slice(-7)).toEqual([
+      'customer.created',
+      'customer.subscription.created:trialing',
+      'invoice.created:draft',
+      'invoice.finalized:open',
+      'invoice.paid:paid',
+      'invoice.payment_succeeded:paid',
+      'checkout.session.completed',
+    ]);
+    receiver.received = [];
     const done = await stripe.checkout.sessions.retrieve(session.id, { expand: ['customer', 'subscription'] });
     expect(done.payment_status).toBe('no_payment_required');
     expect((done.customer as Stripe.Customer).email).toBe('trial@demo.example');
@@ -361,7 +530,16 @@ describe('checkout', () => {
     expect(after.status).toBe('active');
     expect((after.latest_invoice as Stripe.Invoice).amount_paid).toBe(4900);
 
-    await fetch(`${fake.url}/_fake/events?wait=true`);
+    await settle();
+    // The trial's end is the first renewal: active from the new period, then its invoice.
+    expect(trace(receivedEvents())).toEqual([
+      'customer.subscription.updated:active',
+      'invoice.created:draft',
+      'invoice.finalized:open',
+      'invoice.paid:paid',
+      'invoice.payment_succeeded:paid',
+    ]);
+    expect(receivedEvents()[0].data.previous_attributes).toMatchObject({ status: 'trialing' });
     const created = await stripe.events.list({ type: 'customer.subscription.*' });
     expect(created.data.map((e) => e.type)).toEqual(['customer.subscription.updated', 'customer.subscription.created']);
   });
@@ -424,19 +602,40 @@ describe('subscription changes', () => {
     expect(await stripe.subscriptions.cancel(subscription.id).catch((e: unknown) => e)).toMatchObject({ statusCode: 404 });
   });
 
-  it('an active period advances into a renewal with a new paid invoice', async () => {
+  it('an active period advances into a renewal: the period moves on, then its invoice is created, finalized and paid', async () => {
     const { crew } = await catalog();
     const { customer, subscription } = await subscribe(crew.id);
-    await fetch(`${fake.url}/_fake/subscriptions/${subscription.id}/advance`, { method: 'POST' });
+    const res = await fetch(`${fake.url}/_fake/subscriptions/${subscription.id}/advance`, { method: 'POST' });
+    expect(res.status).toBe(200);
     const renewed = await stripe.subscriptions.retrieve(subscription.id);
     expect(renewed.status).toBe('active');
-    expect(renewed.items.data[0].current_period_start).toBe(subscription.items.data[0].current_period_end);
+    const before = subscription.items.data[0];
+    expect(renewed.items.data[0].current_period_start).toBe(before.current_period_end);
+    expect(renewed.items.data[0].current_period_end).toBe(before.current_period_end + 30 * DAY);
     const invoices = await stripe.invoices.list({ subscription: subscription.id });
     expect(invoices.data.map((i) => [i.billing_reason, i.status])).toEqual([
       ['subscription_cycle', 'paid'],
       ['subscription_create', 'paid'],
     ]);
-    expect(invoices.data[0].customer).toBe(customer.id);
+    const renewal = invoices.data[0];
+    expect(renewal).toMatchObject({ customer: customer.id, amount_paid: 4900, period_start: before.current_period_end, period_end: before.current_period_end + 30 * DAY });
+    expect(renewal.number).toMatch(/-0002$/);
+    expect(renewed.latest_invoice).toBe(renewal.id);
+
+    await settle();
+    const events = receivedEvents();
+    expect(trace(events)).toEqual([
+      'customer.subscription.updated:active',
+      'invoice.created:draft',
+      'invoice.finalized:open',
+      'invoice.paid:paid',
+      'invoice.payment_succeeded:paid',
+    ]);
+    // The update names what moved: the items (their period) and the latest invoice.
+    const previous = events[0].data.previous_attributes as { items: Stripe.ApiList<Stripe.SubscriptionItem>; latest_invoice: string };
+    expect(previous.items.data[0].current_period_end).toBe(before.current_period_end);
+    expect(previous.latest_invoice).toBe(subscription.latest_invoice);
+    expect(events.slice(1).every((e) => (e.data.object as Stripe.Invoice).id === renewal.id)).toBe(true);
   });
 
   it('a failed renewal payment makes it past_due with invoice.payment_failed, and recovery makes it active', async () => {
@@ -451,22 +650,86 @@ describe('subscription changes', () => {
     expect(pastDue.status).toBe('past_due');
     const open = pastDue.latest_invoice as Stripe.Invoice;
     expect(open).toMatchObject({ status: 'open', attempt_count: 1, amount_paid: 0, amount_remaining: 4900 });
-    await waitFor(() => receiver.received.length >= 2 && receiver.types(), 'failure webhooks');
-    expect(receiver.types()).toEqual(['invoice.payment_failed', 'customer.subscription.updated']);
-    expect(eventsOfType('customer.subscription.updated')[0].data.previous_attributes).toMatchObject({ status: 'active' });
+    await settle();
+    // The new period starts and its invoice is issued; the charge fails; then past_due.
+    expect(trace(receivedEvents())).toEqual([
+      'customer.subscription.updated:active',
+      'invoice.created:draft',
+      'invoice.finalized:open',
+      'invoice.payment_failed:open',
+      'customer.subscription.updated:past_due',
+    ]);
+    expect(eventsOfType('customer.subscription.updated')[1].data.previous_attributes).toEqual({ status: 'active' });
 
     const listed = await stripe.subscriptions.list({ customer: pastDue.customer as string, expand: ['data.latest_invoice'] });
     expect((listed.data[0].latest_invoice as Stripe.Invoice).status).toBe('open');
     expect(((await stripe.customers.retrieve(pastDue.customer as string)) as Stripe.Customer).delinquent).toBe(true);
 
+    receiver.received = [];
     await fetch(`${fake.url}/_fake/subscriptions/${subscription.id}/recover_payment`, { method: 'POST' });
     expect((await stripe.subscriptions.retrieve(subscription.id)).status).toBe('active');
     expect((await stripe.invoices.retrieve(open.id)).status).toBe('paid');
+    await settle();
+    expect(trace(receivedEvents())).toEqual(['invoice.paid:paid', 'invoice.payment_succeeded:paid', 'customer.subscription.updated:active']);
 
     // Past due and never paid: at the period end the fake cancels, Stripe's default dunning outcome.
     await fetch(`${fake.url}/_fake/subscriptions/${subscription.id}/fail_payment`, { method: 'POST' });
     await fetch(`${fake.url}/_fake/subscriptions/${subscription.id}/advance`, { method: 'POST' });
     expect((await stripe.subscriptions.retrieve(subscription.id)).status).toBe('canceled');
+  });
+});
+
+describe('pause and resume', () => {
+  it('pausing sends customer.subscription.paused, stops renewals, and resuming starts a paid period with customer.subscription.resumed', async () => {
+    const { crew } = await catalog();
+    const { subscription } = await subscribe(crew.id);
+
+    const paused = await stripe.subscriptions.pause(subscription.id, { type: 'subscription' });
+    expect(paused.status).toBe('paused');
+    expect(paused.status_details?.paused).toMatchObject({ type: 'subscription', subscription: { type: 'pause_requested' } });
+    await settle();
+    expect(trace(receivedEvents())).toEqual(['customer.subscription.updated:paused', 'customer.subscription.paused:paused']);
+    expect(receivedEvents()[0].data.previous_attributes).toMatchObject({ status: 'active' });
+    // No renewal while paused, and no second pause.
+    const advance = await fetch(`${fake.url}/_fake/subscriptions/${subscription.id}/advance`, { method: 'POST' });
+    expect(advance.status).toBe(400);
+    expect(await stripe.subscriptions.pause(subscription.id).catch((e: unknown) => e)).toMatchObject({ statusCode: 400 });
+    expect((await stripe.invoices.list({ subscription: subscription.id })).data).toHaveLength(1);
+
+    receiver.received = [];
+    const before = Math.floor(Date.now() / 1000);
+    const resumed = await stripe.subscriptions.resume(subscription.id);
+    expect(resumed.status).toBe('active');
+    expect(resumed).not.toHaveProperty('status_details');
+    // Stripe's default billing_cycle_anchor `now`: a new period from today, invoiced and paid.
+    expect(resumed.items.data[0].current_period_start).toBeGreaterThanOrEqual(before);
+    expect(resumed.items.data[0].current_period_end - resumed.items.data[0].current_period_start).toBe(30 * DAY);
+    await settle();
+    expect(trace(receivedEvents())).toEqual([
+      'customer.subscription.updated:active',
+      'customer.subscription.resumed:active',
+      'invoice.created:draft',
+      'invoice.finalized:open',
+      'invoice.paid:paid',
+      'invoice.payment_succeeded:paid',
+    ]);
+    expect((await stripe.invoices.retrieve(resumed.latest_invoice as string)).amount_paid).toBe(4900);
+    expect(await stripe.subscriptions.resume(subscription.id).catch((e: unknown) => e)).toMatchObject({ statusCode: 400 });
+  });
+
+  it('resuming with the billing cycle anchor unchanged keeps the period and invoices nothing', async () => {
+    const { crew } = await catalog();
+    const { subscription } = await subscribe(crew.id);
+    await stripe.subscriptions.pause(subscription.id);
+    await settle();
+    receiver.received = [];
+    const resumed = await stripe.subscriptions.resume(subscription.id, { billing_cycle_anchor: { type: 'unchanged' } });
+    expect(resumed.status).toBe('active');
+    expect(resumed.items.data[0].current_period_end).toBe(subscription.items.data[0].current_period_end);
+    await settle();
+    expect(trace(receivedEvents())).toEqual(['customer.subscription.updated:active', 'customer.subscription.resumed:active']);
+    const wrong = await stripe.subscriptions.pause(subscription.id, { type: 'schedule' as 'subscription' }).catch((e: unknown) => e);
+    expect(wrong).toMatchObject({ statusCode: 400, param: 'type' });
   });
 });
 
@@ -598,8 +861,15 @@ describe('server.ts entry point', () => {
     return { child, output: () => out };
   }
 
-  it('refuses to start without a webhook secret', async () => {
-    const { child, output } = run({ STRIPE_FAKE_PORT: '0' });
+  it('refuses to start without a test-mode key or a webhook secret, saying which', async () => {
+    // The reasons, from the settings reader the entry point uses.
+    expect(() => readConfig({ STRIPE_WEBHOOK_SECRET: SECRET })).toThrow(ConfigError);
+    expect(() => readConfig({ STRIPE_WEBHOOK_SECRET: SECRET })).toThrow(/STRIPE_SECRET_KEY is required/);
+    expect(() => readConfig({ STRIPE_SECRET_KEY: 'sk_live_0123456789', STRIPE_WEBHOOK_SECRET: SECRET })).toThrow(/test-mode key/);
+    expect(() => readConfig({ STRIPE_SECRET_KEY: KEY })).toThrow(/STRIPE_WEBHOOK_SECRET is required/);
+    expect(readConfig({ STRIPE_SECRET_KEY: KEY, STRIPE_WEBHOOK_SECRET: SECRET }).secretKey).toBe(KEY);
+    // And the process: exit code 1 with the one-line reason.
+    const { child, output } = run({ STRIPE_FAKE_PORT: '0', STRIPE_SECRET_KEY: KEY });
     const [code] = (await once(child, 'exit')) as [number];
     expect(code).toBe(1);
     expect(output()).toContain('STRIPE_WEBHOOK_SECRET is required');
@@ -608,7 +878,7 @@ describe('server.ts entry point', () => {
   it('serves health, writes the pid file and stops cleanly on SIGTERM to that pid', async () => {
     const dir = mkdtempSync(path.join(tmpdir(), 'stripe-fake-'));
     const pidFile = path.join(dir, 'fake.pid');
-    const { child, output } = run({ STRIPE_WEBHOOK_SECRET: SECRET, STRIPE_FAKE_PORT: '0', STRIPE_FAKE_PID_FILE: pidFile });
+    const { child, output } = run({ STRIPE_SECRET_KEY: KEY, STRIPE_WEBHOOK_SECRET: SECRET, STRIPE_FAKE_PORT: '0', STRIPE_FAKE_PID_FILE: pidFile });
     try {
       const line = await waitFor(() => /listening on (http:\/\/127\.0\.0\.1:\d+)/.exec(output()), 'listening line', 15_000);
       const health = (await (await fetch(`${line[1]}/_fake/health`)).json()) as { ok: boolean; webhook_url: string | null };
@@ -633,4 +903,24 @@ describe('server.ts entry point', () => {
       if (child.exitCode === null) child.kill('SIGKILL');
     }
   }, 20_000);
+});
+
+describe('the payments fake the test services started, through the app\'s own client', () => {
+  // docker-local/services.sh starts it with the test environment (.local/test.env), as npm test does.
+  it('accepts the configured STRIPE_SECRET_KEY and nothing else, and refuses unknown parameters', async () => {
+    const env = getEnv();
+    expect((await getStripe().prices.list({ limit: 1 })).object).toBe('list');
+
+    const unknown = await getStripe().customers.list({ emial: 'x@demo.example' } as Stripe.CustomerListParams).catch((e: unknown) => e);
+    expect(unknown).toBeInstanceOf(Stripe.errors.StripeInvalidRequestError);
+    expect(unknown).toMatchObject({ statusCode: 400, code: 'parameter_unknown', param: 'emial' });
+    expect(providerMessage(unknown)).toBe('The payment provider said: Received unknown parameter: emial');
+
+    const stale = new Stripe(`${env.STRIPE_SECRET_KEY}_rotated`, stripeConfigFromEnv(env));
+    const refused = await stale.customers.list().catch((e: unknown) => e);
+    expect(refused).toBeInstanceOf(Stripe.errors.StripeAuthenticationError);
+    expect(refused).toMatchObject({ statusCode: 401 });
+    // What the app shows an admin for it (server/billing/stripe.ts).
+    expect(providerMessage(refused)).toBe('The payment provider refused our API key (check STRIPE_SECRET_KEY).');
+  });
 });
