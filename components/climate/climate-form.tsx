@@ -8,8 +8,12 @@ import { Button } from '@/components/ui/button';
 import { FormStatus } from '@/components/ui/form-status';
 import { SelectInput, TextInput } from '@/components/study/form-fields';
 import { useValidatedAction } from '@/components/study/use-validated-action';
+import { PlaceFields } from './place-fields';
 
-/** A climate typed in: a known R0.01 or a legacy ITU-R P.837-1 zone (normals and curves come as CSV). */
+/**
+ * A climate typed in: a known R0.01 or a legacy ITU-R P.837-1 zone (normals and curves come as CSV),
+ * with the place it was made for. Profiles override the RAIN climate of a study only.
+ */
 export function ClimateForm() {
   const [kind, setKind] = useState<'known-r001' | 'climate-zone'>('known-r001');
   const { state, formAction, pending, onSubmit, onInput, errors, message, failed } = useValidatedAction(createClimateProfile, climateFormSchema, { resetOnSuccess: true });
@@ -39,7 +43,8 @@ export function ClimateForm() {
           <SelectInput label="Zone" name="zone" placeholder="Choose a zone…" options={CLIMATE_ZONES.map((z) => ({ value: z, label: `Zone ${z}` }))} errors={errors.zone} hint="Legacy P.837-1 zones; prefer monthly normals where you have them." />
         )}
         <TextInput label="Source of the figure" name="sourceNote" placeholder="Where the value comes from" errors={errors.sourceNote} />
-        <TextInput label="0 °C isotherm height (km, optional)" name="zeroIsothermKm" inputMode="decimal" hint="ITU-R P.839-4 h0; blank uses the labelled latitude approximation." errors={errors.zeroIsothermKm} />
+        <TextInput label="0 °C isotherm height (km, optional)" name="zeroIsothermKm" inputMode="decimal" hint="ITU-R P.839-4 h0; blank takes the P.839-4 map value at each study's site." errors={errors.zeroIsothermKm} />
+        <PlaceFields errors={errors} className="md:col-span-2" />
       </div>
       <div className="flex flex-wrap items-center gap-3">
         <Button type="submit" disabled={pending}>

@@ -15,7 +15,7 @@ function Echo({ text, axis }: { text: string; axis: 'lat' | 'lon' }) {
   return <span className={r.ok ? '' : 'text-amber-800'}>{r.ok ? `= ${r.value}° (${formatDms(r.value, axis)})` : r.error}</span>;
 }
 
-export type SiteFormValues = { id: number; customerId: number; name: string; address: string | null; latDeg: number; lonDeg: number; altitudeM: number; notes: string | null };
+export type SiteFormValues = { id: number; customerId: number; name: string; address: string | null; latDeg: number; lonDeg: number; altitudeM: number; altitudeSource: 'user' | 'itu-r-p1511-1'; notes: string | null };
 
 /**
  * A new site for a customer, or (with `site`) changes to one; coordinates in decimal degrees or
@@ -42,7 +42,16 @@ export function SiteForm({ customers, site, onSaved, onCancel }: { customers: { 
         <TextInput label="Address (optional)" name="address" defaultValue={site?.address ?? ''} errors={errors.address} />
         <TextInput label="Latitude" name="latDeg" value={lat} onChange={(e) => setLat(e.target.value)} autoComplete="off" hint={<Echo text={lat} axis="lat" />} errors={errors.latDeg} />
         <TextInput label="Longitude" name="lonDeg" value={lon} onChange={(e) => setLon(e.target.value)} autoComplete="off" hint={<Echo text={lon} axis="lon" />} errors={errors.lonDeg} />
-        <TextInput label="Altitude (m above sea level)" name="altitudeM" inputMode="decimal" defaultValue={site ? String(site.altitudeM) : '0'} errors={errors.altitudeM} />
+        {/* A map altitude stays blank when editing, so it follows the coordinates if they change. */}
+        <TextInput
+          label="Altitude (m above sea level)"
+          name="altitudeM"
+          inputMode="decimal"
+          defaultValue={site && site.altitudeSource === 'user' ? String(site.altitudeM) : ''}
+          placeholder={site && site.altitudeSource !== 'user' ? `${site.altitudeM} (from the map)` : 'from the map'}
+          hint="Blank: the ground height at the site from the ITU-R P.1511-1 map."
+          errors={errors.altitudeM}
+        />
         {site && <TextArea label="Notes (optional)" name="notes" defaultValue={site.notes ?? ''} errors={errors.notes} className="sm:col-span-2 lg:col-span-3" />}
       </div>
       <SaveRow pending={pending} label={site ? 'Save site' : 'Add site'} onCancel={onCancel} state={state} failed={failed} message={message} />

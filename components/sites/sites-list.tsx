@@ -84,7 +84,10 @@ export function SitesList({ canStudy, canEdit = false, customers = [] }: { canSt
                       {formatDms(s.lonDeg, 'lon')}
                       <span className="block text-xs text-stone-600">{fixed(s.lonDeg, 5)}</span>
                     </Td>
-                    <Td numeric className="hidden sm:table-cell">{fixed(s.altitudeM, 0)} m</Td>
+                    <Td numeric className="hidden whitespace-nowrap sm:table-cell">
+                      {fixed(s.altitudeM, 0)} m
+                      <span className="block text-xs text-stone-600">{s.altitudeSource === 'user' ? 'entered' : 'ITU-R P.1511-1 map'}</span>
+                    </Td>
                     <Td numeric className="hidden sm:table-cell">{s.studyCount}</Td>
                     {hasActions && <Td className="hidden whitespace-nowrap sm:table-cell">{actions(s, open, panelId)}</Td>}
                   </tr>

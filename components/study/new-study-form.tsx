@@ -3,7 +3,7 @@
 import { useEffect, useMemo, useState } from 'react';
 import { useRouter } from 'next/navigation';
 import { createStudy } from '@/server/actions/studies';
-import { newStudySchema, TARGET_AVAILABILITY_PERCENT } from '@/server/validation/study';
+import { MAPS_CLIMATE_VALUE, newStudySchema, TARGET_AVAILABILITY_PERCENT } from '@/server/validation/study';
 import { parseCoordinate, formatDms } from '@/server/validation/coordinates';
 import { Button } from '@/components/ui/button';
 import { FormStatus } from '@/components/ui/form-status';
@@ -15,7 +15,9 @@ export type NewStudyOptions = {
   customers: { id: number; name: string }[];
   sites: { id: number; name: string; customerId: number }[];
   services: { id: number; name: string; satelliteName: string; slot: string; frequencyGHz: number }[];
-  climates: { id: number; name: string; kindLabel: string }[];
+  /** Override profiles of the rain climate; the ITU-R maps at the site are the default (`mapsName`). */
+  climates: { id: number; name: string; kindLabel: string; place: string }[];
+  mapsName: string;
   dishes: { id: number; name: string; diameterM: number; price: string }[];
 };
 
@@ -126,7 +128,14 @@ export function NewStudyForm({ options, preset }: { options: NewStudyOptions; pr
                 hint={<CoordinateEcho text={lon} axis="lon" />}
                 errors={errors.lonDeg}
               />
-              <TextInput label="Altitude (m above sea level)" name="altitudeM" inputMode="decimal" defaultValue="0" errors={errors.altitudeM} />
+              <TextInput
+                label="Altitude (m above sea level)"
+                name="altitudeM"
+                inputMode="decimal"
+                placeholder="from the map"
+                hint="Blank: the ground height at the site from the ITU-R P.1511-1 map."
+                errors={errors.altitudeM}
+              />
             </div>
             <p className="text-xs text-stone-600">Decimal degrees (north and east positive) or degrees, minutes and seconds with N/S/E/W.</p>
           </>
@@ -157,8 +166,12 @@ export function NewStudyForm({ options, preset }: { options: NewStudyOptions; pr
         <SelectInput
           label="Rain climate"
           name="climateProfileId"
-          placeholder="Choose a climate profile…"
-          options={options.climates.map((c) => ({ value: String(c.id), label: `${c.name} (${c.kindLabel})` }))}
+          defaultValue={MAPS_CLIMATE_VALUE}
+          options={[
+            { value: MAPS_CLIMATE_VALUE, label: options.mapsName },
+            ...options.climates.map((c) => ({ value: String(c.id), label: `${c.name} (${c.kindLabel}; made for ${c.place})` })),
+          ]}
+          hint="Gases, clouds and scintillation always come from the ITU-R maps at the site; a profile replaces the rain climate only."
           errors={errors.climateProfileId}
         />
       </fieldset>

@@ -38,7 +38,13 @@ export function PointingSummary({ inputs, result }: { inputs: StudyInputsSnapsho
           <Row term="Latitude">{formatDms(inputs.site.latDeg, 'lat')}</Row>
           <Row term="Longitude">{formatDms(inputs.site.lonDeg, 'lon')}</Row>
           <Row term="Decimal">{`${fixed(inputs.site.latDeg, 5)}, ${fixed(inputs.site.lonDeg, 5)}`}</Row>
-          <Row term="Altitude">{fixed(inputs.site.altitudeM, 0)} m</Row>
+          <Row term="Altitude">
+            {fixed(inputs.site.altitudeM, 0)} m
+            {/* Older studies recorded no source: they show the figure alone, as they always did. */}
+            {inputs.site.altitudeSource && (
+              <span className="block text-right font-sans text-xs text-stone-600">{inputs.site.altitudeSource === 'user' ? 'entered for the site' : 'ITU-R P.1511-1 map at the site'}</span>
+            )}
+          </Row>
         </dl>
       </section>
       <section aria-labelledby="carrier-title" className="rounded-md border border-stone-200 bg-white px-4 py-3">

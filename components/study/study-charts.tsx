@@ -22,17 +22,35 @@ export function StudyCharts({ inputs, result }: { inputs: StudyInputsSnapshot; r
   const outageDescription = points.length
     ? `Outage minutes per year against dish diameter: ${points.map((p) => `${p.label} ${Math.round(p.minutes)} min`).join(', ')}${target !== null ? `; the target allows ${Math.round(target)} min` : ''}.`
     : 'No dish of this study closes the link, so there is no outage curve to draw.';
-  const curveDescription = `Downlink rain attenuation exceeded for a percentage of an average year (ITU-R P.618-14), from ${result.exceedanceCurve[0]?.attenuationDb.toFixed(1)} dB at 0.001 % to ${result.exceedanceCurve[result.exceedanceCurve.length - 1]?.attenuationDb.toFixed(2)} dB at 5 %, with each dish's fade threshold marked.`;
+  const curve = result.exceedanceCurve;
+  const first = curve[0];
+  const last = curve[curve.length - 1];
+  // Total curves are drawn for one dish (scintillation depends on its aperture): name it.
+  const curveIndex = result.exceedanceCurveOptionIndex;
+  const curveDish = curveIndex === undefined ? null : (inputs.dishes[curveIndex]?.name ?? `${diameterCm(t.options[curveIndex].diameterM)} cm`);
+  const curveDescription =
+    curveDish === null
+      ? `Downlink rain attenuation exceeded for a percentage of an average year (ITU-R P.618-14), from ${first?.attenuationDb.toFixed(1)} dB at 0.001 % to ${last?.attenuationDb.toFixed(2)} dB at 5 %, with each dish's fade threshold marked.`
+      : `Downlink total attenuation exceeded for a percentage of an average year (ITU-R P.618-14 §2.5, for the ${curveDish}), from ${first?.attenuationDb.toFixed(1)} dB at 0.001 % to ${last?.attenuationDb.toFixed(2)} dB at 5 %, drawn with its parts: rain ${first?.rainDb?.toFixed(1)} dB, clouds ${first?.cloudDb?.toFixed(2)} dB, gases ${first?.gasDb?.toFixed(2)} dB and scintillation ${first?.scintillationDb?.toFixed(2)} dB at 0.001 %; each dish's fade threshold is marked (other dishes differ from this curve only by their scintillation).`;
+  // min-w-0: a grid cell never shrinks below its canvas otherwise, so charts drawn wide would stay wide after a resize.
   return (
-    <div className="grid gap-6 lg:grid-cols-2">
+    <div className="grid gap-6 lg:grid-cols-2 [&>*]:min-w-0">
       <Card aria-labelledby="outage-chart-title">
         <CardHeader id="outage-chart-title" title="Outage against dish size" description={rec.basis === 'two-way' ? 'Two-way outage (upper bound), minutes per year.' : 'Downlink outage, minutes per year.'} />
         <CardBody>{points.length ? <OutageChart points={points} targetMinutes={target} description={outageDescription} /> : <p className="text-sm text-stone-600">{outageDescription}</p>}</CardBody>
       </Card>
       <Card aria-labelledby="exceedance-chart-title">
-        <CardHeader id="exceedance-chart-title" title="Attenuation exceedance" description="Rain attenuation exceeded against the percentage of the year, with each dish’s fade threshold A*." />
+        <CardHeader
+          id="exceedance-chart-title"
+          title="Attenuation exceedance"
+          description={
+            curveDish === null
+              ? 'Rain attenuation exceeded against the percentage of the year, with each dish’s fade threshold A*.'
+              : 'Total attenuation and its four causes against the percentage of the year, with each dish’s fade threshold A*.'
+          }
+        />
         <CardBody>
-          <ExceedanceChart curve={result.exceedanceCurve} marks={marks} description={curveDescription} />
+          <ExceedanceChart curve={curve} marks={marks} description={curveDescription} />
         </CardBody>
       </Card>
     </div>

@@ -9,6 +9,7 @@ import { FormStatus } from '@/components/ui/form-status';
 import { Table, TBody, THead, Td, Th } from '@/components/ui/table';
 import { TextInput } from '@/components/study/form-fields';
 import { CsvFileInput } from './csv-file-input';
+import { PlaceFields } from '@/components/climate/place-fields';
 
 type Act = (prev: ActionState<never> | null, input: FormData) => Promise<ActionState<unknown>>;
 type Bound = (prev: ActionState<unknown> | null, input: FormData) => Promise<ActionState<unknown>>;
@@ -124,7 +125,8 @@ export function UploadPanel({ kinds, preview, confirm, needsProfileFields }: { k
         <div className="grid gap-4 sm:grid-cols-2">
           <TextInput label="Profile name" name="name" errors={fieldErrors.name} />
           <TextInput label="Source of the figures" name="sourceNote" placeholder="Weather service, station, years" errors={fieldErrors.sourceNote} />
-          <TextInput label="0 °C isotherm height (km, optional)" name="zeroIsothermKm" inputMode="decimal" errors={fieldErrors.zeroIsothermKm} hint="ITU-R P.839-4 h0; blank uses the labelled latitude approximation." />
+          <TextInput label="0 °C isotherm height (km, optional)" name="zeroIsothermKm" inputMode="decimal" errors={fieldErrors.zeroIsothermKm} hint="ITU-R P.839-4 h0; blank takes the P.839-4 map value at each study's site." />
+          <PlaceFields errors={fieldErrors} className="sm:col-span-2" />
         </div>
       )}
       <div className="flex flex-wrap items-center gap-3">

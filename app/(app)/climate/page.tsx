@@ -2,6 +2,7 @@ import type { Metadata } from 'next';
 import { PageHeader } from '@/components/ui/page-header';
 import { Card, CardBody, CardHeader } from '@/components/ui/card';
 import { EmptyRow, Table, TBody, THead, Td, Th } from '@/components/ui/table';
+import { Notice } from '@/components/ui/notice';
 import { ClimateForm } from '@/components/climate/climate-form';
 import { DeleteRowButton } from '@/components/catalogue/delete-button';
 import { UploadPanel } from '@/components/uploads/upload-panel';
@@ -17,6 +18,8 @@ import { CLIMATE_KIND_LABELS } from '@/server/validation/climate';
 import { resolveRainClimate } from '@/server/engine';
 import { rainInputOf } from '@/server/studies/build-scenario';
 import { climateSnapshotOf } from '@/server/studies/snapshot-of';
+import { MAPS_CLIMATE_NAME } from '@/server/studies/maps-climate';
+import { formatDms } from '@/server/validation/coordinates';
 
 export const metadata: Metadata = { title: 'Climate' };
 
@@ -27,6 +30,11 @@ function r001Of(profile: Parameters<typeof climateSnapshotOf>[0]): string {
   } catch (e) {
     return `not usable: ${(e as Error).message}`;
   }
+}
+
+/** The place a profile was made for, in DMS, or the words the study warning uses. */
+function placeOf(p: { latDeg: string | null; lonDeg: string | null }): string {
+  return p.latDeg === null || p.lonDeg === null ? 'unknown place' : `${formatDms(Number(p.latDeg), 'lat')}, ${formatDms(Number(p.lonDeg), 'lon')}`;
 }
 
 export default async function ClimatePage() {
@@ -40,9 +48,15 @@ export default async function ClimatePage() {
     <>
       <PageHeader
         title="Rain climate profiles"
-        description="Where the rain figures of a study come from. Monthly normals from the national weather service (ITU-R P.837-7 Annex 1) are the method to prefer; a measured curve beats any global model."
+        description="Every study reads its climate from the site's own coordinates by default (ITU-R digital maps). A profile here overrides the rain climate only, where you hold better local data: a measured curve or monthly normals from the weather service beat a global model."
       />
       <div className="space-y-6">
+        <Notice title={MAPS_CLIMATE_NAME}>
+          The default for every study: rain rate and P0 (ITU-R P.837-7 Annex 1 from the P.837-7 rainfall and P.1510-1 temperature maps), rain height (P.839-4),
+          ground height (P.1511-1), N_wet (P.453-14), and gases (P.676-12 with P.836-6) and clouds (P.840-8), all at the site. Gases, clouds and
+          scintillation always come from the maps, also when a profile below overrides the rain climate. A profile should say where its figures were
+          measured: a study more than 100 km from that place, or on a profile made for an unknown place, shows a warning.
+        </Notice>
         <Card aria-labelledby="profiles-title">
           <CardHeader id="profiles-title" title={`${profiles.length} profile${profiles.length === 1 ? '' : 's'}`} />
           <CardBody className="px-0 sm:px-0">
@@ -53,12 +67,13 @@ export default async function ClimatePage() {
                   <Th className="hidden sm:table-cell">Kind</Th>
                   <Th numeric className="normal-case">R0.01</Th>
                   <Th numeric className="hidden sm:table-cell">0 °C isotherm</Th>
+                  <Th className="hidden lg:table-cell">Made for</Th>
                   <Th className="hidden md:table-cell">Source</Th>
                   {admin && <Th><span className="sr-only">Actions</span></Th>}
                 </tr>
               </THead>
               <TBody>
-                {profiles.length === 0 && <EmptyRow colSpan={admin ? 6 : 5}>No climate profiles yet.</EmptyRow>}
+                {profiles.length === 0 && <EmptyRow colSpan={admin ? 7 : 6}>No climate profiles yet: every study uses the ITU-R maps at its site.</EmptyRow>}
                 {profiles.map((p) => (
                   <tr key={p.id}>
                     <Th scope="row" className="align-top font-medium text-stone-900">
@@ -66,13 +81,15 @@ export default async function ClimatePage() {
                       {/* Phones and tablets: kind, isotherm and source fold under the name, so the table fits. */}
                       <span className="block text-xs font-normal text-stone-600 sm:hidden">{CLIMATE_KIND_LABELS[p.kind]}</span>
                       <span className="block text-xs font-normal text-stone-600 sm:hidden">
-                        0 °C isotherm: {p.zeroIsothermKm === null ? 'approximation' : `${fixed(Number(p.zeroIsothermKm), 2)} km`}
+                        0 °C isotherm: {p.zeroIsothermKm === null ? 'P.839-4 map at the site' : `${fixed(Number(p.zeroIsothermKm), 2)} km`}
                       </span>
+                      <span className="block text-xs font-normal text-stone-600 lg:hidden">Made for: {placeOf(p)}</span>
                       <span className="block text-xs font-normal text-stone-600 md:hidden">{p.sourceNote}</span>
                     </Th>
                     <Td className="hidden sm:table-cell">{CLIMATE_KIND_LABELS[p.kind]}</Td>
                     <Td numeric className="whitespace-nowrap">{r001Of(p)}</Td>
-                    <Td numeric className="hidden whitespace-nowrap sm:table-cell">{p.zeroIsothermKm === null ? <span className="text-amber-800">approximation</span> : `${fixed(Number(p.zeroIsothermKm), 2)} km`}</Td>
+                    <Td numeric className="hidden whitespace-nowrap sm:table-cell">{p.zeroIsothermKm === null ? <span className="font-sans text-stone-600">P.839-4 map</span> : `${fixed(Number(p.zeroIsothermKm), 2)} km`}</Td>
+                    <Td className="hidden whitespace-nowrap lg:table-cell">{p.latDeg === null ? <span className="text-amber-800">unknown place</span> : placeOf(p)}</Td>
                     <Td className="hidden max-w-sm text-stone-700 md:table-cell">
                       {p.sourceNote}
                       {p.uploadId !== null && <span className="block text-xs text-stone-600">from an uploaded file (kept with its report)</span>}

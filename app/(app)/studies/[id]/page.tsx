@@ -9,6 +9,8 @@ import { ClimateSummary } from '@/components/study/climate-summary';
 import { OptionsTable } from '@/components/study/options-table';
 import { Recommendation } from '@/components/study/recommendation';
 import { StudyWarnings } from '@/components/study/study-warnings';
+import { ClimatePlaceWarning } from '@/components/study/climate-place-warning';
+import { AttenuationAtOutage } from '@/components/study/attenuation-at-outage';
 import { StudyCautions } from '@/components/study/cautions';
 import { StudyCharts } from '@/components/study/study-charts';
 import { RerunButton } from '@/components/study/rerun-button';
@@ -56,20 +58,22 @@ export default async function StudyPage({ params }: { params: Promise<{ id: stri
         )}
         <Recommendation studyId={study.id} inputs={inputs} result={result} canQuote={canQuote} />
         <StudyWarnings warnings={result.tradeoff.warnings} />
+        <ClimatePlaceWarning inputs={inputs} />
         <PointingSummary inputs={inputs} result={result} />
         <Card aria-labelledby="options-title">
           <CardHeader
             id="options-title"
             title="Dish by dish"
-            description={`Link budget and rain outage for each dish, small to large. Outage figures are ${result.tradeoff.recommendation.basis === 'two-way' ? 'two-way (uplink + downlink, an upper bound)' : 'for the downlink'}; hours in small type.`}
+            description={`Link budget and ${result.tradeoff.attenuationModel === 'total' ? 'outage (total attenuation: gases, clouds, rain and scintillation)' : 'rain outage'} for each dish, small to large. Outage figures are ${result.tradeoff.recommendation.basis === 'two-way' ? 'two-way (uplink + downlink, an upper bound)' : 'for the downlink'}; hours in small type.`}
           />
           <CardBody className="px-0 sm:px-0">
             <OptionsTable studyId={study.id} inputs={inputs} result={result} canQuote={canQuote} />
+            <AttenuationAtOutage inputs={inputs} result={result} />
           </CardBody>
         </Card>
         <StudyCharts inputs={inputs} result={result} />
         <ClimateSummary inputs={inputs} result={result} />
-        <StudyCautions hasUplink={inputs.service.uplink !== null} largestDiameterM={largest} />
+        <StudyCautions hasUplink={inputs.service.uplink !== null} largestDiameterM={largest} totalAttenuation={result.tradeoff.attenuationModel === 'total'} />
         <p className="text-xs text-stone-600">
           Computed {dateTimeFmt.format(new Date(result.computedAt))} UTC by FadeLedger engine {result.engineVersion}
           {study.createdByName ? ` for ${study.createdByName}` : ''}. The inputs (site, service, climate and dish prices) were copied into the study then; later changes to them do not alter it.

@@ -12,6 +12,8 @@ import { listSiteOptions } from '@/db/queries/sites';
 import { listServiceProfiles } from '@/db/queries/service-profiles';
 import { listClimateProfiles } from '@/db/queries/climate-profiles';
 import { listDishes } from '@/db/queries/dishes';
+import { MAPS_CLIMATE_NAME } from '@/server/studies/maps-climate';
+import { formatDms } from '@/server/validation/coordinates';
 
 export const metadata: Metadata = { title: 'New study' };
 
@@ -29,19 +31,28 @@ export default async function NewStudyPage({ searchParams }: { searchParams: Pro
     customers,
     sites: sites.map((s) => ({ id: s.id, name: s.name, customerId: s.customerId })),
     services: services.map((s) => ({ id: s.id, name: s.name, satelliteName: s.satelliteName, slot: orbitalSlot(Number(s.satelliteLongitudeDeg)), frequencyGHz: Number(s.downlinkFrequencyGhz) })),
-    climates: climates.map((c) => ({ id: c.id, name: c.name, kindLabel: CLIMATE_KIND_LABELS[c.kind] })),
+    climates: climates.map((c) => ({
+      id: c.id,
+      name: c.name,
+      kindLabel: CLIMATE_KIND_LABELS[c.kind],
+      place: c.latDeg === null || c.lonDeg === null ? 'an unknown place' : `${formatDms(Number(c.latDeg), 'lat')}, ${formatDms(Number(c.lonDeg), 'lon')}`,
+    })),
+    mapsName: MAPS_CLIMATE_NAME,
     dishes: dishes.map((d) => ({ id: d.id, name: d.name, diameterM: Number(d.diameterM), price: (Number(d.hardwarePrice) + Number(d.labourPrice)).toFixed(2) })),
   };
   const siteId = Number(params.site);
   const presetSite = sites.find((s) => s.id === siteId);
-  const missing = [!services.length && 'a service profile', !climates.length && 'a climate profile', !dishes.length && 'an active dish'].filter(Boolean);
+  // No climate profile is needed: the ITU-R maps at the site are the default.
+  const missing = [!services.length && 'a service profile', !dishes.length && 'an active dish'].filter(Boolean);
   return (
     <>
-      <PageHeader title="New study" description="Pick the site and the service; FadeLedger computes the link budget and rain outage of every dish you tick." />
+      <PageHeader
+        title="New study"
+        description="Pick the site and the service; FadeLedger reads the site's climate from its coordinates (ITU-R maps) and computes the link budget and outage of every dish you tick."
+      />
       {missing.length > 0 && (
         <Notice tone="caution" className="mb-6" title="Set-up first">
-          A study needs {missing.join(', ')}. See <Link className="underline" href="/services">Services</Link>, <Link className="underline" href="/climate">Climate</Link> and{' '}
-          <Link className="underline" href="/dishes">Dishes</Link>.
+          A study needs {missing.join(', ')}. See <Link className="underline" href="/services">Services</Link> and <Link className="underline" href="/dishes">Dishes</Link>.
         </Notice>
       )}
       <Card>
