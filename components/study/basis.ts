@@ -14,7 +14,7 @@ export function closesOnBasis(option: TradeoffOption, basis: TradeoffResult['rec
   return option.closes && (basis !== 'two-way' || (option.uplink?.closes ?? false));
 }
 
-/** Outage minutes a year that the target availability allows (525 960 min in an average year, engine.md §4). */
+/** Outage minutes a year that the target availability allows (525 960 min in an average year, server/engine/README.md §4). */
 export function allowedMinutes(targetPercent: number | null): number | null {
   return targetPercent === null ? null : ((100 - targetPercent) / 100) * 525_960;
 }

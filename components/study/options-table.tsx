@@ -4,7 +4,7 @@ import { Table, TBody, THead, Td, Th } from '@/components/ui/table';
 import { availabilityText, diameterLabel, fixed, hoursText, minutesText, usd, usdPerMinute } from './format';
 import { basisFigures, closesOnBasis } from './basis';
 
-/** The quote screen of part B takes the study and the option (index into `options`). */
+/** The quote screen takes the study and the option (index into `options`). */
 export function quoteHref(studyId: number, optionIndex: number): string {
   return `/quotes/new?study=${studyId}&option=${optionIndex}`;
 }

@@ -8,7 +8,7 @@ const stamps = {
 };
 
 /**
- * Rain climates the company keeps for its area (engine.md §1): monthly normals (ITU-R P.837-7
+ * Rain climates the company keeps for its area (server/engine/README.md §1): monthly normals (ITU-R P.837-7
  * Annex 1), a measured exceedance curve, a known R0.01, or a legacy P.837-1 zone.
  */
 export async function up({ context: qi }: Ctx): Promise<void> {

@@ -4,7 +4,7 @@ import { decimalAttribute } from './decimal-column';
 export const CLIMATE_KINDS = ['monthly-normals', 'measured-curve', 'known-r001', 'climate-zone'] as const;
 export type ClimateKind = (typeof CLIMATE_KINDS)[number];
 
-/** The data of each kind of rain climate (engine.md §1); validated by server/validation/climate.ts. */
+/** The data of each kind of rain climate (server/engine/README.md §1); validated by server/validation/climate.ts. */
 export type ClimateData =
   | { monthlyRainfallMm: number[]; monthlyTemperatureC: number[] }
   | { points: { pPercent: number; rainRateMmH: number }[] }

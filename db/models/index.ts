@@ -9,7 +9,7 @@ import { PasswordResetToken, initPasswordResetToken } from './password-reset-tok
 import { SignInAttempt, initSignInAttempt } from './sign-in-attempt';
 import { AuditEvent, initAuditEvent } from './audit-event';
 import { SignupRequest, initSignupRequest } from './signup-request';
-// Studies (part A): customers, sites, services, dish catalogue, climate, uploads, studies.
+// Studies: customers, sites, services, dish catalogue, climate, uploads, studies.
 import { Customer, initCustomer } from './customer';
 import { Site, initSite } from './site';
 import { ServiceProfile, initServiceProfile } from './service-profile';
@@ -21,7 +21,7 @@ import { Study, initStudy } from './study';
 import { Subscription, initSubscription } from './subscription';
 import { BillingCheckout, initBillingCheckout } from './billing-checkout';
 import { WebhookEvent, initWebhookEvent } from './webhook-event';
-// Quotes (part B): quotes, their status history, comparison links.
+// Quotes: quotes, their status history, comparison links.
 import { Quote, initQuote } from './quote';
 import { QuoteEvent, initQuoteEvent } from './quote-event';
 import { ShareLink, initShareLink } from './share-link';

@@ -47,7 +47,7 @@ export interface CampaignOutcome {
 /** Diameter in whole centimetres: the way installers name dishes ("a 90"). */
 const cmOf = (diameterM: number) => Math.round(diameterM * 100);
 
-/** The outage the recommendation is made on: two-way when the service has an uplink (engine.md §4). */
+/** The outage the recommendation is made on: two-way when the service has an uplink (server/engine/README.md §4). */
 function basisFigures(result: TradeoffResult, option: TradeoffOption): OutageFigures {
   return result.recommendation.basis === 'two-way' && option.twoWay ? option.twoWay : option;
 }

@@ -25,7 +25,7 @@ export const CAMPAIGN_RESULT_HEADER = [
   'recommended_outage_bound',
   'minutes_saved_per_year',
   'upgrade_price_usd',
-  // Each site's own climate (issue 9), each figure beside its source.
+  // Each site's own climate, each figure beside its source.
   'r001_mm_h',
   'rain_climate_source',
   'rain_height_km',

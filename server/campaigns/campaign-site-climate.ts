@@ -25,7 +25,7 @@ export const CAMPAIGN_MAPS_RAIN_SOURCE = 'ITU-R maps at the site (P.837-7 Annex 
 const MAPS_RAIN_HEIGHT_SOURCE = 'ITU-R maps at the site (P.839-4)';
 
 /**
- * One campaign row's own climate (issue 9): the ITU-R maps at its coordinates give the rain
+ * One campaign row's own climate: the ITU-R maps at its coordinates give the rain
  * climate (unless a company profile overrides the rain climate of the whole campaign), the P.839-4
  * isotherm when that profile has none, the altitude when the file gives none (P.1511-1, to 1 m as
  * a site stores it), and the atmosphere at that altitude (gases, clouds, scintillation).

@@ -52,7 +52,7 @@ export async function runCampaign(companyId: number, input: CampaignInput): Prom
   const { service, climate, dishes } = await sequelize.transaction(async (t) => {
     const service = await getServiceProfile(companyId, input.serviceProfileId, t);
     if (!service) throw new NotFoundError('That service profile');
-    // No profile: each site's own rain climate from the ITU-R maps (the default, engine.md §1).
+    // No profile: each site's own rain climate from the ITU-R maps (the default, server/engine/README.md §1).
     const climate = input.climateProfileId === null ? null : await getClimateProfile(companyId, input.climateProfileId, t);
     if (input.climateProfileId !== null && !climate) throw new NotFoundError('That climate profile');
     await assertUploadWithinPlan(companyId, t);

@@ -31,7 +31,7 @@ export interface AcmThroughput {
 /**
  * The MODCODs that are ever "the best one that closes": sorted by Es/N0 threshold, keeping only
  * those whose efficiency beats every more robust one (a MODCOD needing more Es/N0 for less
- * throughput is never chosen). Engine step of engine.md §4 "ACM carriers".
+ * throughput is never chosen). Engine step of server/engine/README.md §4 "ACM carriers".
  *
  * Bad input: none here (callers validated the MODCODs); an empty list gives an empty envelope.
  *
@@ -52,7 +52,7 @@ export function acmEnvelope(modcods: readonly Modcod[]): Modcod[] {
 }
 
 /**
- * Expected ACM throughput of one dish over a MODCOD set (engine.md §4): for each MODCOD of the
+ * Expected ACM throughput of one dish over a MODCOD set (server/engine/README.md §4): for each MODCOD of the
  * envelope, its fade threshold A*_j (clear-sky margin over ideal Es/N0 + implementation margin,
  * with the noise increase of rain) and the exceedance q_j = P(A > A*_j) from ITU-R P.618-14;
  * the top MODCOD gets 100 − q_top % of the year, each lower one q_{j+1} − q_j, and the

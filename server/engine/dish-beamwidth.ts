@@ -2,12 +2,12 @@ import { PHYSICAL_RANGES } from './physical-ranges';
 import { SPEED_OF_LIGHT_M_S } from './physical-constants';
 import { requireNumberInRange, requirePositive } from './validate';
 
-/** Half-power beamwidth factor, degrees per (λ/D) (engine.md §3: ≈ 70 λ/D; common practice, no source). */
+/** Half-power beamwidth factor, degrees per (λ/D) (server/engine/README.md §3: ≈ 70 λ/D; common practice, no source). */
 export const BEAMWIDTH_FACTOR_DEG = 70;
 
 /**
  * Half-power (−3 dB) beamwidth of a circular reflector, degrees: θ_3dB ≈ 70 λ/D
- * (common practice, no source; engine.md §3).
+ * (common practice, no source; server/engine/README.md §3).
  *
  * Bad input: D ≤ 0, frequency outside 0.1–1000 GHz or NaN throws EngineInputError.
  *

@@ -4,7 +4,7 @@ import { EngineInputError } from './errors';
 import { requireNumberInRange, requirePositive } from './validate';
 
 /**
- * Boresight gain of a circular reflector, dBi: G = 10 log10(η (π D f / c)²) (engine.md §3;
+ * Boresight gain of a circular reflector, dBi: G = 10 log10(η (π D f / c)²) (server/engine/README.md §3;
  * the standard aperture-antenna formula).
  *
  * Bad input: D ≤ 0 (a negative diameter included), η outside (0, 1], frequency outside

@@ -37,7 +37,7 @@ import { requireFinite, requireNonNegative, requireNumberInRange, requirePositiv
 /** A path whose attenuation exceedance can be asked: rain alone, or the P.618 §2.5 total. */
 type FadeCurve = { exceedanceOf(attenuationDb: number): RainExceedance } & Partial<Pick<TotalAttenuationCurve, 'componentsAt'>>;
 
-/** Below this elevation the user is warned (engine.md §3). */
+/** Below this elevation the user is warned (server/engine/README.md §3). */
 const LOW_ELEVATION_WARNING_DEG = 5;
 /** Most dishes in one study (keeps one call bounded). */
 const MAX_DISHES = 100;
@@ -45,11 +45,11 @@ const MAX_DISHES = 100;
 const MAX_POINTING_ERROR_SHARE_OF_BEAMWIDTH = 0.5;
 
 /**
- * The trade-off of engine.md §5: for one site and one satellite carrier, every candidate dish's
+ * The trade-off of server/engine/README.md §5: for one site and one satellite carrier, every candidate dish's
  * link budget, fade threshold and rain outage (annual and worst month), with money in
  * decimal.js and a recommendation.
  *
- * Chain per dish (engine.md §4): gain G = 10 log10(η(πDf/c)²); G/T = G − 10 log10(T_rx + T_ant);
+ * Chain per dish (server/engine/README.md §4): gain G = 10 log10(η(πDf/c)²); G/T = G − 10 log10(T_rx + T_ant);
  * C/N0 = EIRP − L_fs − L_other − L_pointing + G/T + 228.6; Es/N0 = C/N0 − 10 log10 R_s;
  * margin M = Es/N0 − (required + implementation); fade threshold A* from DND(A*) = M (exact
  * solution, see fadeThreshold); outage p* = P(A_rain > A*) from ITU-R P.618-14 §2.2.1.1 step 10
@@ -63,7 +63,7 @@ const MAX_POINTING_ERROR_SHARE_OF_BEAMWIDTH = 0.5;
  * - Outage below 0.001 % of the year: `outageBound: 'below-model-range'`, `outagePercent` 0.001
  *   as an upper bound (availability "> 99.999 %"); above 5 %: 'above-model-range', 5 as a lower
  *   bound. Minutes and worst month carry the same bound.
- * - Rain climate: any of the four sources of engine.md §1; P.618 uses R_0.01, reported with its
+ * - Rain climate: any of the four sources of server/engine/README.md §1; P.618 uses R_0.01, reported with its
  *   provenance in `climateSource`. Rain height: given h_R, else h_0 + 0.36 km, else the
  *   latitude approximation (`rainHeightSource: 'latitude-approximation'`, with a warning).
  * - Uplink (optional): the same chain at the uplink frequency with the terminal's EIRP and the
@@ -135,7 +135,7 @@ export function dishTradeoff(scenario: TradeoffScenario): TradeoffResult {
     prices.push(hw && lab ? hw.plus(lab) : hw ?? lab);
   });
 
-  // Geometry (engine.md §3): refuse a satellite below the horizon, warn below 5°.
+  // Geometry (server/engine/README.md §3): refuse a satellite below the horizon, warn below 5°.
   const look = geoLookAnglesUnchecked(latDeg, lonDeg, altitudeKm, satLon);
   if (look.elevationDeg <= 0) {
     throw new EngineInputError(
@@ -152,7 +152,7 @@ export function dishTradeoff(scenario: TradeoffScenario): TradeoffResult {
     });
   }
 
-  // Rain climate and height (engine.md §1).
+  // Rain climate and height (server/engine/README.md §1).
   const climate = resolveRainClimate(scenario.rain);
   const rainIn = scenario.rain as { rainHeightKm?: number; zeroIsothermHeightKm?: number };
   const height = resolveRainHeight({ latDeg, rainHeightKm: rainIn.rainHeightKm, zeroIsothermHeightKm: rainIn.zeroIsothermHeightKm, fieldPrefix: 'rain.' });
@@ -170,7 +170,7 @@ export function dishTradeoff(scenario: TradeoffScenario): TradeoffResult {
   }
   const fslDown = freeSpaceLossUnchecked(look.rangeKm, fDown);
 
-  // Gases, clouds and scintillation from the site's atmosphere (engine.md §7): the outage is then
+  // Gases, clouds and scintillation from the site's atmosphere (server/engine/README.md §7): the outage is then
   // where the TOTAL attenuation of P.618-14 §2.5 reaches the fade threshold.
   let atmosphere: SiteAtmosphere | null = scenario.atmosphere === undefined ? null : checkSiteAtmosphere(scenario.atmosphere);
   if (atmosphere && look.elevationDeg < MIN_ELEVATION_DEG_ATMOSPHERE) {
@@ -283,7 +283,7 @@ export function dishTradeoff(scenario: TradeoffScenario): TradeoffResult {
     });
   }
 
-  // Economics and recommendation against the smallest dish (engine.md §5).
+  // Economics and recommendation against the smallest dish (server/engine/README.md §5).
   let baselineIndex = 0;
   for (let i = 1; i < diam.length; i++) if (diam[i] < diam[baselineIndex]) baselineIndex = i;
   const econ = tradeoffEconomics({ prices, outageMinutesPerYear: basisFigures.map((f) => f.outageMinutesPerYear), baselineIndex });
@@ -417,7 +417,7 @@ function uplinkOption(up: CheckedUplink, i: number, d: number, eta: number, fslU
   return { gainDbi: gain, eirpDbw: eirp, clearSkyEsN0Db: lb.esN0Db, marginDb: lb.marginDb, closes, fadeThresholdDb: closes ? lb.marginDb : null, ...figures, attenuationAtOutage };
 }
 
-/** Conservative two-way sum p_up + p_down (engine.md §4), an upper bound. */
+/** Conservative two-way sum p_up + p_down (server/engine/README.md §4), an upper bound. */
 function twoWayOutage(up: OutageFigures, down: OutageFigures): TwoWayOutage {
   const p = Math.min(100, up.outagePercent + down.outagePercent);
   const bound = up.outagePercent + down.outagePercent >= 100

@@ -3,7 +3,7 @@ import { requireFinite } from './validate';
 
 /**
  * Fade threshold A*, dB: the rain attenuation at which the downlink degradation
- * DND(A) = A + 10 log10(T_sys(A)/T_sys(0)) uses up the clear-sky margin M (engine.md §4).
+ * DND(A) = A + 10 log10(T_sys(A)/T_sys(0)) uses up the clear-sky margin M (server/engine/README.md §4).
  * DND is strictly increasing when T_rx > 0, so A* is unique; instead of bisecting, the engine
  * solves it exactly: with x = 10^(−A/10), T_sys(A) = (T_rx + T_m) + (T_ant − T_m) x, and
  * DND(A*) = M gives x* = (T_rx + T_m)/(10^(M/10) T_sys(0) − T_ant + T_m), A* = −10 log10 x*.

@@ -2,7 +2,7 @@ import { SPEED_OF_LIGHT_M_S } from './physical-constants';
 import { requireNumberInRange, requirePositive } from './validate';
 
 /**
- * Free-space path loss, dB: L_fs = 20 log10(4π d f / c) (engine.md §4; ITU-R P.525).
+ * Free-space path loss, dB: L_fs = 20 log10(4π d f / c) (server/engine/README.md §4; ITU-R P.525).
  *
  * Bad input: distance ≤ 0, frequency outside 0.1–1000 GHz or NaN throws EngineInputError.
  *

@@ -27,16 +27,16 @@ export interface GeoLookAngles {
   polarizationSkewDeg: number;
 }
 
-/** Equatorial Earth radius, km (WGS-84 a; spherical Earth per engine.md §3). */
+/** Equatorial Earth radius, km (WGS-84 a; spherical Earth per server/engine/README.md §3). */
 export const EARTH_RADIUS_KM_WGS84 = 6378.137;
-/** Geostationary orbit radius, km (engine.md §3). */
+/** Geostationary orbit radius, km (server/engine/README.md §3). */
 export const GEOSTATIONARY_RADIUS_KM = 42164;
 
 const DEG = Math.PI / 180;
 
 /**
  * Geostationary look angles on a spherical Earth (R_E = 6378.137 km, orbit radius 42 164 km;
- * engine.md §3 — WGS-84 would change elevation by a few hundredths of a degree): the vector
+ * server/engine/README.md §3 — WGS-84 would change elevation by a few hundredths of a degree): the vector
  * from site to satellite resolved in local east-north-up axes gives elevation, true azimuth and
  * slant range; the skew is the signed angle, about the line of sight, between the projections
  * of the local up direction and of the Earth's axis (common geometry, no ITU source).

@@ -31,7 +31,7 @@ export interface LinkBudget {
 }
 
 /**
- * Clear-sky link budget of one hop (engine.md §4): C/N0 = EIRP − L_fs − L_other + G/T + 228.6 dB·Hz;
+ * Clear-sky link budget of one hop (server/engine/README.md §4): C/N0 = EIRP − L_fs − L_other + G/T + 228.6 dB·Hz;
  * Es/N0 = C/N0 − 10 log10(R_s); margin = Es/N0 − (required Es/N0 + implementation margin).
  *
  * Bad input: NaN anywhere, a symbol rate ≤ 0, or negative losses/implementation margin throws

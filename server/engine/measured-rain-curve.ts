@@ -25,7 +25,7 @@ export interface MeasuredRainCurve {
 
 /**
  * Check a measured exceedance curve (e.g. an uploaded CSV of `p_percent, rain_rate_mm_h`) and
- * prepare log-log interpolation: log R linear in log p between neighbouring points (engine.md §1,
+ * prepare log-log interpolation: log R linear in log p between neighbouring points (server/engine/README.md §1,
  * source 2). Never extrapolates: asking for p outside [min p, max p] throws, so a curve that
  * stops at 0.03 % cannot silently supply R_0.01.
  *

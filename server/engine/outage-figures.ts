@@ -14,17 +14,17 @@ export interface OutageFigures {
   outageBound: ExceedanceBound;
   /** 100 − outagePercent; a lower bound (">99.999") when 'below-model-range', an upper bound ("<95") when 'above-model-range'. */
   availabilityPercent: number;
-  /** outagePercent/100 × 525 960 min (engine.md §4); bounded like outagePercent. */
+  /** outagePercent/100 × 525 960 min (server/engine/README.md §4); bounded like outagePercent. */
   outageMinutesPerYear: number;
   /** ITU-R P.841 worst-month percentage p_w, %; bounded like outagePercent. */
   worstMonthOutagePercent: number;
-  /** p_w/100 × 43 830 min (engine.md §4); bounded like outagePercent. */
+  /** p_w/100 × 43 830 min (server/engine/README.md §4); bounded like outagePercent. */
   worstMonthOutageMinutes: number;
 }
 
 /**
  * Turn an annual outage percentage and its bound into availability, minutes per year and
- * worst-month minutes (engine.md §4; worst month by ITU-R P.841, see worstMonthPercent).
+ * worst-month minutes (server/engine/README.md §4; worst month by ITU-R P.841, see worstMonthPercent).
  *
  * Bad input: callers pass 0 ≤ p ≤ 100 from the engine itself; nothing is validated here.
  *

@@ -41,7 +41,7 @@ export function isClimateZone(zone: unknown): zone is ClimateZone {
 /**
  * Rain rate exceeded for p % of an average year in an ITU-R P.837-1 climate zone, mm/h:
  * the tabulated value at a tabulated p, otherwise linear interpolation of log R against log p
- * between the two neighbouring tabulated points (engine.md §1, source 4). No extrapolation:
+ * between the two neighbouring tabulated points (server/engine/README.md §1, source 4). No extrapolation:
  * p outside 0.001–1 % is refused.
  *
  * Bad input: an unknown zone letter, NaN, or p outside 0.001–1 % throws EngineInputError

@@ -37,7 +37,7 @@ const SOUTH_LAPSE_KM_PER_DEG_P839_2 = 0.1;
 
 /**
  * The 0 °C isotherm height h_0 from latitude alone, by the rule of the older editions of
- * ITU-R P.839 (engine.md §1): 5 km for 0–23° N and 0–21° S, −0.075 km/° north of 23° N,
+ * ITU-R P.839 (server/engine/README.md §1): 5 km for 0–23° N and 0–21° S, −0.075 km/° north of 23° N,
  * −0.1 km/° south of 21° S, 0 south of 71° S (and never below 0 km in the far north).
  * This is an APPROXIMATION used only when no h_0 is known; callers must label it
  * (`source: 'latitude-approximation'`). P.839-4 itself gives h_0 from a digital map.

@@ -5,7 +5,7 @@ export const POINTING_LOSS_COEFFICIENT_DB = 12;
 
 /**
  * Gain lost to a pointing error θ_e, dB: L = 12 (θ_e/θ_3dB)² (common practice, no source;
- * engine.md §3). Good to about one beamwidth; beyond that the main-lobe model does not hold.
+ * server/engine/README.md §3). Good to about one beamwidth; beyond that the main-lobe model does not hold.
  *
  * Bad input: negative error, beamwidth ≤ 0 or NaN throws EngineInputError naming the field.
  *

@@ -13,7 +13,7 @@ export interface RainHeightInput {
   zeroIsothermHeightKm?: number;
 }
 
-/** The four rain-climate sources of engine.md §1; give exactly one. */
+/** The four rain-climate sources of server/engine/README.md §1; give exactly one. */
 export type RainClimateInput =
   | ({ r001MmH: number } & RainHeightInput)
   | ({
@@ -41,7 +41,7 @@ export interface ClimateSource {
 
 /**
  * Resolve the study's rain climate to the R_0.01 that ITU-R P.618-14 §2.2.1.1 step 4 needs,
- * and say where it came from (engine.md §1): a known R_0.01; P.837-7 Annex 1 from monthly
+ * and say where it came from (server/engine/README.md §1): a known R_0.01; P.837-7 Annex 1 from monthly
  * normals (R_0.01 by its step 6 inverse); a measured curve interpolated log-log at 0.01 %
  * (refused if 0.01 % lies outside the measured range — no silent extrapolation); or the
  * P.837-1 zone table's 0.01 % value.

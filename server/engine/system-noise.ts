@@ -1,7 +1,7 @@
 import { PHYSICAL_RANGES as R } from './physical-ranges';
 import { requireNonNegative, requireNumberInRange } from './validate';
 
-/** Mean radiating temperature of rain, K (engine.md §4; common practice, no source). */
+/** Mean radiating temperature of rain, K (server/engine/README.md §4; common practice, no source). */
 export const MEDIUM_TEMPERATURE_K_DEFAULT = 275;
 
 /** Receiving-system temperatures, K. */
@@ -15,7 +15,7 @@ export interface SystemNoiseOptions {
 }
 
 /**
- * System noise temperature with attenuation A on the path, K (engine.md §4):
+ * System noise temperature with attenuation A on the path, K (server/engine/README.md §4):
  * T_sys(A) = T_rx + T_ant 10^(−A/10) + T_m (1 − 10^(−A/10)).
  *
  * Bad input: T_rx ≤ 0, negative T_ant/T_m/A or NaN throws EngineInputError naming the field.
@@ -30,7 +30,7 @@ export function systemNoiseTemperature(options: SystemNoiseOptions & { attenuati
 }
 
 /**
- * Downlink degradation DND(A) = A + 10 log10(T_sys(A)/T_sys(0)), dB (engine.md §4): the drop
+ * Downlink degradation DND(A) = A + 10 log10(T_sys(A)/T_sys(0)), dB (server/engine/README.md §4): the drop
  * in C/N (and Es/N0) caused by attenuation A, counting the extra sky noise of the rain.
  *
  * Bad input: as {@link systemNoiseTemperature}.

@@ -10,7 +10,7 @@ export interface TradeoffEconomics {
 }
 
 /**
- * Minutes saved per year and cost per minute saved against the smallest dish (engine.md §5):
+ * Minutes saved per year and cost per minute saved against the smallest dish (server/engine/README.md §5):
  * saved_i = minutes_baseline − minutes_i; cost_i = (price_i − price_baseline)/saved_i in USD per
  * (minute per year), computed in decimal.js. Convention: the cost is null for the baseline, when
  * either price is missing, or when the dish saves nothing (saved ≤ 0). A cost can be negative

@@ -19,7 +19,7 @@ export function meetsTargetAvailability(figures: OutageFigures, targetPercent: n
 }
 
 /**
- * The recommendation of engine.md §5, over dishes given in any order:
+ * The recommendation of server/engine/README.md §5, over dishes given in any order:
  * - baseline: the smallest diameter (first on ties); minutes and costs count against it;
  * - smallest meeting the target: smallest diameter whose availability is known to meet it
  *   (ties: lower price, then input order); null without a target or when none meets it;

@@ -8,7 +8,7 @@ import type { AttenuationComponents } from './p618-total-attenuation';
 import type { SiteAtmosphere } from './site-atmosphere';
 
 /**
- * Input and result types of the dish trade-off (engine.md §4–§5). Conventions for bounds and
+ * Input and result types of the dish trade-off (server/engine/README.md §4–§5). Conventions for bounds and
  * "does not close" are on {@link OutageFigures} and {@link TradeoffOption}.
  *
  * @example
@@ -97,7 +97,7 @@ export interface TradeoffScenario {
   /**
    * The site's atmosphere from the ITU-R maps (server/climate-maps): with it the outage of every
    * dish is where the P.618-14 §2.5 TOTAL (gases, clouds, rain, scintillation) reaches the fade
-   * threshold, and each component is reported beside it (engine.md §7).
+   * threshold, and each component is reported beside it (server/engine/README.md §7).
    */
   atmosphere?: SiteAtmosphere;
 }
@@ -116,7 +116,7 @@ export interface UplinkOption extends OutageFigures {
   attenuationAtOutage: AttenuationComponents | null;
 }
 
-/** Two-way outage: p_up + p_down (engine.md §4), an UPPER bound on the true two-way outage. */
+/** Two-way outage: p_up + p_down (server/engine/README.md §4), an UPPER bound on the true two-way outage. */
 export interface TwoWayOutage extends OutageFigures {
   isUpperBound: true;
 }

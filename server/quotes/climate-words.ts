@@ -18,7 +18,7 @@ export interface FiguresSourceInWords {
   caution: string;
 }
 
-/** The maps a study reads the rain climate with (engine.md §1 and §7). */
+/** The maps a study reads the rain climate with (server/engine/README.md §1 and §7). */
 const MAPS_RAIN_CLIMATE = "Rain climate read from the ITU-R maps at your site's coordinates (ITU-R P.837-7, P.839-4).";
 
 /** What each kind of company profile is, in plain words. */

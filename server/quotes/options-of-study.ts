@@ -14,7 +14,7 @@ export interface StudyForQuote {
 
 function outageOf(option: TradeoffOption, basis: 'downlink' | 'two-way'): QuoteOutage {
   // The study's recommendation basis decides which outage the customer is told about: a
-  // two-way terminal is only useful when both directions work (engine.md §4).
+  // two-way terminal is only useful when both directions work (server/engine/README.md §4).
   const f = basis === 'two-way' && option.twoWay ? option.twoWay : option;
   return {
     outagePercent: f.outagePercent,
@@ -83,7 +83,7 @@ export function quoteStudySnapshotOf(study: StudyForQuote): QuoteStudySnapshot {
       transmits: inputs.service.uplink !== null,
     },
     climate: { name: inputs.climate.name, sourceNote: inputs.climate.sourceNote, kind: inputs.climate.kind },
-    // Studies computed before issue 9 have no attenuationModel: they were rain only.
+    // Studies computed by engine 1.0 have no attenuationModel: they were rain only.
     attenuationModel: t.attenuationModel ?? 'rain',
     pointing: { azimuthDeg: t.azimuthDeg, elevationDeg: t.elevationDeg, polarizationSkewDeg: t.polarizationSkewDeg },
     targetAvailabilityPercent: t.recommendation.targetAvailabilityPercent,

@@ -23,7 +23,7 @@ export interface QuoteOutage {
   availabilityPercent: number;
   outageMinutesPerYear: number;
   worstMonthOutageMinutes: number;
-  /** Two-way outage is p_up + p_down, an upper bound on the true figure (engine.md §4). */
+  /** Two-way outage is p_up + p_down, an upper bound on the true figure (server/engine/README.md §4). */
   isUpperBound: boolean;
 }
 
@@ -82,7 +82,7 @@ export interface QuoteStudySnapshot {
   };
   /**
    * 'total': the outages count gases, clouds, rain and scintillation (ITU-R P.618-14 §2.5);
-   * 'rain': rain only. Absent on quotes made before issue 9, which were all rain only.
+   * 'rain': rain only. Absent on quotes of engine-1.0 studies, which were all rain only.
    */
   attenuationModel?: 'total' | 'rain';
   pointing: { azimuthDeg: number; elevationDeg: number; polarizationSkewDeg: number };

@@ -23,7 +23,7 @@ export function downlinkTiltDeg(polarization: ServiceSnapshot['polarization'], o
 }
 
 /**
- * The study's rain climate as the engine's rain input (engine.md §1), with its rain height: the
+ * The study's rain climate as the engine's rain input (server/engine/README.md §1), with its rain height: the
  * profile's own 0 °C isotherm, else the P.839-4 map value at the site (`fallbackIsothermKm`),
  * else (old snapshots only) the engine's latitude approximation.
  */
@@ -46,7 +46,7 @@ export function rainInputOf(climate: ClimateSnapshot, fallbackIsothermKm: number
 }
 
 /**
- * Site + service + climate + the chosen dishes → the engine scenario of dishTradeoff (issue 3).
+ * Site + service + climate + the chosen dishes → the engine scenario of dishTradeoff.
  * Dishes go in ascending diameter so the table reads small to large and the baseline is the smallest.
  */
 export function buildScenario(o: {

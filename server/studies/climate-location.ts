@@ -2,7 +2,7 @@ import type { ClimateSnapshot, SiteSnapshot } from './snapshot';
 
 /** Mean Earth radius R1 of the IUGG, km: enough for a distance stated to the kilometre. */
 const MEAN_EARTH_RADIUS_KM = 6371.0088;
-/** Beyond this distance an override profile is said to be made for somewhere else (issue 9). */
+/** Beyond this distance an override profile is said to be made for somewhere else. */
 export const PROFILE_FAR_FROM_SITE_KM = 100;
 const DEG = Math.PI / 180;
 

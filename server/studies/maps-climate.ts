@@ -23,7 +23,7 @@ export interface MapsClimateData {
 }
 
 /**
- * The rain climate read from the ITU-R digital maps at the site (engine.md §1 default), as a
+ * The rain climate read from the ITU-R digital maps at the site (server/engine/README.md §1 default), as a
  * study snapshot. A site without map data (e.g. 88.9° N) throws EngineInputError on `site.latDeg`,
  * which the study form and the API turn into a 422.
  *

@@ -6,7 +6,7 @@ import { mapsAltitudeM } from './maps-climate';
 
 /**
  * A site's station altitude: the one the user typed in, else the ITU-R P.1511-1 topographic
- * height at its coordinates (engine.md §7), with where it came from so every screen can say so.
+ * height at its coordinates (server/engine/README.md §7), with where it came from so every screen can say so.
  * Where the map has nothing, or gives a height outside the range a site may have, the user is
  * asked to type it in (422 on `altitudeM`), never given a guess.
  *

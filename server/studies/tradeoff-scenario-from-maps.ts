@@ -27,7 +27,7 @@ const hasRainHeight = (rain: NonNullable<TradeoffScenarioInput['rain']>) => rain
 
 /**
  * A validated API scenario → the engine scenario, every missing site figure read from the ITU-R
- * maps at the site's coordinates (engine.md §7; the API's rule is written on the schema):
+ * maps at the site's coordinates (server/engine/README.md §7; the API's rule is written on the schema):
  * altitude (P.1511-1, to 1 m as a study takes it), rain climate (P.837-7 Annex 1 from the maps),
  * rain height (P.839-4) when the given climate has none, and the atmosphere unless the request
  * sends `atmosphere: null`. The maps are read only when something is missing.

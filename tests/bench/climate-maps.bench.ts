@@ -2,7 +2,7 @@
  * ITU-R maps benchmark (`npm run bench:maps`): the first load of all 100 maps (time and resident
  * memory), then the mean time of one siteClimate and one siteAtmosphere look-up over 10 000
  * random sites between 60° S and 70° N (where customers can see a geostationary satellite).
- * Aims (issue 9): look-up ≤ 50 µs, resident memory after loading ≤ 150 MB.
+ * Aims: look-up ≤ 50 µs, resident memory after loading ≤ 150 MB.
  */
 import os from 'node:os';
 import { performance } from 'node:perf_hooks';

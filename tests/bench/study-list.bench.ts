@@ -4,7 +4,7 @@
  * (once; later runs reuse them), then measures on loopback against a RUNNING app:
  *   - GET /api/v1/studies (newest page, deep pages, a search), and
  *   - GET /studies/<id> (the server-rendered study page),
- * and prints p50/p95/max in ms. Aim (issue 5): p95 under 300 ms.
+ * and prints p50/p95/max in ms. Aim: p95 under 300 ms.
  *
  * Env: the database of the app under test (defaults to .local/test.env, i.e. `npm test`'s),
  * BENCH_URL (default APP_URL), BENCH_REQUESTS per measurement (default 200).

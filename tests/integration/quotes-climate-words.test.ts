@@ -14,7 +14,7 @@ import { quoteTerms, sentQuote, studyWorldOf } from './quotes-fixtures';
 import { pdfWords } from './support/pdf-words';
 
 /**
- * The quote PDF and the customer's page say truthfully where the figures come from (issue 9):
+ * The quote PDF and the customer's page say truthfully where the figures come from:
  * the ITU-R maps at the site or a named company profile, gases/clouds/scintillation counted when
  * the study used the total attenuation, "rain only" for quotes made before; the statistics caution
  * stays. The words themselves are unit-tested in tests/unit/quotes/climate-words.test.ts.

@@ -12,7 +12,7 @@ import { dishTradeoff } from '@/server/engine';
 import { createCompany, createUserWithRole, signInAs, type TestCompany } from './support/factories';
 import { createStudyWorld, type StudyWorld } from './studies-fixtures';
 
-/** The JSON routes of part A: roles, company scoping (404 across companies), search and paging, the unsaved trade-off. */
+/** The JSON routes of studies: roles, company scoping (404 across companies), search and paging, the unsaved trade-off. */
 afterAll(closeSequelize);
 
 let home: TestCompany;

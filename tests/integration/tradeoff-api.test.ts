@@ -8,7 +8,7 @@ import { siteAtmosphere, siteClimate } from '@/server/climate-maps';
 import { createCompany, createUserWithRole, signInAs } from './support/factories';
 
 /**
- * POST /api/v1/tradeoff from coordinates alone (issue 9): what the request leaves out is read from
+ * POST /api/v1/tradeoff from coordinates alone: what the request leaves out is read from
  * the ITU-R maps at the site — altitude (P.1511-1), rain climate (P.837-7 Annex 1), rain height
  * (P.839-4), atmosphere (gases, clouds, scintillation) — and checked here against the maps read
  * directly; the explicit climate forms still work; every refusal is a 422 naming the field.

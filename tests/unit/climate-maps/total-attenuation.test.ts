@@ -60,7 +60,7 @@ describe(`cloud attenuation (P.840-8 L_red from the maps × K_l at 0 °C / sin �
   });
 });
 
-describe('laws of the total (engine.md §5, now on the P.618-14 §2.5 total)', () => {
+describe('laws of the total (server/engine/README.md §5, now on the P.618-14 §2.5 total)', () => {
   // Sites between 60° S and 60° N over land and sea, Ku and Ka, realistic paths.
   const siteArb = fc.record({
     latDeg: fc.double({ min: -55, max: 60, noNaN: true }),

@@ -4,7 +4,7 @@ import { siteAtmosphere, siteClimate } from '@/server/climate-maps';
 import { dishTradeoff, type TradeoffScenario } from '@/server/engine';
 import { demoScenario } from '../engine/tradeoff-fixture';
 
-// The trade-off judged on the ITU-R P.618-14 §2.5 total (engine.md §7). No outside figure is
+// The trade-off judged on the ITU-R P.618-14 §2.5 total (server/engine/README.md §7). No outside figure is
 // needed here: the component figures themselves are checked against the SG 3 validation rows in
 // total-attenuation.test.ts; these tests check how the trade-off uses them.
 

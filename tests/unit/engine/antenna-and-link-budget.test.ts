@@ -11,12 +11,12 @@ import {
   systemNoiseTemperature,
 } from '@/server/engine';
 
-// Formulas of engine.md §3–§4: aperture gain and free-space loss are textbook physics
+// Formulas of server/engine/README.md §3–§4: aperture gain and free-space loss are textbook physics
 // (ITU-R P.525 for free space); 70 λ/D beamwidth, 12 (θe/θ3dB)² pointing loss and T_m = 275 K
 // are common practice, no source. Expected values below are worked by hand in the test.
 const C = 299_792_458;
 
-describe('dish gain, beamwidth and pointing loss (engine.md §3)', () => {
+describe('dish gain, beamwidth and pointing loss (server/engine/README.md §3)', () => {
   it('G = 10 log10(η (π D f / c)²): 1.2 m, η 0.65, 12 GHz ≈ 41.70 dBi (hand calculation)', () => {
     const expected = 10 * Math.log10(0.65 * ((Math.PI * 1.2 * 12e9) / C) ** 2);
     expect(dishGain({ diameterM: 1.2, efficiency: 0.65, frequencyGHz: 12 })).toBeCloseTo(expected, 12);
@@ -37,7 +37,7 @@ describe('dish gain, beamwidth and pointing loss (engine.md §3)', () => {
   });
 });
 
-describe('free-space loss and the clear-sky link budget (engine.md §4)', () => {
+describe('free-space loss and the clear-sky link budget (server/engine/README.md §4)', () => {
   it('L_fs = 20 log10(4π d f / c): 38 000 km at 12 GHz ≈ 205.63 dB', () => {
     expect(freeSpaceLoss({ rangeKm: 38000, frequencyGHz: 12 })).toBeCloseTo(20 * Math.log10((4 * Math.PI * 38e6 * 12e9) / C), 10);
     expect(freeSpaceLoss({ rangeKm: 38000, frequencyGHz: 12 })).toBeCloseTo(205.63, 2);
@@ -50,7 +50,7 @@ describe('free-space loss and the clear-sky link budget (engine.md §4)', () => 
   });
 });
 
-describe('noise in rain and the fade threshold (engine.md §4)', () => {
+describe('noise in rain and the fade threshold (server/engine/README.md §4)', () => {
   const rx = { lnbNoiseTempK: 50, antennaNoiseTempK: 30 };
   it('T_sys(A) = T_rx + T_ant 10^(−A/10) + 275 (1 − 10^(−A/10)), T_m default 275 K (common practice)', () => {
     const x = 10 ** -0.3;

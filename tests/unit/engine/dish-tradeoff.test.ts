@@ -33,7 +33,7 @@ function expectEngineError(call: () => unknown, field: string, message?: RegExp)
   }
 }
 
-describe('dishTradeoff: the chain of engine.md §4 for every dish', () => {
+describe('dishTradeoff: the chain of server/engine/README.md §4 for every dish', () => {
   const s = demoScenario();
   const r = dishTradeoff(s);
   const look = geoLookAngles({ latDeg: s.site.latDeg, lonDeg: s.site.lonDeg, altitudeKm: s.site.altitudeKm, satelliteLongitudeDeg: s.satellite.longitudeDeg });
@@ -81,7 +81,7 @@ describe('dishTradeoff: the chain of engine.md §4 for every dish', () => {
   });
 });
 
-describe('economics in decimal.js against the smallest dish (engine.md §5)', () => {
+describe('economics in decimal.js against the smallest dish (server/engine/README.md §5)', () => {
   const s = demoScenario();
   const r = dishTradeoff(s);
   it('price = hardware + labour, exact to the cent', () => {
@@ -127,7 +127,7 @@ describe('economics in decimal.js against the smallest dish (engine.md §5)', ()
   });
 });
 
-describe('rain climate sources (engine.md §1) and rain height (ITU-R P.839-4)', () => {
+describe('rain climate sources (server/engine/README.md §1) and rain height (ITU-R P.839-4)', () => {
   const months = {
     monthlyRainfallMm: [72.6, 69.5, 65.0, 68.0, 48.2, 33.4, 20.5, 34.4, 72.2, 98.5, 112.2, 94.1],
     monthlyTemperatureC: [6.9, 7.3, 9.8, 12.6, 17.1, 21.1, 24.0, 24.1, 20.2, 16.3, 11.5, 8.0],

@@ -22,7 +22,7 @@ describe(`DVB-S2 MODCOD table against ${SOURCE}`, () => {
   });
 });
 
-describe('ACM envelope (engine.md §4)', () => {
+describe('ACM envelope (server/engine/README.md §4)', () => {
   const env = acmEnvelope(DVB_S2_MODCODS);
   it('keeps only MODCODs that beat every more robust one: efficiency and threshold both rise', () => {
     for (let i = 1; i < env.length; i++) {

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { EngineInputError, measuredRainCurve } from '@/server/engine';
 
-// engine.md §1 source 2: interpolate log R linearly in log p; never extrapolate silently.
+// server/engine/README.md §1 source 2: interpolate log R linearly in log p; never extrapolate silently.
 // The points below are invented demo data.
 const POINTS = [
   { pPercent: 1, rainRateMmH: 3 },
@@ -10,7 +10,7 @@ const POINTS = [
   { pPercent: 0.001, rainRateMmH: 95 },
 ];
 
-describe('measuredRainCurve (log-log interpolation, engine.md §1)', () => {
+describe('measuredRainCurve (log-log interpolation, server/engine/README.md §1)', () => {
   const curve = measuredRainCurve({ points: POINTS });
   it('returns measured points exactly', () => {
     for (const pt of POINTS) expect(curve.rainRateAt(pt.pPercent)).toBe(pt.rainRateMmH);

@@ -24,7 +24,7 @@ describe(`ITU-R P.837-1 zone table against ${SOURCE}`, () => {
   });
 });
 
-describe('log-log interpolation between tabulated points (engine.md §1, source 4)', () => {
+describe('log-log interpolation between tabulated points (server/engine/README.md §1, source 4)', () => {
   it('halfway in log p between 0.01 % and 0.03 % gives the geometric mean of the two rates', () => {
     const p = Math.sqrt(0.01 * 0.03);
     expect(climateZoneRainRate({ zone: 'K', pPercent: p })).toBeCloseTo(Math.sqrt(42 * 23), 10);

@@ -3,7 +3,7 @@ import { EngineInputError, rainCoefficients, rainSpecificAttenuation } from '@/s
 import { expectRelative, num, readReferenceCsv } from './reference-csv';
 
 // Source: ITU-R Study Group 3 validation examples for Rec. ITU-R P.838-3 (k, α, γ_R),
-// file itu-p838-3-specific-attenuation.csv; tolerance 1e-4 relative (engine.md §6).
+// file itu-p838-3-specific-attenuation.csv; tolerance 1e-4 relative (server/engine/README.md §6).
 const SOURCE = 'ITU-R SG 3 validation examples, Rec. ITU-R P.838-3';
 const rows = readReferenceCsv('itu-p838-3-specific-attenuation.csv');
 

@@ -3,7 +3,7 @@ import { EngineInputError, RAIN_HEIGHT_ABOVE_ISOTHERM_KM_P839_4, latitudeIsother
 import { readReferenceCsv, num } from './reference-csv';
 
 // ITU-R P.839-4 eq. (1): h_R = h_0 + 0.36 km. The latitude rule for h_0 is that of the older
-// P.839 editions as engine.md §1 states it (values from memory); results from it are labelled
+// P.839 editions as server/engine/README.md §1 states it (values from memory); results from it are labelled
 // 'latitude-approximation'.
 describe('rain height (ITU-R P.839-4)', () => {
   it('h_R = h_0 + 0.36 km', () => {

@@ -2,7 +2,7 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { dishTradeoff, geoLookAngles, rainAttenuation, rainExceedance, type TradeoffScenario } from '@/server/engine';
 
-// The laws of engine.md §5, as fast-check properties over wide input ranges (no source needed:
+// The laws of server/engine/README.md §5, as fast-check properties over wide input ranges (no source needed:
 // they follow from the methods). Runs are seeded so a failure reproduces.
 const RUNS = { numRuns: 300, seed: 20240611 };
 
@@ -86,7 +86,7 @@ const scenarioArb = fc
   }))
   .filter((s) => geoLookAngles({ latDeg: s.site.latDeg, lonDeg: s.site.lonDeg, altitudeKm: s.site.altitudeKm, satelliteLongitudeDeg: s.satellite.longitudeDeg }).elevationDeg > 0.5);
 
-describe('laws of the trade-off (engine.md §5)', () => {
+describe('laws of the trade-off (server/engine/README.md §5)', () => {
   it('a larger dish never has more outage (no pointing error, same efficiency)', () => {
     fc.assert(
       fc.property(scenarioArb, (s) => {

@@ -44,7 +44,7 @@ export function num(row: Record<string, string>, column: string): number {
   return v;
 }
 
-/** The relative tolerance every reference check demands (engine.md §6: 1e-4 or better). */
+/** The relative tolerance every reference check demands (server/engine/README.md §6: 1e-4 or better). */
 export const REFERENCE_RELATIVE_TOLERANCE = 1e-4;
 
 /** |actual/expected − 1| ≤ tol (an expected 0 requires an exact 0). */

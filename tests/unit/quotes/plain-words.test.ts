@@ -3,7 +3,7 @@ import { availabilityInWords, describeOutage, diameterInWords, durationInWords, 
 import { outageFigures } from '@/server/engine/outage-figures';
 import { MINUTES_PER_YEAR } from '@/server/engine/physical-constants';
 
-// Figures built with the engine's own outageFigures (engine.md §4: minutes = p/100 × 525 960,
+// Figures built with the engine's own outageFigures (server/engine/README.md §4: minutes = p/100 × 525 960,
 // worst month by ITU-R P.841), so the words are tested on the shapes the customer page receives.
 const figures = (pPercent: number, bound: 'none' | 'below-model-range' | 'above-model-range' = 'none') => ({ closes: true, ...outageFigures(pPercent, bound) });
 

@@ -57,7 +57,7 @@ describe('computeStudy', () => {
     expect(result.tradeoff.options.map((o) => o.priceUsd)).toEqual(['179.00', '279.00', '419.00']);
   });
 
-  it('a larger dish never has more outage (engine.md §5)', () => {
+  it('a larger dish never has more outage (server/engine/README.md §5)', () => {
     const minutes = result.tradeoff.options.map((o) => o.outageMinutesPerYear);
     expect(minutes[1]).toBeLessThan(minutes[0]);
     expect(minutes[2]).toBeLessThan(minutes[1]);
