@@ -77,11 +77,16 @@ export const DEMO_MEASURED_CURVE = [
   { pPercent: 0.001, rainRateMmH: 72.0 },
 ];
 
+/**
+ * Override profiles of each kind. `location` is the invented place the figures were measured or
+ * made for, on the same invented island, near the demo sites that use them; the legacy zone has
+ * none, so a study on it shows the "made for an unknown place" warning.
+ */
 export const DEMO_CLIMATES = [
-  { key: 'normals', name: 'Brindlewick normals', kind: 'monthly-normals', data: DEMO_NORMALS, zeroIsothermKm: 2.85, sourceNote: 'Invented 30-year monthly normals for the demo town of Brindlewick' },
-  { key: 'curve', name: 'Saltmarrow Quay gauge', kind: 'measured-curve', data: { points: DEMO_MEASURED_CURVE }, zeroIsothermKm: 2.9, sourceNote: 'Invented tipping-bucket gauge record, demo data' },
-  { key: 'r001', name: 'Ottermere hills, known R0.01', kind: 'known-r001', data: { r001MmH: 36 }, zeroIsothermKm: 2.7, sourceNote: 'Invented value for the demo, as if read off the ITU-R P.837 map' },
-  { key: 'zone', name: 'Zone K (legacy)', kind: 'climate-zone', data: { zone: 'K' }, zeroIsothermKm: null, sourceNote: 'ITU-R P.837-1 zone chosen for the demo; no isotherm height, so the latitude approximation applies' },
+  { key: 'normals', name: 'Brindlewick normals', kind: 'monthly-normals', data: DEMO_NORMALS, zeroIsothermKm: 2.85, sourceNote: 'Invented 30-year monthly normals for the demo town of Brindlewick', location: { latDeg: 49.11, lonDeg: -22.43 } },
+  { key: 'curve', name: 'Saltmarrow Quay gauge', kind: 'measured-curve', data: { points: DEMO_MEASURED_CURVE }, zeroIsothermKm: 2.9, sourceNote: 'Invented tipping-bucket gauge record, demo data', location: { latDeg: 47.9, lonDeg: -20.74 } },
+  { key: 'r001', name: 'Ottermere hills, known R0.01', kind: 'known-r001', data: { r001MmH: 36 }, zeroIsothermKm: 2.7, sourceNote: 'Invented value for the demo, as if read off the ITU-R P.837 map', location: { latDeg: 48.65, lonDeg: -21.8 } },
+  { key: 'zone', name: 'Zone K (legacy)', kind: 'climate-zone', data: { zone: 'K' }, zeroIsothermKm: null, sourceNote: 'ITU-R P.837-1 zone chosen for the demo; no isotherm height, so the P.839-4 map value at each site applies', location: null },
 ] as const;
 
 export const DEMO_CUSTOMERS = [
@@ -95,14 +100,17 @@ export const DEMO_CUSTOMERS = [
   { key: 'cobblestep', name: 'Cobblestep Village School', email: 'bursar@cobblestep-school.example', phone: null, sites: [{ key: 'school', name: 'Hall flat roof', address: 'School Lane, Cobblestep', latDeg: 49.702, lonDeg: -22.905, altitudeM: 165 }] },
 ] as const;
 
-/** The demo studies: customer site × service × climate, with the dishes (by name) they compare. */
+/**
+ * The demo studies: customer site × service × climate, with the dishes (by name) they compare.
+ * `climate: 'maps'` is the default source, the ITU-R maps at the site; the others are overrides.
+ */
 export const DEMO_STUDIES = [
   { title: 'Ottermere Lodge — TV upgrade', site: 'ottermere/lodge', service: 'corvid-tv', climate: 'r001', dishes: ['Quill 60', 'Quill 75', 'Quill 90', 'Quill 100', 'Quill 120'], target: 99.95 },
   { title: 'Brindlewick barn — two-way broadband', site: 'brindlewick/barn', service: 'halcyon-broadband', climate: 'normals', dishes: ['Quill 60', 'Quill 75', 'Quill 90', 'Quill 100', 'Quill 120', 'Quill 150', 'Quill 180'], target: 99.9 },
   { title: 'Brindlewick farmhouse — TV', site: 'brindlewick/farmhouse', service: 'corvid-tv', climate: 'normals', dishes: ['Quill 60', 'Quill 75', 'Quill 90'], target: 99.9 },
   { title: 'Saltmarrow Boatyard — TV at the quay', site: 'saltmarrow/yard', service: 'corvid-tv', climate: 'curve', dishes: ['Quill 60', 'Quill 75', 'Quill 90', 'Quill 100'], target: 99.95 },
   { title: 'Fennick garage — broadband backup', site: 'fennick/garage', service: 'halcyon-broadband', climate: 'zone', dishes: ['Quill 75', 'Quill 90', 'Quill 100', 'Quill 120', 'Quill 150'], target: 99.85 },
-  { title: 'Cobblestep School — TV for the hall', site: 'cobblestep/school', service: 'corvid-tv', climate: 'zone', dishes: ['Quill 60', 'Quill 75', 'Quill 90', 'Quill 100', 'Quill 120', 'Quill 150', 'Quill 180'], target: 99.99 },
+  { title: 'Cobblestep School — TV for the hall', site: 'cobblestep/school', service: 'corvid-tv', climate: 'maps', dishes: ['Quill 60', 'Quill 75', 'Quill 90', 'Quill 100', 'Quill 120', 'Quill 150', 'Quill 180'], target: 99.99 },
 ] as const;
 
 /** Bramblecote Aerials' little world (to show that companies never see each other's rows). */
@@ -110,7 +118,7 @@ export const BRAMBLECOTE_DEMO = {
   customer: { name: 'Hollin Row Allotments', email: 'secretary@hollin-row.example' },
   site: { name: 'Tool shed', address: 'Hollin Row, Bramblecote', latDeg: 48.955, lonDeg: -20.288, altitudeM: 40 },
   service: { ...DEMO_SERVICES[0], name: 'Corvid TV (Bramblecote)' },
-  climate: { name: 'Bramblecote known R0.01', kind: 'known-r001', data: { r001MmH: 30 }, zeroIsothermKm: 2.6, sourceNote: 'Invented for the demo' },
+  climate: { name: 'Bramblecote known R0.01', kind: 'known-r001', data: { r001MmH: 30 }, zeroIsothermKm: 2.6, sourceNote: 'Invented for the demo', location: { latDeg: 48.96, lonDeg: -20.3 } },
   dishes: [
     ['Bramble 65', '0.65', '0.63', '85.00', '90.00', 'Wall bracket'],
     ['Bramble 85', '0.85', '0.65', '145.00', '120.00', 'Pole mount'],

@@ -12,7 +12,9 @@ type Ctx = { context: QueryInterface };
 /**
  * The invented studies scenario (db/demo/studies.ts) for `npm start` and the browser tests:
  * Quillfeather's customers, sites, two services, dish catalogue, a climate profile of each kind
- * and studies computed through the real engine; a little of the same for Bramblecote.
+ * (each with the invented place it was made for) and studies computed through the real engine —
+ * on the ITU-R maps at the site, or with a profile as a rain-climate override; a little of the
+ * same for Bramblecote.
  */
 async function companyId(name: string, t: Transaction): Promise<number> {
   const row = await models().Company.findOne({ where: { name }, order: [['id', 'DESC']], transaction: t });
@@ -51,10 +53,23 @@ async function addService(cid: number, form: Record<string, string>, t: Transact
   );
 }
 
-async function addClimate(cid: number, c: { name: string; kind: string; data: unknown; zeroIsothermKm: number | null; sourceNote: string }, t: Transaction) {
-  const v = climateProfileSchema.parse({ ...c, zeroIsothermKm: c.zeroIsothermKm ?? undefined });
+type DemoClimate = { name: string; kind: string; data: unknown; zeroIsothermKm: number | null; sourceNote: string; location: { latDeg: number; lonDeg: number } | null };
+
+async function addClimate(cid: number, c: DemoClimate, t: Transaction) {
+  const { location, ...rest } = c;
+  const v = climateProfileSchema.parse({ ...rest, zeroIsothermKm: c.zeroIsothermKm ?? undefined, latDeg: location?.latDeg, lonDeg: location?.lonDeg });
   return models().ClimateProfile.create(
-    { companyId: cid, name: v.name, kind: v.kind, data: v.data, zeroIsothermKm: v.zeroIsothermKm === undefined ? null : v.zeroIsothermKm.toFixed(3), sourceNote: v.sourceNote, uploadId: null },
+    {
+      companyId: cid,
+      name: v.name,
+      kind: v.kind,
+      data: v.data,
+      zeroIsothermKm: v.zeroIsothermKm === undefined ? null : v.zeroIsothermKm.toFixed(3),
+      sourceNote: v.sourceNote,
+      latDeg: v.latDeg === undefined ? null : v.latDeg.toFixed(5),
+      lonDeg: v.lonDeg === undefined ? null : v.lonDeg.toFixed(5),
+      uploadId: null,
+    },
     { transaction: t },
   );
 }
@@ -69,13 +84,13 @@ async function addDishes(cid: number, rows: readonly (readonly string[])[], t: T
 
 async function addStudy(
   cid: number,
-  o: { title: string; customer: { id: number; name: string }; site: Awaited<ReturnType<ReturnType<typeof models>['Site']['create']>>; service: Awaited<ReturnType<typeof addService>>; climate: Awaited<ReturnType<typeof addClimate>>; dishes: Awaited<ReturnType<typeof addDishes>>; target: number; userId: string | null; createdAt: Date },
+  o: { title: string; customer: { id: number; name: string }; site: Awaited<ReturnType<ReturnType<typeof models>['Site']['create']>>; service: Awaited<ReturnType<typeof addService>>; climate: Awaited<ReturnType<typeof addClimate>> | null; dishes: Awaited<ReturnType<typeof addDishes>>; target: number; userId: string | null; createdAt: Date },
   t: Transaction,
 ) {
   const { inputs, result } = computeStudy({
     site: siteSnapshotOf(o.site, o.customer.name),
     service: serviceSnapshotOf(o.service),
-    climate: climateSnapshotOf(o.climate),
+    climate: o.climate ? climateSnapshotOf(o.climate) : null,
     dishes: o.dishes.map(dishSnapshotOf),
     targetAvailabilityPercent: o.target,
     now: o.createdAt,
@@ -87,7 +102,7 @@ async function addStudy(
       customerId: o.customer.id,
       siteId: o.site.id,
       serviceProfileId: o.service.id,
-      climateProfileId: o.climate.id,
+      climateProfileId: o.climate?.id ?? null,
       revisionOfStudyId: null,
       revision: 1,
       title: o.title,
@@ -117,7 +132,7 @@ export async function up({ context: qi }: Ctx): Promise<void> {
     const services = new Map<string, Awaited<ReturnType<typeof addService>>>();
     for (const s of DEMO_SERVICES) services.set(s.key, await addService(q, { ...s } as unknown as Record<string, string>, t));
     const climates = new Map<string, Awaited<ReturnType<typeof addClimate>>>();
-    for (const c of DEMO_CLIMATES) climates.set(c.key, await addClimate(q, c as unknown as Parameters<typeof addClimate>[1], t));
+    for (const c of DEMO_CLIMATES) climates.set(c.key, await addClimate(q, c as unknown as DemoClimate, t));
     const dishes = await addDishes(q, DEMO_DISHES, t);
     const customers = new Map<string, { id: number; name: string }>();
     const sites = new Map<string, Awaited<ReturnType<ReturnType<typeof models>['Site']['create']>>>();
@@ -142,7 +157,7 @@ export async function up({ context: qi }: Ctx): Promise<void> {
           customer: customers.get(s.site.split('/')[0])!,
           site: sites.get(s.site)!,
           service: services.get(s.service)!,
-          climate: climates.get(s.climate)!,
+          climate: s.climate === 'maps' ? null : climates.get(s.climate)!,
           dishes: dishes.filter((d) => (s.dishes as readonly string[]).includes(d.name)),
           target: s.target,
           userId: installer,
@@ -162,7 +177,7 @@ export async function up({ context: qi }: Ctx): Promise<void> {
       { transaction: t },
     );
     const bService = await addService(b, { ...bd.service } as unknown as Record<string, string>, t);
-    const bClimate = await addClimate(b, bd.climate as unknown as Parameters<typeof addClimate>[1], t);
+    const bClimate = await addClimate(b, bd.climate as unknown as DemoClimate, t);
     const bDishes = await addDishes(b, bd.dishes, t);
     await addStudy(b, { title: bd.study.title, customer: { id: bCustomer.id, name: bCustomer.name }, site: bSite, service: bService, climate: bClimate, dishes: bDishes, target: bd.study.target, userId: bAdmin, createdAt: new Date(now - 86_400_000) }, t);
   });

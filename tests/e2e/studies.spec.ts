@@ -56,7 +56,8 @@ test('an installer builds a study from the form and reads the trade-off', async 
   await expect(page.getByRole('heading', { name: 'Pointing' })).toBeVisible();
   await expect(page.getByText('ITU-R P.837-7 Annex 1 from monthly rainfall and temperature normals')).toBeVisible();
   await expect(page.getByRole('img', { name: /Outage minutes per year against dish diameter/ })).toBeVisible();
-  await expect(page.getByRole('img', { name: /Downlink rain attenuation exceeded/ })).toBeVisible();
+  // Since the site's own climate the curve is the total attenuation (gases, clouds, rain, scintillation).
+  await expect(page.getByRole('img', { name: /Downlink total attenuation exceeded/ })).toBeVisible();
   await expect(page.getByText('Statistics, not guarantees')).toBeVisible();
   const quote = page.getByRole('link', { name: 'Create quote' });
   await expect(quote).toHaveAttribute('href', /^\/quotes\/new\?study=\d+&option=\d$/);
