@@ -2,14 +2,26 @@ import { afterAll, describe, expect, it } from 'vitest';
 import type Stripe from 'stripe';
 import { models } from '@/db/models';
 import { closeSequelize } from '@/db/sequelize';
-import { POST as webhook } from '@/app/api/webhooks/stripe/route';
-import { changePlan, openBillingPortal, startCheckout, type BillingActor } from '@/server/billing/checkout';
+import { changePlan, openBillingPortal, startCheckout } from '@/server/billing/checkout';
 import { getPlanLimits } from '@/server/billing/limits';
 import { syncPlanToProvider } from '@/server/billing/plan-sync';
 import { getStripe } from '@/server/billing/stripe';
 import { isHandledEventType } from '@/server/billing/webhook';
-import { createUserWithRole } from './support/factories';
-import { companyPlanId, createBillingCompany, eventOf, planIdByCode, rand, subscriptionRow, webhookRequest } from './billing-fixtures';
+import {
+  actorFor,
+  companyPlanId,
+  createBillingCompany,
+  deliver,
+  eventOf,
+  eventsAbout,
+  fakeHook,
+  hideMadePlans,
+  newPaidPlan,
+  payOnHostedPage,
+  planIdByCode,
+  rand,
+  subscriptionRow,
+} from './billing-fixtures';
 
 /**
  * The whole subscription flow through the official SDK against the local Stripe-compatible
@@ -17,53 +29,10 @@ import { companyPlanId, createBillingCompany, eventOf, planIdByCode, rand, subsc
  * page, plan change, a failed renewal and its recovery, cancellation in the portal. The events the
  * provider sent are then delivered to our webhook route in a chosen order.
  */
-const madePlans: number[] = [];
 afterAll(async () => {
-  // Keep the shared test database's plan picker clean for the browser tests.
-  if (madePlans.length) await models().Plan.update({ isPublic: false }, { where: { id: madePlans } });
+  await hideMadePlans();
   await closeSequelize();
 });
-
-const fakeBase = () => `${process.env.STRIPE_API_PROTOCOL ?? 'http'}://${process.env.STRIPE_API_HOST}:${process.env.STRIPE_API_PORT}`;
-
-async function newPaidPlan(price: string, seats = 3) {
-  const { Plan } = models();
-  const code = `bc-${rand()}`;
-  const plan = await Plan.create({
-    code, name: `Checkout test ${code}`, description: 'Invented plan for a billing test.', monthlyPriceUsd: price, seatLimit: seats, studiesPerMonth: 40,
-    activeLinksLimit: 8, uploadsPerMonth: 4, apiAccess: false, quoteBranding: true, kind: 'paid', trialDays: null, isPublic: true, sortOrder: 95,
-    stripeProductId: null, stripePriceId: null,
-  });
-  madePlans.push(plan.id);
-  return plan;
-}
-
-async function actorFor(companyId: number): Promise<BillingActor> {
-  const admin = await createUserWithRole(companyId, 'admin');
-  return { companyId, userId: admin.id, email: admin.email };
-}
-
-/** Events the provider sent about these objects, oldest first (the API lists newest first). */
-async function eventsAbout(ids: string[], types?: string[]): Promise<Stripe.Event[]> {
-  const all: Stripe.Event[] = [];
-  for await (const e of getStripe().events.list({ limit: 100 })) {
-    const obj = e.data.object as { id?: string; customer?: string; subscription?: string; parent?: { subscription_details?: { subscription?: string } } };
-    const related = [obj.id, obj.customer, obj.subscription, obj.parent?.subscription_details?.subscription].some((v) => v && ids.includes(v));
-    if (related && (!types || types.includes(e.type))) all.push(e);
-    if (all.length > 200) break;
-  }
-  return all.reverse();
-}
-
-async function deliver(event: object) {
-  const res = await webhook(webhookRequest(event));
-  return { status: res.status, outcome: ((await res.json()) as { outcome?: string }).outcome };
-}
-
-async function fakeHook(path: string) {
-  const res = await fetch(`${fakeBase()}${path}`, { method: 'POST' });
-  expect(res.status, `${path} → ${res.status}`).toBe(200);
-}
 
 describe('plan sync to the provider', () => {
   it('creates product and monthly price; the same amount keeps the price; a new amount makes a new price and archives the old', async () => {
@@ -119,7 +88,7 @@ describe('checkout → webhooks → active plan → change → failed renewal �
     expect(session.customer).toMatch(/^cus_/);
 
     // 2. Pay on the hosted test page, as the browser would.
-    const paid = await fetch(`${url}/pay`, { method: 'POST', redirect: 'manual', headers: { 'content-type': 'application/x-www-form-urlencoded' }, body: '' });
+    const paid = await payOnHostedPage(url);
     expect(paid.status).toBe(303);
     expect(paid.headers.get('location')).toBe(`${process.env.APP_URL}/settings/billing/return?session_id=${sessionId}`);
     const subId = (await getStripe().checkout.sessions.retrieve(sessionId)).subscription as string;

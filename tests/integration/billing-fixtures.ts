@@ -1,11 +1,18 @@
 import { randomBytes } from 'node:crypto';
 import Stripe from 'stripe';
+import { expect } from 'vitest';
 import { models } from '@/db/models';
+import { POST as webhook } from '@/app/api/webhooks/stripe/route';
+import type { BillingActor } from '@/server/billing/checkout';
+import { getStripe } from '@/server/billing/stripe';
+import { createUserWithRole } from './support/factories';
 
 /**
  * Billing fixtures for integration tests: plans with provider ids of their own (so a test never
- * touches the seeded catalogue's ids), companies with a provider customer id, and Stripe-shaped
- * events signed exactly as the provider signs them (the SDK's own test header).
+ * touches the seeded catalogue's ids), companies with a provider customer id, Stripe-shaped
+ * events signed exactly as the provider signs them (the SDK's own test header), and the round
+ * trip through the test services' payments fake: its events about some objects, delivered to our
+ * webhook route, and its /_fake test hooks.
  */
 export const rand = () => randomBytes(5).toString('hex');
 
@@ -104,4 +111,63 @@ export async function subscriptionRow(providerSubscriptionId: string) {
 export async function webhookEventRow(providerEventId: string) {
   const { WebhookEvent } = models();
   return WebhookEvent.findOne({ where: { providerEventId } });
+}
+
+// ---- through the payments fake the test services run ------------------------------------------
+
+/** Paid plans a test made, public so the checkout offers them; `hideMadePlans` in afterAll. */
+const madePlans: number[] = [];
+
+/** A public paid plan with no provider ids yet: the first checkout syncs it to the provider. */
+export async function newPaidPlan(price: string, seats = 3) {
+  const { Plan } = models();
+  const code = `bc-${rand()}`;
+  const plan = await Plan.create({
+    code, name: `Checkout test ${code}`, description: 'Invented plan for a billing test.', monthlyPriceUsd: price, seatLimit: seats, studiesPerMonth: 40,
+    activeLinksLimit: 8, uploadsPerMonth: 4, apiAccess: false, quoteBranding: true, kind: 'paid', trialDays: null, isPublic: true, sortOrder: 95,
+    stripeProductId: null, stripePriceId: null,
+  });
+  madePlans.push(plan.id);
+  return plan;
+}
+
+/** Keeps the shared test database's plan picker clean for the browser tests. */
+export async function hideMadePlans(): Promise<void> {
+  if (madePlans.length) await models().Plan.update({ isPublic: false }, { where: { id: madePlans } });
+}
+
+export async function actorFor(companyId: number): Promise<BillingActor> {
+  const admin = await createUserWithRole(companyId, 'admin');
+  return { companyId, userId: admin.id, email: admin.email };
+}
+
+export const fakeBase = () => `${process.env.STRIPE_API_PROTOCOL ?? 'http'}://${process.env.STRIPE_API_HOST}:${process.env.STRIPE_API_PORT}`;
+
+/** POSTs a /_fake test hook (never part of the Stripe API) and expects it to succeed. */
+export async function fakeHook(path: string) {
+  const res = await fetch(`${fakeBase()}${path}`, { method: 'POST' });
+  expect(res.status, `${path} → ${res.status}`).toBe(200);
+}
+
+/** Pays a checkout on the provider's hosted test page, as the browser would. */
+export async function payOnHostedPage(checkoutUrl: string): Promise<Response> {
+  return fetch(`${checkoutUrl}/pay`, { method: 'POST', redirect: 'manual', headers: { 'content-type': 'application/x-www-form-urlencoded' }, body: '' });
+}
+
+/** Events the provider sent about these objects, oldest first (the API lists newest first). */
+export async function eventsAbout(ids: string[], types?: string[]): Promise<Stripe.Event[]> {
+  const all: Stripe.Event[] = [];
+  for await (const e of getStripe().events.list({ limit: 100 })) {
+    const obj = e.data.object as { id?: string; customer?: string; subscription?: string; parent?: { subscription_details?: { subscription?: string } } };
+    const related = [obj.id, obj.customer, obj.subscription, obj.parent?.subscription_details?.subscription].some((v) => v && ids.includes(v));
+    if (related && (!types || types.includes(e.type))) all.push(e);
+    if (all.length > 200) break;
+  }
+  return all.reverse();
+}
+
+/** Delivers an event to our webhook route, signed; its HTTP status and our outcome. */
+export async function deliver(event: object) {
+  const res = await webhook(webhookRequest(event));
+  return { status: res.status, outcome: ((await res.json()) as { outcome?: string }).outcome };
 }
