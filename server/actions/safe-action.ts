@@ -20,7 +20,12 @@ export type SafeAction<T> = (prev: ActionState<T> | null, input: ActionInput) =>
 
 export type ActionResult<T> = { data?: T; message?: string } | void;
 
-const SECRET_FIELD = /pass|token|secret|code/i;
+/**
+ * Field names that may hold a secret: passwords under any name (current, confirm, repeat, pwd…),
+ * link tokens, codes, keys. Matching is by substring, so a new field called "newPassword" or
+ * "confirmPin" is covered without anyone remembering to list it.
+ */
+const SECRET_FIELD = /pass|pwd|current|confirm|repeat|token|secret|code|key|otp|pin|cvc|cvv|card/i;
 
 /** FormData to a plain object: repeated names become arrays; Next's internal fields are dropped. */
 export function formDataToObject(form: FormData): Record<string, unknown> {
@@ -33,9 +38,19 @@ export function formDataToObject(form: FormData): Record<string, unknown> {
   return out;
 }
 
-function echoValues(raw: Record<string, unknown>): Record<string, string> {
+/**
+ * What a failed action sends back so its form can be refilled: only string fields whose name is
+ * not secret-like, and never a value that equals a secret field's value of six characters or
+ * more (a password retyped into a field with an innocent name still stays out of the answer).
+ */
+export function echoValues(raw: Record<string, unknown>): Record<string, string> {
+  const secrets = new Set<string>();
+  for (const [k, v] of Object.entries(raw)) if (typeof v === 'string' && v.length >= 6 && SECRET_FIELD.test(k)) secrets.add(v);
   const values: Record<string, string> = {};
-  for (const [k, v] of Object.entries(raw)) if (typeof v === 'string' && !SECRET_FIELD.test(k)) values[k] = v.slice(0, 2000);
+  for (const [k, v] of Object.entries(raw)) {
+    if (typeof v !== 'string' || SECRET_FIELD.test(k) || secrets.has(v)) continue;
+    values[k] = v.slice(0, 2000);
+  }
   return values;
 }
 
