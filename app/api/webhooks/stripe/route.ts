@@ -1,4 +1,5 @@
 import { NextResponse } from 'next/server';
+import { readBodyCapped } from '@/server/http/capped-body';
 import { isHandledEventType, receiveWebhookEvent, verifyWebhook, WebhookSignatureError } from '@/server/billing/webhook';
 
 // The provider's servers call this, not a signed-in person: the signature is the authentication.
@@ -11,11 +12,12 @@ const MAX_BODY_BYTES = 512 * 1024;
 const json = (body: unknown, status: number) => NextResponse.json(body, { status, headers: { 'Cache-Control': 'no-store' } });
 
 export async function POST(req: Request): Promise<Response> {
-  const declared = Number(req.headers.get('content-length') ?? 0);
-  if (declared > MAX_BODY_BYTES) return json({ error: { code: 'too_large', message: 'Payload too large.' } }, 413);
-  // The signature covers the exact bytes: read the raw text, never a re-serialised JSON body.
-  const raw = await req.text();
-  if (Buffer.byteLength(raw) > MAX_BODY_BYTES) return json({ error: { code: 'too_large', message: 'Payload too large.' } }, 413);
+  // Streamed with a hard cap: a chunked body without Content-Length is cut off at the cap, not
+  // buffered whole first. The signature covers the exact bytes, so the raw text is what we keep.
+  // (proxy.ts leaves this path alone: a proxy in front would make Next buffer the body itself.)
+  const body = await readBodyCapped(req, MAX_BODY_BYTES);
+  if (!body.ok) return json({ error: { code: 'too_large', message: 'Payload too large.' } }, 413);
+  const raw = body.text;
 
   let event;
   try {
