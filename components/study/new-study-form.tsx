@@ -10,13 +10,14 @@ import { FormStatus } from '@/components/ui/form-status';
 import { SelectInput, TextInput } from './form-fields';
 import { useValidatedAction } from './use-validated-action';
 import { diameterLabel, usd } from './format';
+import { greatCircleKm, PROFILE_FAR_FROM_SITE_KM } from '@/server/studies/climate-location';
 
 export type NewStudyOptions = {
   customers: { id: number; name: string }[];
-  sites: { id: number; name: string; customerId: number }[];
+  sites: { id: number; name: string; customerId: number; latDeg: number; lonDeg: number }[];
   services: { id: number; name: string; satelliteName: string; slot: string; frequencyGHz: number }[];
   /** Override profiles of the rain climate; the ITU-R maps at the site are the default (`mapsName`). */
-  climates: { id: number; name: string; kindLabel: string; place: string }[];
+  climates: { id: number; name: string; kindLabel: string; place: string; location: { latDeg: number; lonDeg: number } | null }[];
   mapsName: string;
   dishes: { id: number; name: string; diameterM: number; price: string }[];
 };
@@ -26,6 +27,22 @@ function CoordinateEcho({ text, axis }: { text: string; axis: 'lat' | 'lon' }) {
   if (!text.trim()) return null;
   const r = parseCoordinate(text, axis);
   return <span className={r.ok ? 'text-stone-600' : 'text-amber-800'}>{r.ok ? `= ${r.value}° (${formatDms(r.value, axis)})` : r.error}</span>;
+}
+
+const CLIMATE_HINT = 'Gases, clouds and scintillation always come from the ITU-R maps at the site; a profile replaces the rain climate only.';
+
+/** Under the climate box: how far the chosen override profile was made from the site, before the study is computed. */
+function ClimateHint({ profile, site }: { profile: NewStudyOptions['climates'][number] | undefined; site: { latDeg: number; lonDeg: number } | null }) {
+  if (!profile) return <>{CLIMATE_HINT}</>;
+  if (!profile.location) return <span className="text-amber-800">Made for an unknown place: check that its figures belong to this site. {CLIMATE_HINT}</span>;
+  if (!site) return <>{CLIMATE_HINT}</>;
+  const km = Math.round(greatCircleKm(site, profile.location));
+  const far = km > PROFILE_FAR_FROM_SITE_KM;
+  return (
+    <span className={far ? 'text-amber-800' : undefined}>
+      Made for a place {km.toLocaleString('en-US')} km from this site{far ? ': its rain figures may not describe it' : ''}. {CLIMATE_HINT}
+    </span>
+  );
 }
 
 function Radio({ name, value, checked, onChange, children }: { name: string; value: string; checked: boolean; onChange: (v: string) => void; children: string }) {
@@ -51,11 +68,17 @@ export function NewStudyForm({ options, preset }: { options: NewStudyOptions; pr
   const [siteId, setSiteId] = useState(preset?.siteId ? String(preset.siteId) : '');
   const [lat, setLat] = useState('');
   const [lon, setLon] = useState('');
+  const [climateId, setClimateId] = useState<string>(MAPS_CLIMATE_VALUE);
 
   const sitesOfCustomer = useMemo(() => options.sites.filter((s) => String(s.customerId) === customerId), [options.sites, customerId]);
   const pickingCustomer = customerMode === 'existing' && customerId === '';
   const showSiteChoice = customerMode === 'existing' && !pickingCustomer && sitesOfCustomer.length > 0;
   const newSite = !pickingCustomer && (customerMode === 'new' || siteMode === 'new' || sitesOfCustomer.length === 0);
+  // Where the study's site is, as far as the form knows yet: typed coordinates, or the picked site's.
+  const typedLat = parseCoordinate(lat, 'lat');
+  const typedLon = parseCoordinate(lon, 'lon');
+  const picked = options.sites.find((s) => String(s.id) === siteId);
+  const siteAt = newSite ? (typedLat.ok && typedLon.ok ? { latDeg: typedLat.value, lonDeg: typedLon.value } : null) : picked ? { latDeg: picked.latDeg, lonDeg: picked.lonDeg } : null;
 
   useEffect(() => {
     if (state?.ok && state.data && typeof (state.data as { id?: number }).id === 'number') router.push(`/studies/${(state.data as { id: number }).id}`);
@@ -166,12 +189,13 @@ export function NewStudyForm({ options, preset }: { options: NewStudyOptions; pr
         <SelectInput
           label="Rain climate"
           name="climateProfileId"
-          defaultValue={MAPS_CLIMATE_VALUE}
+          value={climateId}
+          onChange={(e) => setClimateId(e.target.value)}
           options={[
             { value: MAPS_CLIMATE_VALUE, label: options.mapsName },
             ...options.climates.map((c) => ({ value: String(c.id), label: `${c.name} (${c.kindLabel}; made for ${c.place})` })),
           ]}
-          hint="Gases, clouds and scintillation always come from the ITU-R maps at the site; a profile replaces the rain climate only."
+          hint={<ClimateHint profile={options.climates.find((c) => String(c.id) === climateId)} site={siteAt} />}
           errors={errors.climateProfileId}
         />
       </fieldset>

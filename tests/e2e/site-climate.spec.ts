@@ -44,6 +44,8 @@ async function studyFromCoordinates(page: Page, id: string, o: { profile?: strin
   if (o.profile) {
     const option = page.locator('select[name=climateProfileId] option', { hasText: o.profile }).first();
     await climate.selectOption((await option.getAttribute('value'))!);
+    // The form already says how far from the typed site the profile was made.
+    await expect(page.getByText(/Made for a place 1,9\d\d km from this site: its rain figures may not describe it/)).toBeVisible();
   } else {
     await expect(climate.locator('option:checked')).toHaveText("From the site's coordinates (ITU-R maps)");
   }

@@ -9,6 +9,7 @@ import { insertStudy } from '@/db/queries/studies';
 import * as studyActions from '@/server/actions/studies';
 import * as siteActions from '@/server/actions/sites';
 import * as climateActions from '@/server/actions/climate';
+import { confirmClimateUpload } from '@/server/actions/uploads';
 import { MAP_DATA_VERSION, siteClimate } from '@/server/climate-maps';
 import { dishTradeoff } from '@/server/engine';
 import { buildScenario } from '@/server/studies/build-scenario';
@@ -165,6 +166,19 @@ describe('a company profile overrides the rain climate only', () => {
     expect(text).toContain(`was made for a place ${Math.round(km).toLocaleString('en-US')} km from this site`);
     expect(text).toMatch(new RegExp(`R0\\.01\\) 41\\.0 mm/h given in the profile · from profile “${name}”`));
     expect(text).toMatch(/0 °C isotherm height h0 [\d.]+ km ITU-R P\.839-4 · from the ITU-R maps at the site/);
+  });
+
+  it('an uploaded measured curve keeps the place it was measured for', async () => {
+    asUser(admin);
+    const file = new File(['p_percent,rain_rate_mm_h\n1,2.5\n0.1,11\n0.01,34\n0.001,70\n'], 'gauge.csv', { type: 'text/csv' });
+    const out = await callAction(confirmClimateUpload, { kind: 'rain-curve', file, name: `Quay gauge ${suffix()}`, sourceNote: 'invented gauge', latDeg: `47°54'N`, lonDeg: '20.74 W' });
+    expect(out.state).toMatchObject({ ok: true });
+    const id = (out.state as { data: { climateProfileId: number } }).data.climateProfileId;
+    const row = await models().ClimateProfile.findByPk(id);
+    expect([row!.kind, row!.latDeg, row!.lonDeg]).toEqual(['measured-curve', '47.90000', '-20.74000']);
+    // Half a place is refused, naming the missing box; nothing is saved.
+    const half = await callAction(confirmClimateUpload, { kind: 'rain-curve', file, name: 'Half a place', sourceNote: 'invented', latDeg: '47.9' });
+    expect(half.state).toMatchObject({ ok: false, fieldErrors: { lonDeg: ['Give the longitude too, or leave both blank.'] } });
   });
 
   it('made nearby: no warning; with no place stored: "made for an unknown place"', async () => {

@@ -29,13 +29,14 @@ export default async function NewStudyPage({ searchParams }: { searchParams: Pro
   ]);
   const options: NewStudyOptions = {
     customers,
-    sites: sites.map((s) => ({ id: s.id, name: s.name, customerId: s.customerId })),
+    sites: sites.map((s) => ({ id: s.id, name: s.name, customerId: s.customerId, latDeg: s.latDeg, lonDeg: s.lonDeg })),
     services: services.map((s) => ({ id: s.id, name: s.name, satelliteName: s.satelliteName, slot: orbitalSlot(Number(s.satelliteLongitudeDeg)), frequencyGHz: Number(s.downlinkFrequencyGhz) })),
     climates: climates.map((c) => ({
       id: c.id,
       name: c.name,
       kindLabel: CLIMATE_KIND_LABELS[c.kind],
       place: c.latDeg === null || c.lonDeg === null ? 'an unknown place' : `${formatDms(Number(c.latDeg), 'lat')}, ${formatDms(Number(c.lonDeg), 'lon')}`,
+      location: c.latDeg === null || c.lonDeg === null ? null : { latDeg: Number(c.latDeg), lonDeg: Number(c.lonDeg) },
     })),
     mapsName: MAPS_CLIMATE_NAME,
     dishes: dishes.map((d) => ({ id: d.id, name: d.name, diameterM: Number(d.diameterM), price: (Number(d.hardwarePrice) + Number(d.labourPrice)).toFixed(2) })),
