@@ -23,10 +23,32 @@ load_env() {
   . "$LOCAL/secrets.env"
   [ "$profile" != test ] && [ -f "$ROOT/.env" ] && . "$ROOT/.env"
   export NEXT_TELEMETRY_DISABLED=1
+  apply_port_offset
   set +a
   MARIADB_DIR="$LOCAL/mariadb"
   MARIADB_SOCK="$RUN/mariadb.sock"
   MARIADB_PID="$RUN/mariadb.pid"
+}
+
+# FADELEDGER_PORT_OFFSET=N moves every port of the profile by N, so a second checkout (a fresh
+# clone checked next to a running one) can run its own services side by side.
+apply_port_offset() {
+  local n="${FADELEDGER_PORT_OFFSET:-0}"
+  [[ "$n" =~ ^[0-9]+$ ]] || fail "FADELEDGER_PORT_OFFSET must be a whole number; got '$n'"
+  [ "$n" = 0 ] && return 0
+  APP_PORT=$((APP_PORT + n)); DATABASE_PORT=$((DATABASE_PORT + n)); SMTP_PORT=$((SMTP_PORT + n))
+  MAIL_WEB_PORT=$((MAIL_WEB_PORT + n)); STRIPE_API_PORT=$((STRIPE_API_PORT + n)); STRIPE_FAKE_PORT=$((STRIPE_FAKE_PORT + n))
+  APP_URL="$(printf '%s' "$APP_URL" | sed -E "s#:[0-9]+\$#:$APP_PORT#")"
+  say "ports moved by $n (FADELEDGER_PORT_OFFSET): app $APP_PORT, MariaDB $DATABASE_PORT, mail $SMTP_PORT/$MAIL_WEB_PORT, payments $STRIPE_FAKE_PORT"
+}
+
+# require_port_free PORT WHAT — a port held by something that is not ours gets a clear message
+# (typically another checkout's `npm start` or `npm test`), not a confusing start-up failure.
+require_port_free() {
+  local port="$1" what="$2"
+  if (exec 3<>"/dev/tcp/127.0.0.1/$port") 2>/dev/null; then
+    fail "port $port ($what) is already taken by another process — probably another FadeLedger checkout's \`npm start\` or \`npm test\`. Stop it (Ctrl-C in its terminal, or \`bash docker-local/services.sh stop\` there), or run this one with FADELEDGER_PORT_OFFSET=200 to move every port."
+  fi
 }
 
 ensure_secrets() {
@@ -81,6 +103,7 @@ start_mariadb() {
     say "MariaDB already running on 127.0.0.1:$DATABASE_PORT (reusing it)"
     return 0
   fi
+  require_port_free "$DATABASE_PORT" "MariaDB"
   say "starting MariaDB on 127.0.0.1:$DATABASE_PORT"
   setsid /usr/sbin/mariadbd --no-defaults --user="$(id -un)" --datadir="$MARIADB_DIR" --socket="$MARIADB_SOCK" \
     --pid-file="$MARIADB_PID" --bind-address=127.0.0.1 --port="$DATABASE_PORT" --log-error="$RUN/mariadb.err" \
@@ -137,6 +160,12 @@ start_bg() {
   STARTED+=("$name")
 }
 
+# service_running NAME — a service of this checkout is already up (start_bg will reuse it).
+service_running() {
+  local pidfile="$RUN/$1.pid"
+  [ -f "$pidfile" ] && kill -0 "$(cat "$pidfile")" 2>/dev/null
+}
+
 stop_bg() {
   local name="$1" pidfile="$RUN/$1.pid"
   [ -f "$pidfile" ] || return 0
@@ -164,12 +193,14 @@ wait_http() {
 }
 
 start_mail() {
+  service_running "mail-$PROFILE" || { require_port_free "$SMTP_PORT" "mail catcher SMTP"; require_port_free "$MAIL_WEB_PORT" "mail catcher inbox"; }
   start_bg "mail-$PROFILE" node "$ROOT/node_modules/maildev/dist/bin/maildev.js" --ip 127.0.0.1 --web-ip 127.0.0.1 -s "$SMTP_PORT" -w "$MAIL_WEB_PORT" --silent
   wait_http "http://127.0.0.1:$MAIL_WEB_PORT/api/email" 20 "mail-$PROFILE"
   say "mail catcher: smtp 127.0.0.1:$SMTP_PORT, inbox http://127.0.0.1:$MAIL_WEB_PORT/"
 }
 
 start_payments() {
+  service_running "payments-$PROFILE" || require_port_free "$STRIPE_FAKE_PORT" "payments fake"
   STRIPE_FAKE_WEBHOOK_URL="$APP_URL/api/webhooks/stripe" STRIPE_FAKE_PUBLIC_URL="http://127.0.0.1:$STRIPE_FAKE_PORT" \
     start_bg "payments-$PROFILE" node "$ROOT/node_modules/tsx/dist/cli.mjs" "$ROOT/docker-local/stripe-fake/server.ts"
   wait_http "http://127.0.0.1:$STRIPE_FAKE_PORT/_fake/health" 30 "payments-$PROFILE"
@@ -188,6 +219,7 @@ build_if_needed() {
 }
 
 start_app() {
+  service_running "app-$PROFILE" || require_port_free "$APP_PORT" "app"
   start_bg "app-$PROFILE" node "$ROOT/node_modules/next/dist/bin/next" start -p "$APP_PORT"
   wait_http "http://127.0.0.1:$APP_PORT/api/health" 60 "app-$PROFILE"
 }

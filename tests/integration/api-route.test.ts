@@ -35,7 +35,7 @@ describe('apiRoute', () => {
     const bad = await echo(apiRequest('/x', { method: 'POST', json: { name: 'a', count: -1 } }), noParams);
     expect(bad.status).toBe(422);
     expect((await bad.json()).error).toMatchObject({ code: 'invalid_input', fieldErrors: { name: expect.any(Array), count: expect.any(Array) } });
-    const notJson = await echo(new Request('http://localhost:3100/x', { method: 'POST', headers: { 'content-type': 'application/json', cookie: apiRequest('/').headers.get('cookie')! }, body: '{oops' }), noParams);
+    const notJson = await echo(new Request(`${process.env.APP_URL ?? 'http://localhost:3100'}/x`, { method: 'POST', headers: { 'content-type': 'application/json', cookie: apiRequest('/').headers.get('cookie')! }, body: '{oops' }), noParams);
     expect(notJson.status).toBe(422);
     const good = await echo(apiRequest('/x', { method: 'POST', json: { name: 'ok', count: '3' } }), noParams);
     expect(good.status).toBe(200);
@@ -48,7 +48,7 @@ describe('apiRoute', () => {
     asUser(await signInAs(await createUserWithRole(company.id, 'installer')));
     const res = await echo(apiRequest('/x', { method: 'POST', json: { name: 'ok', count: 1 }, headers: { origin: 'https://evil.example' } }), noParams);
     expect(res.status).toBe(403);
-    const same = await echo(apiRequest('/x', { method: 'POST', json: { name: 'ok', count: 1 }, headers: { origin: 'http://localhost:3100' } }), noParams);
+    const same = await echo(apiRequest('/x', { method: 'POST', json: { name: 'ok', count: 1 }, headers: { origin: new URL(process.env.APP_URL ?? 'http://localhost:3100').origin } }), noParams);
     expect(same.status).toBe(200);
   });
 
