@@ -21,6 +21,8 @@ export const AUDIT_LABELS: Record<AuditAction, string> = {
   'password.reset_requested': 'Password reset link requested for',
   'password.reset': 'Chose a new password through a reset link',
   'password.changed': 'Changed their password',
+  'api_key.created': 'Created the API key',
+  'api_key.revoked': 'Revoked the API key',
 };
 
 /** A short, human description of a browser from its User-Agent (no library: only the big names). */

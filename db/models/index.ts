@@ -25,6 +25,8 @@ import { WebhookEvent, initWebhookEvent } from './webhook-event';
 import { Quote, initQuote } from './quote';
 import { QuoteEvent, initQuoteEvent } from './quote-event';
 import { ShareLink, initShareLink } from './share-link';
+// Integrators: API keys.
+import { ApiKey, initApiKey } from './api-key';
 
 export { Company, Membership, Plan, Session, User };
 export { Invitation, PasswordResetToken, SignInAttempt, AuditEvent, SignupRequest };
@@ -34,6 +36,7 @@ export { COMPANY_ROLES } from './membership';
 export { Subscription, BillingCheckout, WebhookEvent };
 export type { SubscriptionStatus } from './subscription';
 export { Quote, QuoteEvent, ShareLink };
+export { ApiKey };
 
 let ready = false;
 
@@ -81,7 +84,8 @@ export function models() {
     initQuote(sequelize);
     initQuoteEvent(sequelize);
     initShareLink(sequelize);
+    initApiKey(sequelize);
     ready = true;
   }
-  return { sequelize: getSequelize(), Customer, Site, ServiceProfile, Dish, Upload, ClimateProfile, Study, Plan, Company, User, Membership, Session, Invitation, PasswordResetToken, SignInAttempt, AuditEvent, SignupRequest, Subscription, BillingCheckout, WebhookEvent, Quote, QuoteEvent, ShareLink };
+  return { sequelize: getSequelize(), Customer, Site, ServiceProfile, Dish, Upload, ClimateProfile, Study, Plan, Company, User, Membership, Session, Invitation, PasswordResetToken, SignInAttempt, AuditEvent, SignupRequest, Subscription, BillingCheckout, WebhookEvent, Quote, QuoteEvent, ShareLink, ApiKey };
 }

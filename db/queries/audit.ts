@@ -21,7 +21,9 @@ export type AuditAction =
   | 'session.signed_out_everywhere'
   | 'password.reset_requested'
   | 'password.reset'
-  | 'password.changed';
+  | 'password.changed'
+  | 'api_key.created'
+  | 'api_key.revoked';
 
 export type AuditEventInput = {
   companyId: number | null;

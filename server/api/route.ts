@@ -6,6 +6,9 @@ import { AppError, ForbiddenError, InvalidInputError, RateLimitedError } from '@
 import { getEnv } from '@/server/env';
 import { resolveAccess, type Access, type ContextForAccess } from '@/server/auth/access';
 import { fieldErrorsFrom } from '@/server/actions/safe-action';
+import { bearerTokenOf } from '@/server/auth/api-key-token';
+import type { ApiScope } from '@/server/auth/api-scopes';
+import { resolveKeyAccess } from './key-access';
 
 export type ApiErrorBody = { error: { code: string; message: string; fieldErrors?: Record<string, string[]> } };
 
@@ -20,9 +23,21 @@ export type ApiHandlerArgs<A extends Access, S extends z.ZodType | undefined, P 
 
 const READS = new Set(['GET', 'HEAD']);
 
+export type ApiRouteOptions<A extends Access, S extends z.ZodType | undefined> = {
+  permission: A;
+  schema?: S;
+  /** The API-key scope this route needs when it is not the one holding `permission` (server/auth/api-scopes.ts). */
+  keyScope?: ApiScope;
+};
+
+export type ApiRouteHandler<A extends Access = Access, S extends z.ZodType | undefined = z.ZodType | undefined, P extends Params = Params> = ((req: Request, context: { params: Promise<P> }) => Promise<Response>) & {
+  apiRoute: { permission: A; schema: S | undefined; keyScope: ApiScope | undefined };
+};
+
 /**
- * The one wrapper for route handlers: same-origin check on writes, authorise (session, role,
- * company), validate the query (GET/HEAD/DELETE) or JSON body with the shared zod schema, run.
+ * The one wrapper for route handlers: authorise — an API key (`Authorization: Bearer`, scoped,
+ * rate-limited: server/api/key-access.ts) or a session (role, company, same-origin check on
+ * writes) — then validate the query (GET/HEAD/DELETE) or JSON body with the shared zod schema, run.
  * Returns JSON; AppError → its status with `{ error: { code, message, fieldErrors? } }`;
  * ZodError → 422; anything else → 500 without detail. A handler may return its own Response.
  *
@@ -30,13 +45,17 @@ const READS = new Set(['GET', 'HEAD']);
  *   export const GET = apiRoute({ permission: 'team.read' }, async ({ ctx }) => listMembers(ctx.companyId));
  */
 export function apiRoute<A extends Access, S extends z.ZodType | undefined = undefined, P extends Params = Params>(
-  opts: { permission: A; schema?: S },
+  opts: ApiRouteOptions<A, S>,
   handler: (args: ApiHandlerArgs<A, S, P>) => Promise<unknown>,
-): (req: Request, context: { params: Promise<P> }) => Promise<Response> {
-  return async (req, context) => {
+): ApiRouteHandler<A, S, P> {
+  const route = async (req: Request, context: { params: Promise<P> }): Promise<Response> => {
     try {
-      if (!READS.has(req.method)) assertSameOrigin(req);
-      const ctx = await resolveAccess(opts.permission);
+      // An Authorization header means an API key (never a cookie fallback); public routes ignore it.
+      const bearer = opts.permission === 'public' ? null : bearerTokenOf(req.headers);
+      // A browser cannot attach a bearer key cross-site without our consent (CORS), so only
+      // cookie-authenticated writes need the same-origin check.
+      if (!READS.has(req.method) && bearer === null) assertSameOrigin(req);
+      const ctx = bearer === null ? await resolveAccess(opts.permission) : await resolveKeyAccess(bearer, opts.permission, req, opts.keyScope);
       const params = ((await context?.params) ?? {}) as P;
       let input: unknown = undefined;
       if (opts.schema) {
@@ -53,6 +72,8 @@ export function apiRoute<A extends Access, S extends z.ZodType | undefined = und
       return errorResponse(error);
     }
   };
+  // What the OpenAPI document and its tests read back from each route (server/api/openapi).
+  return Object.assign(route, { apiRoute: { permission: opts.permission, schema: opts.schema, keyScope: opts.keyScope } });
 }
 
 export function errorResponse(error: unknown): Response {

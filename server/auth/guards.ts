@@ -6,6 +6,7 @@ import { findMembership, firstMembership } from '@/db/queries/team';
 import { setSessionActiveCompany } from '@/db/queries/sessions';
 import { can, PERMISSIONS, type Permission, type Role } from './permissions';
 import { validateRequest } from './session';
+import type { ApiScope } from './api-scopes';
 
 export type AuthUser = { id: string; email: string; name: string; isStaff: boolean };
 
@@ -17,6 +18,8 @@ export type AuthContext = {
   companyId: number | null;
   company: { id: number; name: string; planId: number } | null;
   role: Role;
+  /** Set when the caller is an API key rather than a person (server/api/key-access.ts). */
+  apiKey?: { id: number; name: string; prefix: string; scopes: ApiScope[] };
 };
 
 /** The context of a company member: company scoping is guaranteed. */

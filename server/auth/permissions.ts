@@ -34,6 +34,8 @@ export const PERMISSIONS = {
   'billing.manage': ADMIN,
   'branding.manage': ADMIN,
   'audit.read': ADMIN,
+  // Create, scope and revoke the company's API keys (settings/api-keys).
+  'apikey.manage': ADMIN,
   'plans.manage': STAFF,
   'accounts.read': STAFF,
 } as const satisfies Record<string, readonly Role[]>;

@@ -9,9 +9,10 @@ import { attachmentDisposition } from '@/server/uploads/download-name';
  * GET /api/v1/uploads/:id — a kept upload's original file, byte for byte, as an attachment.
  * The wrapper demands catalogue.write (admin); the handler then checks the permission of the
  * file's own kind (climate files: climate.write), so neither kind is handed to a role that could
- * not have uploaded it. Another company's id answers 404.
+ * not have uploaded it. Another company's id answers 404. An API key needs the "read" scope
+ * (named here: catalogue.write itself is opened to no key, so no key could ever edit the catalogue).
  */
-export const GET = apiRoute<'catalogue.write', undefined, { id: string }>({ permission: 'catalogue.write' }, async ({ ctx, params }) => {
+export const GET = apiRoute<'catalogue.write', undefined, { id: string }>({ permission: 'catalogue.write', keyScope: 'read' }, async ({ ctx, params }) => {
   const id = /^\d{1,10}$/.test(params.id) ? Number(params.id) : NaN;
   const upload = Number.isSafeInteger(id) ? await getUpload(ctx.companyId, id) : null;
   if (!upload) throw new NotFoundError('That upload');
