@@ -1,16 +1,7 @@
-import Decimal from 'decimal.js';
-
 /** "3 Jan 2027" in UTC: billing dates are the provider's, not the viewer's clock. */
 export function billingDate(d: Date | null | undefined): string {
   if (!d) return '—';
   return d.toLocaleDateString('en-GB', { day: 'numeric', month: 'short', year: 'numeric', timeZone: 'UTC' });
-}
-
-/** "$49.00" from an exact decimal string. */
-export function usd(amount: string): string {
-  const d = new Decimal(amount);
-  const [whole, cents] = d.toFixed(2).split('.');
-  return `$${whole.replace(/\B(?=(\d{3})+(?!\d))/g, ',')}.${cents}`;
 }
 
 export function count(n: number): string {

@@ -10,7 +10,9 @@ import { FormStatus } from '@/components/ui/form-status';
 import { Table, TBody, THead, Td, Th } from '@/components/ui/table';
 import { SelectInput, TextInput } from '@/components/study/form-fields';
 import { CsvFileInput } from '@/components/uploads/csv-file-input';
-import { availabilityText, boundMark, fixed, usd } from '@/components/study/format';
+import { fixed } from '@/components/study/format';
+import { formatMoney } from '@/server/money-format';
+import { readCampaignRow } from '@/server/campaigns/campaign-row-reading';
 import { EACH_SITE_CLIMATE, EACH_SITE_CLIMATE_LABEL } from '@/server/validation/campaign';
 
 type Act = (prev: ActionState<CampaignResponse> | null, input: FormData) => Promise<ActionState<CampaignResponse>>;
@@ -27,9 +29,6 @@ function download(data: CampaignResponse) {
   a.remove();
   URL.revokeObjectURL(url);
 }
-
-/** Minutes for a cell whose header carries the unit; a bound keeps its "<" or ">". */
-const minutes = (m: number, bound: Parameters<typeof boundMark>[0]) => `${boundMark(bound)}${fixed(m, m < 10 ? 1 : 0)}`;
 
 function Counts({ data }: { data: CampaignResponse }) {
   const c = data.counts;
@@ -97,20 +96,24 @@ function Results({ data }: { data: CampaignResponse }) {
               </tr>
             </THead>
             <TBody>
-              {data.results.map((r) => (
+              {data.results.map((r) => {
+                // Minutes in cells whose header carries the unit; a bound keeps its sign.
+                const read = readCampaignRow(r);
+                return (
                 <tr key={r.line}>
                   <Td numeric className="hidden sm:table-cell">{r.line}</Td>
                   <Th scope="row" className="whitespace-nowrap align-top font-medium text-stone-900">{r.siteRef}</Th>
                   <Td numeric className="whitespace-nowrap">{r.currentDishCm}</Td>
-                  <Td numeric className="whitespace-nowrap">{minutes(r.currentOutageMinutesPerYear, r.currentOutageBound)}</Td>
+                  <Td numeric className="whitespace-nowrap">{read.current.minutesNumber}</Td>
                   <Td numeric className="hidden whitespace-nowrap lg:table-cell">{fixed(r.climate.r001MmH, 1)}</Td>
-                  <Td numeric className="hidden whitespace-nowrap md:table-cell">{availabilityText({ availabilityPercent: r.currentAvailabilityPercent, outageBound: r.currentOutageBound })}</Td>
+                  <Td numeric className="hidden whitespace-nowrap md:table-cell">{read.current.availabilityText}</Td>
                   <Td className="whitespace-nowrap">{r.verdict === 'upgrade' ? <span className="font-medium text-ledger-800">{r.recommendedDishCm} cm · {r.recommendedDishName}</span> : <span className="text-stone-600">{verdictWords(r.verdict)}</span>}</Td>
-                  <Td numeric className="hidden whitespace-nowrap md:table-cell">{r.recommendedOutageMinutesPerYear === null || r.recommendedOutageBound === null ? '—' : minutes(r.recommendedOutageMinutesPerYear, r.recommendedOutageBound)}</Td>
-                  <Td numeric className="whitespace-nowrap">{r.minutesSavedPerYear === null ? '—' : fixed(r.minutesSavedPerYear, 0)}</Td>
-                  <Td numeric className="whitespace-nowrap">{usd(r.upgradePriceUsd)}</Td>
+                  <Td numeric className="hidden whitespace-nowrap md:table-cell">{read.recommended?.minutesNumber ?? '—'}</Td>
+                  <Td numeric className="whitespace-nowrap">{read.saved?.number ?? '—'}</Td>
+                  <Td numeric className="whitespace-nowrap">{formatMoney(r.upgradePriceUsd)}</Td>
                 </tr>
-              ))}
+                );
+              })}
             </TBody>
           </Table>
         </>

@@ -6,7 +6,8 @@ import type { StudyDashboard as Dashboard } from '@/db/queries/studies';
 import { Card, CardBody, CardHeader } from '@/components/ui/card';
 import { EmptyRow, Table, TBody, THead, Td, Th } from '@/components/ui/table';
 import { fetchJson } from '@/components/study/fetch-json';
-import { dateFmt, diameterLabel } from '@/components/study/format';
+import { dateFmt } from '@/components/study/format';
+import { diameterLabel } from '@/server/study-option';
 
 const TILES: { key: keyof Dashboard['counts']; label: string; href: string }[] = [
   { key: 'studiesThisMonth', label: 'Studies this month', href: '/studies' },

@@ -1,5 +1,3 @@
-import { formatMoney } from '@/server/quotes/totals';
-
 export const dayFmt = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', year: 'numeric', timeZone: 'UTC' });
 export const dayTimeFmt = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', year: 'numeric', hour: '2-digit', minute: '2-digit', timeZone: 'UTC' });
 
@@ -10,8 +8,4 @@ export function day(value: string): string {
 
 export function dayTime(value: string): string {
   return `${dayTimeFmt.format(new Date(value))} UTC`;
-}
-
-export function money(amount: string, currency = 'USD'): string {
-  return formatMoney(amount, currency);
 }

@@ -6,10 +6,10 @@ import { FormErrors } from '@/components/ui/field';
 import { SubmitButton } from '@/components/ui/submit-button';
 import { createQuote } from '@/server/actions/quotes';
 import type { QuoteOptionSnapshot } from '@/server/quotes/snapshot';
-import { describeOutage, diameterInWords } from '@/server/quotes/plain-words';
+import { readQuotedOption } from '@/server/study-option';
+import { formatMoney } from '@/server/money-format';
 import { NavigateOnSuccess } from './navigate-on-success';
 import { TermsFields, type TermsDefaults } from './terms-fields';
-import { money } from './format';
 
 /**
  * New quote from a study: choose the option to quote (prices follow it), the options the
@@ -34,20 +34,20 @@ export function NewQuoteForm({ studyId, options, initialOption, defaults }: { st
         <p className="mb-3 text-sm text-stone-600">The quoted option is marked as your recommendation. Tick the others the customer should see beside it for comparison.</p>
         <div className="divide-y divide-stone-200 rounded border border-stone-200">
           {options.map((o) => {
-            const words = describeOutage({ closes: o.closes, ...o.outage });
+            const reading = readQuotedOption(o);
             const isChosen = chosen === o.index;
             return (
               <div key={o.index} className={`flex flex-wrap items-start gap-x-4 gap-y-2 px-3 py-3 sm:flex-nowrap ${isChosen ? 'bg-ledger-50' : ''}`}>
                 <label className="flex min-w-0 flex-1 cursor-pointer items-start gap-3">
                   <input type="radio" name="optionIndex" value={o.index} checked={isChosen} disabled={!o.closes} onChange={() => { setChosen(o.index); setShown((s) => new Set(s).add(o.index)); }} className="mt-1 accent-ledger-700" />
                   <span className="min-w-0">
-                    <span className="font-medium text-stone-900">{o.dishName}</span> <span className="text-sm text-stone-600">{diameterInWords(o.diameterM)}</span>
+                    <span className="font-medium text-stone-900">{o.dishName}</span> <span className="text-sm text-stone-600">{reading.diameter.words}</span>
                     {o.smallestMeetingTarget && <span className="ml-2 rounded bg-ledger-100 px-1.5 py-0.5 text-[11px] font-medium text-ledger-800">smallest meeting the target</span>}
                     {o.bestValue && <span className="ml-2 rounded bg-stone-100 px-1.5 py-0.5 text-[11px] font-medium text-stone-700">best value</span>}
-                    <span className="block text-sm text-stone-700">{words.year}</span>
+                    <span className="block text-sm text-stone-700">{reading.outage.yearWords}</span>
                   </span>
                 </label>
-                <span className="num shrink-0 text-sm text-stone-800">{money(o.cataloguePrice)}</span>
+                <span className="num shrink-0 text-sm text-stone-800">{formatMoney(o.cataloguePrice)}</span>
                 <label className="flex shrink-0 items-center gap-1.5 text-sm text-stone-700">
                   <input type="checkbox" name="shownOptions" value={o.index} checked={shown.has(o.index) || isChosen} disabled={isChosen} onChange={() => toggle(o.index)} className="accent-ledger-700" />
                   Show

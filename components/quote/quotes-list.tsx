@@ -10,7 +10,8 @@ import { fetchJson } from '@/components/study/fetch-json';
 import { EmptyRow, Table, TBody, THead, Td, Th } from '@/components/ui/table';
 import { quoteReference } from '@/server/quotes/status';
 import { QuoteStatusBadge } from './status-badge';
-import { day, money } from './format';
+import { day } from './format';
+import { formatMoney } from '@/server/money-format';
 
 const FILTERS: { value: 'all' | 'open' | QuoteStatus; label: string }[] = [
   { value: 'all', label: 'All' },
@@ -91,7 +92,7 @@ export function QuotesList() {
                     <span className="block text-xs text-stone-600">{q.siteName}</span>
                   </Td>
                   <Td className="hidden md:table-cell">{q.chosenDishName}</Td>
-                  <Td numeric className="whitespace-nowrap">{money(q.total, q.currency)}</Td>
+                  <Td numeric className="whitespace-nowrap">{formatMoney(q.total, q.currency)}</Td>
                   <Td className="hidden sm:table-cell">
                     <QuoteStatusBadge status={q.status} />
                   </Td>

@@ -2,7 +2,7 @@
 
 import { useEffect, useState, type ReactNode } from 'react';
 import { QuotePriceError, quoteTotals, type QuoteTotals } from '@/server/quotes/totals';
-import { money } from './format';
+import { formatMoney } from '@/server/money-format';
 
 const PRICE_FIELDS = ['hardwarePrice', 'labourPrice', 'extrasPrice', 'discountAmount', 'taxRatePercent'] as const;
 
@@ -43,11 +43,11 @@ export function TotalsPreview({ children, currency = 'USD' }: { children: ReactN
         {totals ? (
           <>
             <dt className="text-stone-600">Subtotal</dt>
-            <dd className="num">{money(totals.subtotal, currency)}</dd>
+            <dd className="num">{formatMoney(totals.subtotal, currency)}</dd>
             <dt className="text-stone-600">Tax</dt>
-            <dd className="num">{money(totals.taxAmount, currency)}</dd>
+            <dd className="num">{formatMoney(totals.taxAmount, currency)}</dd>
             <dt className="font-semibold">Total</dt>
-            <dd className="num font-semibold">{money(totals.total, currency)}</dd>
+            <dd className="num font-semibold">{formatMoney(totals.total, currency)}</dd>
           </>
         ) : (
           <dd className="col-span-2 text-stone-700">{problem ?? 'Enter the prices to see the total.'}</dd>

@@ -2,12 +2,12 @@ import type { StudyInputsSnapshot, StudyResultSnapshot } from '@/server/studies/
 import type { AttenuationComponents } from '@/server/engine/p618-total-attenuation';
 import type { OutageFigures } from '@/server/engine/outage-figures';
 import { Table, TBody, THead, Td, Th } from '@/components/ui/table';
-import { boundMark, diameterLabel, fixed } from './format';
+import { dishName, outagePercentText, outageQualifier } from '@/server/study-option';
+import { fixed } from './format';
 
-/** Share of the year, to the digits the figure supports ("0.0213 %"), with its model-range bound. */
+/** Share of the year of one link (not the two-way sum), rounded by the one rule and signed by its model-range bound. */
 function percentText(f: Pick<OutageFigures, 'outagePercent' | 'outageBound'>): string {
-  const p = f.outagePercent;
-  return `${boundMark(f.outageBound)}${p < 0.01 ? p.toPrecision(2) : fixed(p, p < 1 ? 3 : 2)} %`;
+  return outagePercentText(f.outagePercent, outageQualifier({ outageBound: f.outageBound, isUpperBound: false }));
 }
 
 /** Bounded outages: the total never reaches the threshold inside 0.001–5 % (or always exceeds it), so it differs from it. */
@@ -27,7 +27,7 @@ export function AttenuationAtOutage({ inputs, result }: { inputs: StudyInputsSna
   if (t.attenuationModel !== 'total') return null;
   const lines: Line[] = [];
   t.options.forEach((o, i) => {
-    const dish = `${inputs.dishes[i]?.name ?? diameterLabel(o.diameterM).cm}`;
+    const dish = dishName(inputs.dishes[i]?.name, o.diameterM);
     if (o.attenuationAtOutage) lines.push({ key: `${i}-down`, dish, link: 'downlink', figures: o, at: o.attenuationAtOutage, thresholdDb: o.fadeThresholdDb });
     if (o.uplink?.attenuationAtOutage) lines.push({ key: `${i}-up`, dish, link: 'uplink', figures: o.uplink, at: o.uplink.attenuationAtOutage, thresholdDb: o.uplink.fadeThresholdDb });
   });

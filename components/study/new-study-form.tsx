@@ -9,7 +9,8 @@ import { Button } from '@/components/ui/button';
 import { FormStatus } from '@/components/ui/form-status';
 import { SelectInput, TextInput } from './form-fields';
 import { useValidatedAction } from './use-validated-action';
-import { diameterLabel, usd } from './format';
+import { diameterLabel } from '@/server/study-option';
+import { formatMoney } from '@/server/money-format';
 import { greatCircleKm, PROFILE_FAR_FROM_SITE_KM } from '@/server/studies/climate-location';
 
 export type NewStudyOptions = {
@@ -216,7 +217,7 @@ export function NewStudyForm({ options, preset }: { options: NewStudyOptions; pr
                     <span className="min-w-0 flex-1">
                       <span className="block font-medium text-stone-900">{d.name}</span>
                       <span className="num block text-left text-xs text-stone-600">
-                        {size.cm} ({size.inches}) · {usd(d.price)}
+                        {size.words} · {formatMoney(d.price)}
                       </span>
                     </span>
                   </label>

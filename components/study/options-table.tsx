@@ -1,8 +1,9 @@
 import Link from 'next/link';
 import type { StudyInputsSnapshot, StudyResultSnapshot } from '@/server/studies/snapshot';
 import { Table, TBody, THead, Td, Th } from '@/components/ui/table';
-import { availabilityText, diameterLabel, fixed, hoursText, minutesText, usd, usdPerMinute } from './format';
-import { basisFigures, closesOnBasis } from './basis';
+import { formatCostPerMinute, formatMoney } from '@/server/money-format';
+import { dishName, readStudyOption, savedMinutesNumber } from '@/server/study-option';
+import { fixed } from './format';
 
 /** The quote screen takes the study and the option (index into `options`). */
 export function quoteHref(studyId: number, optionIndex: number): string {
@@ -46,13 +47,13 @@ export function OptionsTable({ studyId, inputs, result, canQuote }: { studyId: n
       <TBody>
         {t.options.map((o, i) => {
           const dish = inputs.dishes[i];
-          const size = diameterLabel(o.diameterM);
-          const f = basisFigures(o, rec.basis);
-          const closes = closesOnBasis(o, rec.basis);
+          const reading = readStudyOption(t, i);
+          const size = reading.diameter;
+          const closes = reading.closes;
           return (
             <tr key={o.index} className={rec.smallestMeetingTargetIndex === i ? 'bg-ledger-50' : undefined}>
               <Th scope="row" className={`sticky left-0 z-[1] whitespace-nowrap align-top font-normal ${rec.smallestMeetingTargetIndex === i ? 'bg-ledger-50' : 'bg-white'}`}>
-                <span className="block font-medium text-stone-900">{dish?.name ?? size.cm}</span>
+                <span className="block font-medium text-stone-900">{dishName(dish?.name, o.diameterM)}</span>
                 <span className="num block text-left text-xs text-stone-600">
                   {size.cm} <span className="text-stone-600">({size.inches})</span>
                 </span>
@@ -74,21 +75,21 @@ export function OptionsTable({ studyId, inputs, result, canQuote }: { studyId: n
               {closes ? (
                 <>
                   <Td numeric>{o.fadeThresholdDb === null ? '—' : fixed(o.fadeThresholdDb, 2)}</Td>
-                  <Td numeric className="whitespace-nowrap">{availabilityText(f)}</Td>
+                  <Td numeric className="whitespace-nowrap">{reading.availability.text}</Td>
                   <Td numeric className="whitespace-nowrap">
-                    {minutesText(f.outageMinutesPerYear, f.outageBound)}
-                    <span className="block text-xs text-stone-600">{hoursText(f.outageMinutesPerYear, f.outageBound)}</span>
+                    {reading.outage.minutesText}
+                    {reading.outage.durationText !== reading.outage.minutesText && <span className="block text-xs text-stone-600">{reading.outage.durationText}</span>}
                   </Td>
-                  <Td numeric className="whitespace-nowrap">{minutesText(f.worstMonthOutageMinutes, f.outageBound)}</Td>
+                  <Td numeric className="whitespace-nowrap">{reading.worstMonth.minutesText}</Td>
                 </>
               ) : (
                 <Td colSpan={4} className="text-sm text-red-700">
                   Does not close{o.closes ? ' on the uplink' : ''}: short by {fixed(-(o.closes && o.uplink ? o.uplink.marginDb : o.marginDb), 2)} dB even in clear sky. It never works with this carrier.
                 </Td>
               )}
-              <Td numeric className="whitespace-nowrap">{usd(o.priceUsd)}</Td>
-              <Td numeric>{i === rec.baselineIndex ? <span className="text-stone-600">baseline</span> : fixed(o.minutesSavedPerYear, 0)}</Td>
-              <Td numeric>{usdPerMinute(o.costPerMinuteSavedUsd)}</Td>
+              <Td numeric className="whitespace-nowrap">{formatMoney(o.priceUsd)}</Td>
+              <Td numeric>{i === rec.baselineIndex ? <span className="text-stone-600">baseline</span> : savedMinutesNumber(o.minutesSavedPerYear)}</Td>
+              <Td numeric>{formatCostPerMinute(o.costPerMinuteSavedUsd)}</Td>
               {canQuote && (
                 <Td className="whitespace-nowrap">
                   {closes ? (

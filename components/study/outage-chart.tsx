@@ -4,14 +4,15 @@ import { Line } from 'react-chartjs-2';
 import './chart-setup';
 import { CHART } from './chart-setup';
 
-export type OutagePoint = { diameterCm: number; minutes: number; label: string; bounded: boolean };
+/** `minutesText` is the figure as the table writes it (server/study-option), for the tooltip. */
+export type OutagePoint = { diameterCm: number; minutes: number; label: string; minutesText: string; bounded: boolean };
 
 /**
  * Outage minutes per year against dish diameter, with the target's allowance as a dashed line.
  * A dish that does not close is left out (it has no outage figure, it never works); the table
  * beside says so.
  */
-export function OutageChart({ points, targetMinutes, description }: { points: OutagePoint[]; targetMinutes: number | null; description: string }) {
+export function OutageChart({ points, targetMinutes, targetText, description }: { points: OutagePoint[]; targetMinutes: number | null; targetText: string; description: string }) {
   const xs = points.map((p) => p.diameterCm);
   const minX = Math.min(...xs);
   const maxX = Math.max(...xs);
@@ -62,8 +63,8 @@ export function OutageChart({ points, targetMinutes, description }: { points: Ou
               legend: { position: 'bottom', labels: { color: CHART.text, font: CHART.font, boxWidth: 14 } },
               tooltip: {
                 callbacks: {
-                  title: (items) => `${items[0]?.parsed.x} cm dish`,
-                  label: (item) => `${item.dataset.label}: ${Math.round(item.parsed.y ?? 0).toLocaleString('en-US')} min/yr`,
+                  title: (items) => (items[0]?.datasetIndex === 0 ? `${points[items[0].dataIndex]?.label} dish` : ''),
+                  label: (item) => `${item.dataset.label}: ${item.datasetIndex === 0 ? points[item.dataIndex]?.minutesText : targetText} a year`,
                 },
               },
             },

@@ -1,14 +1,15 @@
 import type { StudyInputsSnapshot, StudyResultSnapshot } from '@/server/studies/snapshot';
 import { LinkButton } from '@/components/ui/button';
-import { diameterLabel, fixed, minutesText, usd, usdPerMinute } from './format';
-import { basisFigures } from './basis';
+import { formatCostPerMinute, formatMoney } from '@/server/money-format';
+import { readStudyOption } from '@/server/study-option';
+import { fixed } from './format';
 import { quoteHref } from './options-table';
 
 /** The answer in three lines: the smallest dish meeting the target, the best value, and where more size stops paying. */
 export function Recommendation({ studyId, inputs, result, canQuote }: { studyId: number; inputs: StudyInputsSnapshot; result: StudyResultSnapshot; canQuote: boolean }) {
   const t = result.tradeoff;
   const rec = t.recommendation;
-  const name = (i: number) => `${inputs.dishes[i]?.name ?? ''} (${diameterLabel(t.options[i].diameterM).cm})`;
+  const name = (i: number) => `${inputs.dishes[i]?.name ?? ''} (${readStudyOption(t, i).diameter.cm})`.trim();
   const smallest = rec.smallestMeetingTargetIndex;
   const quoteIndex = smallest ?? rec.bestValueIndex ?? rec.diminishingReturnsIndex;
   return (
@@ -22,7 +23,7 @@ export function Recommendation({ studyId, inputs, result, canQuote }: { studyId:
             {smallest !== null ? (
               <>
                 <strong>{name(smallest)}</strong> is the smallest dish meeting the target of {fixed(rec.targetAvailabilityPercent ?? 0, 3)} %
-                {rec.basis === 'two-way' ? ' (two-way, an upper-bound outage)' : ''}: about {minutesText(basisFigures(t.options[smallest], rec.basis).outageMinutesPerYear, basisFigures(t.options[smallest], rec.basis).outageBound)} of outage a year, for {usd(t.options[smallest].priceUsd)}.
+                {rec.basis === 'two-way' ? ' (two-way, an upper-bound outage)' : ''}: {readStudyOption(t, smallest).outage.phrase} of outage a year, for {formatMoney(t.options[smallest].priceUsd)}.
               </>
             ) : (
               <>No dish of this study meets the target of {fixed(rec.targetAvailabilityPercent ?? 0, 3)} %. Consider a larger dish, or discuss a lower target with the customer.</>
@@ -30,7 +31,7 @@ export function Recommendation({ studyId, inputs, result, canQuote }: { studyId:
           </p>
           {rec.bestValueIndex !== null && (
             <p>
-              Best value per minute saved: <strong>{name(rec.bestValueIndex)}</strong>, {usdPerMinute(t.options[rec.bestValueIndex].costPerMinuteSavedUsd)} for each minute a year saved against the {diameterLabel(t.options[rec.baselineIndex].diameterM).cm} dish.
+              Best value per minute saved: <strong>{name(rec.bestValueIndex)}</strong>, {formatCostPerMinute(t.options[rec.bestValueIndex].costPerMinuteSavedUsd)} for each minute a year saved against the {readStudyOption(t, rec.baselineIndex).diameter.cm} dish.
             </p>
           )}
           <p>

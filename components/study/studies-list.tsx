@@ -5,7 +5,8 @@ import Link from 'next/link';
 import type { StudyListItem } from '@/db/queries/studies';
 import { EmptyRow, Table, TBody, THead, Td, Th } from '@/components/ui/table';
 import { PagedList } from './paged-list';
-import { dateFmt, diameterLabel, fixed } from './format';
+import { dateFmt, fixed } from './format';
+import { diameterLabel } from '@/server/study-option';
 
 /** The studies list: search by title, customer, site or service; newest first; archived ones only on request. */
 export function StudiesList() {

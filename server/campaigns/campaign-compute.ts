@@ -1,7 +1,8 @@
 import { dishTradeoff, isEngineInputError } from '@/server/engine';
-import type { OutageFigures } from '@/server/engine';
 import type { AttenuationComponents } from '@/server/engine/p618-total-attenuation';
-import type { TradeoffOption, TradeoffResult } from '@/server/engine/tradeoff-types';
+import type { ExceedanceBound } from '@/server/engine/p618-rain-path';
+import type { TradeoffResult } from '@/server/engine/tradeoff-types';
+import { basisFiguresOf, meetsTarget, wholeCentimetres } from '@/server/study-option';
 import { buildScenario } from '@/server/studies/build-scenario';
 import type { ClimateSnapshot, DishSnapshot, ServiceSnapshot } from '@/server/studies/snapshot';
 import type { CampaignProblem, CampaignSiteRow } from './campaign-csv';
@@ -15,15 +16,19 @@ export interface CampaignResultRow {
   siteRef: string;
   currentDishCm: number;
   currentDishName: string;
+  /** False when the current dish does not receive (or, two-way, send) the service even in clear sky. */
+  currentCloses: boolean;
   currentOutageMinutesPerYear: number;
   /** 'below-model-range': the minutes are an upper bound; 'above-model-range': a lower bound (engine convention). */
-  currentOutageBound: OutageFigures['outageBound'];
+  currentOutageBound: ExceedanceBound;
   currentAvailabilityPercent: number;
+  /** The service has an uplink: outages are two-way sums p_up + p_down, upper bounds (server/engine/README.md §4). */
+  outageIsTwoWaySum: boolean;
   verdict: CampaignVerdict;
   recommendedDishName: string | null;
   recommendedDishCm: number | null;
   recommendedOutageMinutesPerYear: number | null;
-  recommendedOutageBound: OutageFigures['outageBound'] | null;
+  recommendedOutageBound: ExceedanceBound | null;
   minutesSavedPerYear: number | null;
   /** Hardware + labour of the recommended dish, USD (exact decimal string); null when no upgrade. */
   upgradePriceUsd: string | null;
@@ -42,14 +47,6 @@ export interface CampaignOutcome {
   results: CampaignResultRow[];
   problems: CampaignProblem[];
   counts: { rows: number; computed: number; upgrade: number; alreadyMeetsTarget: number; noneMeetsTarget: number; problems: number };
-}
-
-/** Diameter in whole centimetres: the way installers name dishes ("a 90"). */
-const cmOf = (diameterM: number) => Math.round(diameterM * 100);
-
-/** The outage the recommendation is made on: two-way when the service has an uplink (server/engine/README.md §4). */
-function basisFigures(result: TradeoffResult, option: TradeoffOption): OutageFigures {
-  return result.recommendation.basis === 'two-way' && option.twoWay ? option.twoWay : option;
 }
 
 const PLAIN: [RegExp, string][] = [
@@ -83,7 +80,7 @@ export function computeCampaign(o: {
 }): CampaignOutcome {
   const problems: CampaignProblem[] = [...(o.fileProblems ?? [])];
   const results: CampaignResultRow[] = [];
-  const sizes = [...new Set(o.dishes.map((d) => cmOf(d.diameterM)))].sort((a, b) => a - b).join(', ');
+  const sizes = [...new Set(o.dishes.map((d) => wholeCentimetres(d.diameterM)))].sort((a, b) => a - b).join(', ');
   for (const row of o.rows) {
     let built: ReturnType<typeof buildScenario>;
     let result: TradeoffResult;
@@ -105,13 +102,16 @@ export function computeCampaign(o: {
       continue;
     }
     // Options come back in the scenario's order, which is buildScenario's sorted dish list.
-    const currentIndex = built.dishes.findIndex((d) => cmOf(d.diameterM) === Math.round(row.currentDishCm));
+    const currentIndex = built.dishes.findIndex((d) => wholeCentimetres(d.diameterM) === Math.round(row.currentDishCm));
     if (currentIndex < 0) {
       problems.push({ line: row.line, siteRef: row.siteRef, column: 'current_dish_cm', message: `Line ${row.line}, current_dish_cm: no active catalogue dish is ${row.currentDishCm} cm (the catalogue has ${sizes || 'no active dishes'} cm).` });
       continue;
     }
-    const current = basisFigures(result, result.options[currentIndex]);
-    const currentMeets = result.options[currentIndex].meetsTarget === true;
+    // The outage the recommendation is made on: two-way when the service has an uplink.
+    const basis = result.recommendation.basis;
+    const current = basisFiguresOf(result.options[currentIndex], basis);
+    const meets = (k: number) => meetsTarget(basisFiguresOf(result.options[k], basis).closes, result.options[k].meetsTarget);
+    const currentMeets = meets(currentIndex);
     // The engine's pick (smallest meeting the target); should a smaller dish of better efficiency
     // meet it while the current one does not, an upgrade is still a larger dish.
     const enginePick = result.recommendation.smallestMeetingTargetIndex;
@@ -120,17 +120,19 @@ export function computeCampaign(o: {
       enginePick !== null && built.dishes[enginePick].diameterM > currentDiameter
         ? enginePick
         : (() => {
-            const i = result.options.findIndex((opt, k) => opt.meetsTarget === true && built.dishes[k].diameterM > currentDiameter);
+            const i = result.options.findIndex((_, k) => meets(k) && built.dishes[k].diameterM > currentDiameter);
             return i < 0 ? null : i;
           })();
     const base = {
       line: row.line,
       siteRef: row.siteRef,
-      currentDishCm: cmOf(built.dishes[currentIndex].diameterM),
+      currentDishCm: wholeCentimetres(built.dishes[currentIndex].diameterM),
       currentDishName: built.dishes[currentIndex].name,
+      currentCloses: current.closes,
       currentOutageMinutesPerYear: current.outageMinutesPerYear,
       currentOutageBound: current.outageBound,
       currentAvailabilityPercent: current.availabilityPercent,
+      outageIsTwoWaySum: current.isUpperBound,
       climate: site.describe(result),
       attenuationModel: result.attenuationModel,
       currentAttenuation: result.options[currentIndex].attenuationAtOutage,
@@ -140,12 +142,12 @@ export function computeCampaign(o: {
     } else if (rec === null) {
       results.push({ ...base, verdict: 'none-meets-target', recommendedDishName: null, recommendedDishCm: null, recommendedOutageMinutesPerYear: null, recommendedOutageBound: null, minutesSavedPerYear: null, upgradePriceUsd: null });
     } else {
-      const recommended = basisFigures(result, result.options[rec]);
+      const recommended = basisFiguresOf(result.options[rec], basis);
       results.push({
         ...base,
         verdict: 'upgrade',
         recommendedDishName: built.dishes[rec].name,
-        recommendedDishCm: cmOf(built.dishes[rec].diameterM),
+        recommendedDishCm: wholeCentimetres(built.dishes[rec].diameterM),
         recommendedOutageMinutesPerYear: recommended.outageMinutesPerYear,
         recommendedOutageBound: recommended.outageBound,
         minutesSavedPerYear: current.outageMinutesPerYear - recommended.outageMinutesPerYear,

@@ -1,6 +1,7 @@
 import Papa from 'papaparse';
 import type { CampaignResultRow, CampaignVerdict } from './campaign-compute';
 import type { CampaignProblem } from './campaign-csv';
+import { readCampaignRow } from './campaign-row-reading';
 
 const VERDICT_WORDS: Record<CampaignVerdict, string> = {
   upgrade: 'upgrade',
@@ -44,10 +45,6 @@ export const CAMPAIGN_RESULT_HEADER = [
 const MODEL_WORDS = { total: 'total: gases, clouds, rain, scintillation', rain: 'rain only' } as const;
 const ALTITUDE_SOURCE_WORDS = { file: 'file', 'ITU-R P.1511-1': 'ITU-R P.1511-1 at the site' } as const;
 
-/** Outside the P.618 model range the engine gives a bound, not a value: the file says which way. */
-const BOUND_WORDS = { none: '', 'below-model-range': 'at most', 'above-model-range': 'at least' } as const;
-const boundWords = (b: keyof typeof BOUND_WORDS | null) => (b === null ? '' : BOUND_WORDS[b]);
-
 const fixed = (n: number | null, digits: number) => (n === null ? '' : n.toFixed(digits));
 
 /**
@@ -57,37 +54,41 @@ const fixed = (n: number | null, digits: number) => (n === null ? '' : n.toFixed
  * would run as a formula are escaped.
  */
 export function campaignResultCsv(results: CampaignResultRow[], problems: CampaignProblem[] = []): string {
-  const lines: { line: number; cells: string[] }[] = results.map((r) => ({
-    line: r.line,
-    cells: [
-      String(r.line),
-      r.siteRef,
-      r.currentDishName,
-      String(r.currentDishCm),
-      fixed(r.currentOutageMinutesPerYear, 1),
-      boundWords(r.currentOutageBound),
-      fixed(r.currentAvailabilityPercent, 4),
-      VERDICT_WORDS[r.verdict],
-      r.recommendedDishName ?? '',
-      r.recommendedDishCm === null ? '' : String(r.recommendedDishCm),
-      fixed(r.recommendedOutageMinutesPerYear, 1),
-      boundWords(r.recommendedOutageBound),
-      fixed(r.minutesSavedPerYear, 1),
-      r.upgradePriceUsd ?? '',
-      fixed(r.climate.r001MmH, 1),
-      r.climate.rainClimateSource,
-      fixed(r.climate.rainHeightKm, 3),
-      r.climate.rainHeightSource,
-      String(r.climate.altitudeM),
-      ALTITUDE_SOURCE_WORDS[r.climate.altitudeSource],
-      MODEL_WORDS[r.attenuationModel],
-      fixed(r.currentAttenuation?.gasDb ?? null, 2),
-      fixed(r.currentAttenuation?.cloudDb ?? null, 2),
-      fixed(r.currentAttenuation?.rainDb ?? null, 2),
-      fixed(r.currentAttenuation?.scintillationDb ?? null, 2),
-      fixed(r.currentAttenuation?.totalDb ?? null, 2),
-    ],
-  }));
+  const lines: { line: number; cells: string[] }[] = results.map((r) => {
+    // Outside the P.618 model range the engine gives a bound, not a value: the bound column says which way.
+    const read = readCampaignRow(r);
+    return {
+      line: r.line,
+      cells: [
+        String(r.line),
+        r.siteRef,
+        r.currentDishName,
+        String(r.currentDishCm),
+        read.current.minutesCell,
+        read.current.boundWords,
+        read.current.availabilityCell,
+        VERDICT_WORDS[r.verdict],
+        r.recommendedDishName ?? '',
+        r.recommendedDishCm === null ? '' : String(r.recommendedDishCm),
+        read.recommended?.minutesCell ?? '',
+        read.recommended?.boundWords ?? '',
+        read.saved?.cell ?? '',
+        r.upgradePriceUsd ?? '',
+        fixed(r.climate.r001MmH, 1),
+        r.climate.rainClimateSource,
+        fixed(r.climate.rainHeightKm, 3),
+        r.climate.rainHeightSource,
+        String(r.climate.altitudeM),
+        ALTITUDE_SOURCE_WORDS[r.climate.altitudeSource],
+        MODEL_WORDS[r.attenuationModel],
+        fixed(r.currentAttenuation?.gasDb ?? null, 2),
+        fixed(r.currentAttenuation?.cloudDb ?? null, 2),
+        fixed(r.currentAttenuation?.rainDb ?? null, 2),
+        fixed(r.currentAttenuation?.scintillationDb ?? null, 2),
+        fixed(r.currentAttenuation?.totalDb ?? null, 2),
+      ],
+    };
+  });
   for (const p of problems) {
     const cells: string[] = new Array(CAMPAIGN_RESULT_HEADER.length).fill('');
     cells[0] = p.line === null ? '' : String(p.line);

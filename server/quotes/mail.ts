@@ -1,5 +1,6 @@
 import { htmlFrame, textFrame } from '@/server/mail/templates/layout';
-import { formatMoney } from './totals';
+import { formatMoney } from '@/server/money-format';
+import type { OptionReading } from '@/server/study-option';
 
 const dateWords = (day: string) => new Date(`${day}T00:00:00Z`).toLocaleDateString('en-GB', { day: 'numeric', month: 'long', year: 'numeric', timeZone: 'UTC' });
 
@@ -9,7 +10,8 @@ export type QuoteToCustomerMail = {
   customerName: string;
   reference: string;
   siteName: string;
-  dishLabel: string;
+  /** The quoted option, read as the customer's page reads it. */
+  option: OptionReading;
   total: string;
   currency: string;
   validUntil: string;
@@ -23,7 +25,8 @@ export function quoteToCustomerMail(m: QuoteToCustomerMail): { subject: string; 
   const paragraphs = [
     `Hello ${m.customerName},`,
     ...(m.message ? [m.message] : []),
-    `${m.companyName} has prepared quote ${m.reference} for ${m.siteName}: a ${m.dishLabel} dish, ${formatMoney(m.total, m.currency)} in total, valid until ${dateWords(m.validUntil)}.`,
+    `${m.companyName} has prepared quote ${m.reference} for ${m.siteName}: a ${m.option.diameter.words} dish, ${formatMoney(m.total, m.currency)} in total, valid until ${dateWords(m.validUntil)}.`,
+    `With it: ${m.option.outage.yearWords} Signal available ${m.option.availability.words}.`,
     'The page compares the dish sizes we looked at, in plain words: how many hours a year each would lose the signal to rain, and what each costs. You can accept or decline the quote there with your name.',
     `The link is personal to you and works until ${dateWords(m.linkExpiresAt.toISOString().slice(0, 10))}.`,
   ];
@@ -43,7 +46,7 @@ export type DecisionToTeamMail = {
   customerName: string;
   decidedByName: string;
   siteName: string;
-  dishLabel: string;
+  option: OptionReading;
   total: string;
   currency: string;
   comment: string | null;
@@ -57,7 +60,7 @@ export function decisionToTeamMail(m: DecisionToTeamMail): { subject: string; te
     heading: `${m.reference} was ${verb}`,
     paragraphs: [
       `Hello ${m.recipientName},`,
-      `${m.decidedByName} ${verb} quote ${m.reference} for ${m.customerName} (${m.siteName}): ${m.dishLabel}, ${formatMoney(m.total, m.currency)}.`,
+      `${m.decidedByName} ${verb} quote ${m.reference} for ${m.customerName} (${m.siteName}): ${m.option.diameter.words}, ${formatMoney(m.total, m.currency)}.`,
       ...(m.comment ? [`Their comment: “${m.comment}”`] : []),
       m.decision === 'accepted' ? 'Time to book the installation.' : 'The quote is closed; you can make a new one from the study if they want to talk again.',
     ],

@@ -1,6 +1,6 @@
 import type { StudyInputsSnapshot, StudyResultSnapshot } from '@/server/studies/snapshot';
-import type { TradeoffOption } from '@/server/engine/tradeoff-types';
-import type { QuoteOptionSnapshot, QuoteOutage, QuoteStudySnapshot } from './snapshot';
+import { basisFiguresOf, dishName } from '@/server/study-option';
+import type { QuoteOptionSnapshot, QuoteStudySnapshot } from './snapshot';
 import { sumAmounts } from './totals';
 
 /** The parts of a stored study a quote copies. */
@@ -12,37 +12,25 @@ export interface StudyForQuote {
   result: StudyResultSnapshot;
 }
 
-function outageOf(option: TradeoffOption, basis: 'downlink' | 'two-way'): QuoteOutage {
-  // The study's recommendation basis decides which outage the customer is told about: a
-  // two-way terminal is only useful when both directions work (server/engine/README.md §4).
-  const f = basis === 'two-way' && option.twoWay ? option.twoWay : option;
-  return {
-    outagePercent: f.outagePercent,
-    outageBound: f.outageBound,
-    availabilityPercent: f.availabilityPercent,
-    outageMinutesPerYear: f.outageMinutesPerYear,
-    worstMonthOutageMinutes: f.worstMonthOutageMinutes,
-    isUpperBound: basis === 'two-way' && option.twoWay !== null,
-  };
-}
-
 /** Every option of the study as a customer-facing snapshot, in the study's order. */
 export function quoteOptionsOf(study: StudyForQuote): QuoteOptionSnapshot[] {
   const { tradeoff } = study.result;
   const rec = tradeoff.recommendation;
   return tradeoff.options.map((o, i) => {
     const dish = study.inputs.dishes[i];
-    const closes = o.closes && (rec.basis !== 'two-way' || (o.uplink?.closes ?? true));
+    // The study's recommendation basis decides which outage the customer is told about: a
+    // two-way terminal is only useful when both directions work (server/engine/README.md §4).
+    const { closes, ...outage } = basisFiguresOf(o, rec.basis);
     return {
       index: o.index ?? i,
-      dishName: dish?.name ?? `${Math.round(o.diameterM * 100)} cm dish`,
+      dishName: dishName(dish?.name, o.diameterM),
       diameterM: o.diameterM,
       gainDbi: o.gainDbi,
       gOverTDbK: o.gOverTDbK,
       marginDb: o.marginDb,
       closes,
       fadeThresholdDb: o.fadeThresholdDb,
-      outage: outageOf(o, rec.basis),
+      outage,
       meetsTarget: o.meetsTarget,
       minutesSavedPerYear: o.minutesSavedPerYear,
       hardwarePrice: dish ? sumAmounts(dish.hardwarePrice) : '0.00',

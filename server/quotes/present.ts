@@ -1,5 +1,5 @@
 import type { QuoteOptionSnapshot, QuoteStudySnapshot } from './snapshot';
-import { describeOutage, diameterInWords, savingInWords, type OutageInWords } from './plain-words';
+import { diameterLabel, readQuotedOption, savingWords, type OptionReading } from '@/server/study-option';
 
 /**
  * Turns a quote's snapshots into what the customer's page and the PDF print: one place for the
@@ -22,14 +22,13 @@ export function orbitalPosition(longitudeDeg: number): string {
 
 export interface PresentedOption {
   option: QuoteOptionSnapshot;
+  reading: OptionReading;
   label: string;
-  diameter: string;
-  words: OutageInWords;
   saving: string | null;
   quoted: boolean;
 }
 
-/** The options in the order shown, each with its plain words; the smallest shown dish is the comparison baseline. */
+/** The options in the order shown, each with its reading; the smallest shown dish that works is the comparison baseline. */
 export function presentOptions(options: QuoteOptionSnapshot[], chosenIndex: number): PresentedOption[] {
   const sorted = [...options].sort((a, b) => a.diameterM - b.diameterM || a.index - b.index);
   const baseline = sorted.find((o) => o.closes) ?? sorted[0];
@@ -39,10 +38,9 @@ export function presentOptions(options: QuoteOptionSnapshot[], chosenIndex: numb
     const comparable = o.outage.outageBound === 'none' && baseline?.outage.outageBound === 'none';
     return {
       option: o,
+      reading: readQuotedOption(o),
       label: o.dishName,
-      diameter: diameterInWords(o.diameterM),
-      words: describeOutage({ closes: o.closes, ...o.outage }),
-      saving: o !== baseline && comparable ? savingInWords(saved, diameterInWords(baseline.diameterM).split(' (')[0]) : null,
+      saving: o !== baseline && comparable ? savingWords(saved, diameterLabel(baseline.diameterM).cm) : null,
       quoted: o.index === chosenIndex,
     };
   });

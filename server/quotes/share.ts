@@ -11,7 +11,7 @@ import { sendMail } from '@/server/mail/send';
 import { actorLabel, type QuoteActor } from './actor';
 import { expireOverdueQuotes } from './expire';
 import { quoteToCustomerMail } from './mail';
-import { diameterInWords } from './plain-words';
+import { readQuotedOption } from '@/server/study-option';
 import { isPastValidity, isShareable, quoteReference } from './status';
 
 export function shareUrl(token: string): string {
@@ -96,7 +96,7 @@ export async function emailQuote(
       customerName: q.customerName,
       reference: quoteReference(q.number),
       siteName: q.siteName,
-      dishLabel: diameterInWords(q.chosenOption.diameterM),
+      option: readQuotedOption(q.chosenOption),
       total: q.total,
       currency: q.currency,
       validUntil: q.validUntil,

@@ -11,7 +11,7 @@ import { ConflictError, NotFoundError } from '@/server/errors';
 import { sendMail } from '@/server/mail/send';
 import { expireOverdueQuotes } from './expire';
 import { decisionToTeamMail } from './mail';
-import { diameterInWords } from './plain-words';
+import { readQuotedOption } from '@/server/study-option';
 import { isPastValidity, quoteReference } from './status';
 
 const CUSTOMER_LABEL = 'Customer (comparison link)';
@@ -133,7 +133,7 @@ async function tellTheTeam(companyId: number, quote: QuoteDetail, decision: 'acc
       customerName: quote.customerName,
       decidedByName: input.name,
       siteName: quote.siteName,
-      dishLabel: diameterInWords(quote.chosenOption.diameterM),
+      option: readQuotedOption(quote.chosenOption),
       total: quote.total,
       currency: quote.currency,
       comment: input.comment,

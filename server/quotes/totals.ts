@@ -84,13 +84,3 @@ export function quoteTotals(p: QuotePrices): QuoteTotals {
 export function sumAmounts(...amounts: string[]): string {
   return amounts.reduce((acc, a) => acc.plus(new Money(a)), new Money(0)).toFixed(2);
 }
-
-/** "1249.9" → "1,249.90 USD"-style display: grouping with a thin comma, always two decimals. */
-export function formatMoney(amount: string, currency: string): string {
-  const fixed = new Money(amount).toFixed(2);
-  const [whole, cents] = fixed.split('.');
-  const neg = whole.startsWith('-');
-  const digits = neg ? whole.slice(1) : whole;
-  const grouped = digits.replace(/\B(?=(\d{3})+(?!\d))/g, ',');
-  return `${neg ? '−' : ''}${currency === 'USD' ? '$' : ''}${grouped}.${cents}${currency === 'USD' ? '' : ` ${currency}`}`;
-}

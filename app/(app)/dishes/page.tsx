@@ -7,7 +7,10 @@ import { DishForm } from '@/components/catalogue/dish-form';
 import { DeleteRowButton } from '@/components/catalogue/delete-button';
 import { UploadPanel } from '@/components/uploads/upload-panel';
 import { RecentUploads } from '@/components/uploads/recent-uploads';
-import { diameterLabel, fixed, usd } from '@/components/study/format';
+import { fixed } from '@/components/study/format';
+import { diameterLabel } from '@/server/study-option';
+import { formatMoney } from '@/server/money-format';
+import { sumAmounts } from '@/server/quotes/totals';
 import { requirePermission } from '@/server/auth/guards';
 import { can } from '@/server/auth/permissions';
 import { deleteDish } from '@/server/actions/catalogue';
@@ -57,9 +60,9 @@ export default async function DishesPage() {
                         {size.cm} <span className="text-xs text-stone-600">({size.inches})</span>
                       </Td>
                       <Td numeric className="hidden sm:table-cell">{fixed(Number(d.efficiency), 2)}</Td>
-                      <Td numeric className="hidden md:table-cell">{usd(d.hardwarePrice)}</Td>
-                      <Td numeric className="hidden md:table-cell">{usd(d.labourPrice)}</Td>
-                      <Td numeric>{usd((Number(d.hardwarePrice) + Number(d.labourPrice)).toFixed(2))}</Td>
+                      <Td numeric className="hidden md:table-cell">{formatMoney(d.hardwarePrice)}</Td>
+                      <Td numeric className="hidden md:table-cell">{formatMoney(d.labourPrice)}</Td>
+                      <Td numeric>{formatMoney(sumAmounts(d.hardwarePrice, d.labourPrice))}</Td>
                       <Td className="hidden max-w-xs text-stone-700 lg:table-cell">{d.mountNotes ?? '—'}</Td>
                       <Td className="hidden sm:table-cell">{d.active ? 'offered' : 'not offered'}</Td>
                     </tr>

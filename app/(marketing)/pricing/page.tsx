@@ -1,7 +1,8 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { getFreeTierPlan, getTrialPlan, listPublicPlans } from '@/db/queries/billing';
-import { count, usd } from '@/components/billing/format';
+import { count } from '@/components/billing/format';
+import { formatMoney } from '@/server/money-format';
 
 export const metadata: Metadata = { title: 'Plans and prices', description: 'FadeLedger plans: seats, studies per month, comparison links, uploads and API access.' };
 // Plans live in MariaDB and staff change them; read them on each request.
@@ -21,7 +22,7 @@ export default async function PricingPage() {
         {plans.map((p) => (
           <li key={p.id} className="flex flex-col rounded border border-stone-200 bg-white p-5">
             <h2 className="text-lg font-semibold text-stone-900">{p.name}</h2>
-            <p className="mt-1 font-mono text-2xl text-stone-900">{p.kind === 'paid' ? usd(p.monthlyPriceUsd) : '$0'}<span className="text-sm text-stone-500"> / month</span></p>
+            <p className="mt-1 font-mono text-2xl text-stone-900">{p.kind === 'paid' ? formatMoney(p.monthlyPriceUsd) : '$0'}<span className="text-sm text-stone-500"> / month</span></p>
             {p.description && <p className="mt-2 text-sm text-stone-600">{p.description}</p>}
             <table className="mt-4 text-sm">
               <tbody>

@@ -3,7 +3,8 @@ import Link from 'next/link';
 import { requirePermission } from '@/server/auth/guards';
 import { countCompaniesOnPlan, getPlanProviderSync, listAllPlans } from '@/db/queries/billing';
 import { SyncPlanButton } from '@/components/billing/sync-plan-button';
-import { billingDate, count, usd } from '@/components/billing/format';
+import { billingDate, count } from '@/components/billing/format';
+import { formatMoney } from '@/server/money-format';
 
 export const metadata: Metadata = { title: 'Plan catalogue' };
 export const dynamic = 'force-dynamic';
@@ -47,7 +48,7 @@ export default async function PlansPage() {
                     <Link href={`/plans/${p.id}`} className="text-ledger-800 hover:underline">{p.name}</Link>
                     <span className="block font-mono text-xs font-normal text-stone-500">{p.code} · {p.kind}{p.isPublic ? '' : ' · hidden'}</span>
                   </th>
-                  <td className="num px-3 py-2">{p.kind === 'paid' ? usd(p.monthlyPriceUsd) : '—'}</td>
+                  <td className="num px-3 py-2">{p.kind === 'paid' ? formatMoney(p.monthlyPriceUsd) : '—'}</td>
                   <td className="num px-3 py-2">{count(p.seatLimit)}</td>
                   <td className="num px-3 py-2">{count(p.studiesPerMonth)}</td>
                   <td className="num px-3 py-2">{count(p.activeLinksLimit)}</td>

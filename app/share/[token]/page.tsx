@@ -5,13 +5,14 @@ import { OptionCards } from '@/components/quote/option-cards';
 import { PriceTable } from '@/components/quote/price-table';
 import { CustomerCautions } from '@/components/quote/customer-cautions';
 import { CustomerDecisionForm } from '@/components/quote/customer-decision-form';
-import { day, dayTime, money } from '@/components/quote/format';
+import { day, dayTime } from '@/components/quote/format';
+import { formatMoney } from '@/server/money-format';
 import { Notice } from '@/components/ui/notice';
 import { openSharedPage } from '@/server/quotes/shared-quote';
 import { requestMetaFrom } from '@/server/auth/request-meta';
 import { siteAndServiceInWords } from '@/server/quotes/present';
 import { figuresSourceInWords } from '@/server/quotes/climate-words';
-import { diameterInWords } from '@/server/quotes/plain-words';
+import { diameterLabel } from '@/server/study-option';
 import { isPastValidity, quoteReference } from '@/server/quotes/status';
 
 export const dynamic = 'force-dynamic';
@@ -39,7 +40,7 @@ export default async function SharedQuotePage({ params }: { params: Promise<{ to
   const decided = quote.status === 'accepted' || quote.status === 'declined';
   const expired = !decided && (quote.status === 'expired' || isPastValidity(quote.validUntil));
   const chosen = quote.chosenOption;
-  const total = money(quote.total, quote.currency);
+  const total = formatMoney(quote.total, quote.currency);
   return (
     <div className="min-h-screen bg-stone-50">
       <header className="border-b border-stone-200 bg-white">
@@ -99,7 +100,7 @@ export default async function SharedQuotePage({ params }: { params: Promise<{ to
         <section aria-labelledby="options-title" className="space-y-3">
           <h2 id="options-title" className="text-lg font-semibold text-stone-900">The options</h2>
           <p className="max-w-3xl text-sm text-stone-700">
-            We recommend the {chosen.dishName} ({diameterInWords(chosen.diameterM)}). “Without signal” means the picture or connection drops out while rain is heaviest; it comes back by itself when the rain eases.
+            We recommend the {chosen.dishName} ({diameterLabel(chosen.diameterM).words}). “Without signal” means the picture or connection drops out while rain is heaviest; it comes back by itself when the rain eases.
           </p>
           <OptionCards options={quote.options} chosenIndex={quote.chosenOptionIndex} currency={quote.currency} />
         </section>

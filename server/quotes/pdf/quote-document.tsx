@@ -3,9 +3,9 @@ import type { QuoteDetail } from '@/db/queries/quotes';
 import { quoteCautions } from '../cautions';
 import { figuresSourceInWords } from '../climate-words';
 import { presentOptions, siteAndServiceInWords } from '../present';
-import { diameterInWords } from '../plain-words';
 import { QUOTE_STATUS_LABELS, quoteReference } from '../status';
-import { formatMoney } from '../totals';
+import { formatMoney } from '@/server/money-format';
+import { diameterLabel } from '@/server/study-option';
 import { winAnsi as w } from './win-ansi';
 
 export interface QuotePdfData {
@@ -103,10 +103,10 @@ export function QuoteDocument({ companyName, logo, quote, generatedAt }: QuotePd
 
         {chosen ? (
           <View style={s.box} wrap={false}>
-            <Text style={s.boxTitle}>{w(`We recommend: ${chosen.label}, ${chosen.diameter}`)}</Text>
-            <Text>{w(chosen.words.year)}</Text>
-            {chosen.words.worstMonth ? <Text>{w(chosen.words.worstMonth)}</Text> : null}
-            <Text>{w(`Signal available ${chosen.words.availability}.`)}</Text>
+            <Text style={s.boxTitle}>{w(`We recommend: ${chosen.label}, ${chosen.reading.diameter.words}`)}</Text>
+            <Text>{w(chosen.reading.outage.yearWords)}</Text>
+            {chosen.reading.worstMonth.words ? <Text>{w(chosen.reading.worstMonth.words)}</Text> : null}
+            <Text>{w(`Signal available ${chosen.reading.availability.words}.`)}</Text>
             {chosen.saving ? <Text>{w(chosen.saving)}</Text> : null}
           </View>
         ) : null}
@@ -123,13 +123,13 @@ export function QuoteDocument({ companyName, logo, quote, generatedAt }: QuotePd
             <View key={o.option.index} style={o.quoted ? [s.tr, s.trQuoted] : s.tr} wrap={false}>
               <View style={s.cDish}>
                 <Text style={s.bold}>{w(o.label)}</Text>
-                <Text style={s.small}>{w(o.diameter)}{o.quoted ? ' · quoted' : ''}</Text>
+                <Text style={s.small}>{w(o.reading.diameter.words)}{o.quoted ? ' · quoted' : ''}</Text>
               </View>
               <View style={s.cWords}>
-                <Text>{w(o.words.year)}</Text>
-                {o.words.worstMonth ? <Text style={s.small}>{w(o.words.worstMonth)}</Text> : null}
+                <Text>{w(o.reading.outage.yearWords)}</Text>
+                {o.reading.worstMonth.words ? <Text style={s.small}>{w(o.reading.worstMonth.words)}</Text> : null}
               </View>
-              <Text style={s.cAvail}>{o.option.closes ? w(`${o.option.outage.outageBound === 'below-model-range' ? '>' : o.option.outage.outageBound === 'above-model-range' ? '<' : ''}${(Math.floor(o.option.outage.availabilityPercent * 1000 + 1e-6) / 1000).toFixed(3)} %`) : '-'}</Text>
+              <Text style={s.cAvail}>{w(o.reading.availability.text)}</Text>
               <Text style={s.cPrice}>{money(o.option.cataloguePrice)}</Text>
             </View>
           ))}
@@ -139,7 +139,7 @@ export function QuoteDocument({ companyName, logo, quote, generatedAt }: QuotePd
         <Text style={s.h2}>Price of the quoted option</Text>
         <View wrap={false}>
           <View style={s.priceRow}>
-            <Text>{w(`Hardware: ${chosen ? chosen.label : diameterInWords(quote.chosenOption.diameterM)}`)}</Text>
+            <Text>{w(`Hardware: ${chosen ? chosen.label : diameterLabel(quote.chosenOption.diameterM).words}`)}</Text>
             <Text>{money(quote.hardwarePrice)}</Text>
           </View>
           <View style={s.priceRow}>

@@ -87,7 +87,7 @@ describe('campaignResultCsv', () => {
     const text = campaignResultCsv(
       [
         {
-          line: 2, siteRef: '=HYPERLINK("x")', currentDishCm: 60, currentDishName: 'D60', currentOutageMinutesPerYear: 812.34, currentOutageBound: 'none', currentAvailabilityPercent: 99.84546, verdict: 'upgrade',
+          line: 2, siteRef: '=HYPERLINK("x")', currentDishCm: 60, currentDishName: 'D60', currentCloses: true, currentOutageMinutesPerYear: 812.34, currentOutageBound: 'none', currentAvailabilityPercent: 99.84546, outageIsTwoWaySum: false, verdict: 'upgrade',
           recommendedDishName: 'D90', recommendedDishCm: 90, recommendedOutageMinutesPerYear: 300.01, recommendedOutageBound: 'below-model-range', minutesSavedPerYear: 512.33, upgradePriceUsd: '279.00',
           climate: { r001MmH: 31.27, rainClimateSource: 'ITU-R maps at the site (P.837-7 Annex 1)', rainHeightKm: 2.7665, rainHeightSource: 'ITU-R maps at the site (P.839-4)', altitudeM: 212, altitudeSource: 'ITU-R P.1511-1' },
           attenuationModel: 'total',
@@ -102,8 +102,9 @@ describe('campaignResultCsv', () => {
     expect(parsed[0]).toContain('upgrade_price_usd');
     // In the file's line order, problems included, with their site reference.
     expect(parsed.map((r) => r[0])).toEqual(['line', '1', '2', '3']);
+    // The study's one rounding rule (server/study-option): outages up (an upper bound too), availability and savings down.
     expect(parsed[2]).toEqual([
-      '2', `'=HYPERLINK("x")`, 'D60', '60', '812.3', '', '99.8455', 'upgrade', 'D90', '90', '300.0', 'at most', '512.3', '279.00',
+      '2', `'=HYPERLINK("x")`, 'D60', '60', '813', '', '99.845', 'upgrade', 'D90', '90', '301', 'at most', '512', '279.00',
       '31.3', 'ITU-R maps at the site (P.837-7 Annex 1)', '2.767', 'ITU-R maps at the site (P.839-4)', '212', 'ITU-R P.1511-1 at the site',
       'total: gases, clouds, rain, scintillation', '0.07', '0.26', '3.10', '0.18', '3.44',
     ]);
@@ -112,5 +113,22 @@ describe('campaignResultCsv', () => {
     // A row that was not computed has no climate figures either.
     expect(parsed[3].slice(CAMPAIGN_RESULT_HEADER.indexOf('r001_mm_h')).every((c) => c === '')).toBe(true);
     expect(parsed[3][CAMPAIGN_RESULT_HEADER.indexOf('recommendation')]).toBe('not computed: Line 3: bad.');
+  });
+
+  it('says when the outages are two-way sums, and leaves the availability of a dish that never works blank', () => {
+    const base = {
+      line: 2, siteRef: 'V-1', currentDishCm: 60, currentDishName: 'D60', currentOutageBound: 'none' as const, verdict: 'none-meets-target' as const,
+      recommendedDishName: null, recommendedDishCm: null, recommendedOutageMinutesPerYear: null, recommendedOutageBound: null, minutesSavedPerYear: null, upgradePriceUsd: null,
+      climate: { r001MmH: 31.27, rainClimateSource: 'x', rainHeightKm: 2.7665, rainHeightSource: 'y', altitudeM: 212, altitudeSource: 'file' as const },
+      attenuationModel: 'rain' as const, currentAttenuation: null,
+    };
+    const text = campaignResultCsv([
+      { ...base, currentCloses: true, currentOutageMinutesPerYear: 262.98, currentAvailabilityPercent: 99.95, outageIsTwoWaySum: true },
+      { ...base, line: 3, currentCloses: false, currentOutageMinutesPerYear: 525960, currentAvailabilityPercent: 0, outageIsTwoWaySum: true },
+    ]);
+    const [, twoWay, never] = Papa.parse<string[]>(text.trim()).data;
+    const at = (name: (typeof CAMPAIGN_RESULT_HEADER)[number]) => CAMPAIGN_RESULT_HEADER.indexOf(name);
+    expect([twoWay[at('current_outage_min_per_year')], twoWay[at('current_outage_bound')], twoWay[at('current_availability_percent')]]).toEqual(['263', 'at most (two-way sum)', '99.950']);
+    expect(never[at('current_availability_percent')]).toBe('');
   });
 });

@@ -1,7 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import Decimal from 'decimal.js';
-import { formatMoney, QuotePriceError, quoteTotals, sumAmounts } from '@/server/quotes/totals';
+import { QuotePriceError, quoteTotals, sumAmounts } from '@/server/quotes/totals';
+import { formatMoney } from '@/server/money-format';
 
 const base = { hardwarePrice: '389.00', labourPrice: '180.00', extrasPrice: '0', discountAmount: '0', taxRatePercent: '0' };
 

@@ -8,7 +8,8 @@ import { PortalButton } from '@/components/billing/portal-button';
 import { StatusBadge } from '@/components/billing/status-badge';
 import { UsageTable } from '@/components/billing/usage-table';
 import { RefreshWhilePending } from '@/components/billing/refresh-while-pending';
-import { billingDate, usd } from '@/components/billing/format';
+import { billingDate } from '@/components/billing/format';
+import { formatMoney } from '@/server/money-format';
 import { PageHeader } from '@/components/ui/page-header';
 import { Notice } from '@/components/ui/notice';
 
@@ -34,7 +35,7 @@ function pickable(plans: PlanRow[], o: BillingOverview): PickablePlan[] {
     id: p.id,
     name: p.name,
     description: p.description,
-    priceLabel: p.kind === 'paid' ? `${usd(p.monthlyPriceUsd)} / month` : 'Free',
+    priceLabel: p.kind === 'paid' ? `${formatMoney(p.monthlyPriceUsd)} / month` : 'Free',
     kind: p.kind === 'paid' ? 'paid' : 'free',
     seats: p.seatLimit,
     studiesPerMonth: p.studiesPerMonth,

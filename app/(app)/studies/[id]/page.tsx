@@ -64,7 +64,7 @@ export default async function StudyPage({ params }: { params: Promise<{ id: stri
           <CardHeader
             id="options-title"
             title="Dish by dish"
-            description={`Link budget and ${result.tradeoff.attenuationModel === 'total' ? 'outage (total attenuation: gases, clouds, rain and scintillation)' : 'rain outage'} for each dish, small to large. Outage figures are ${result.tradeoff.recommendation.basis === 'two-way' ? 'two-way (uplink + downlink, an upper bound)' : 'for the downlink'}; hours in small type.`}
+            description={`Link budget and ${result.tradeoff.attenuationModel === 'total' ? 'outage (total attenuation: gases, clouds, rain and scintillation)' : 'rain outage'} for each dish, small to large. Outage figures are ${result.tradeoff.recommendation.basis === 'two-way' ? 'two-way (uplink + downlink, an upper bound)' : 'for the downlink'}; the same outage in hours or days in small type.`}
           />
           <CardBody className="px-0 sm:px-0">
             <OptionsTable studyId={study.id} inputs={inputs} result={result} canQuote={canQuote} />

@@ -14,6 +14,7 @@ import { listClimateProfiles } from '@/db/queries/climate-profiles';
 import { listDishes } from '@/db/queries/dishes';
 import { MAPS_CLIMATE_NAME } from '@/server/studies/maps-climate';
 import { formatDms } from '@/server/validation/coordinates';
+import { sumAmounts } from '@/server/quotes/totals';
 
 export const metadata: Metadata = { title: 'New study' };
 
@@ -39,7 +40,7 @@ export default async function NewStudyPage({ searchParams }: { searchParams: Pro
       location: c.latDeg === null || c.lonDeg === null ? null : { latDeg: Number(c.latDeg), lonDeg: Number(c.lonDeg) },
     })),
     mapsName: MAPS_CLIMATE_NAME,
-    dishes: dishes.map((d) => ({ id: d.id, name: d.name, diameterM: Number(d.diameterM), price: (Number(d.hardwarePrice) + Number(d.labourPrice)).toFixed(2) })),
+    dishes: dishes.map((d) => ({ id: d.id, name: d.name, diameterM: Number(d.diameterM), price: sumAmounts(d.hardwarePrice, d.labourPrice) })),
   };
   const siteId = Number(params.site);
   const presetSite = sites.find((s) => s.id === siteId);
