@@ -44,7 +44,9 @@ function within(range: { min: number; max: number }, unit = '') {
   return z
     .number({ error: 'must be a number' })
     .refine(Number.isFinite, 'must be a finite number')
-    .refine((n) => n >= range.min && n <= range.max, `must be between ${range.min} and ${range.max}${u}`);
+    .refine((n) => n >= range.min && n <= range.max, `must be between ${range.min} and ${range.max}${u}`)
+    // The refinement is invisible to JSON Schema: the OpenAPI document reads the range from here.
+    .meta({ minimum: range.min, maximum: range.max, ...(unit ? { description: `Unit: ${unit}` } : {}) });
 }
 /** Strictly above min (efficiency, probability), at most max. */
 function above(min: number, max: number, unit = '') {
@@ -52,7 +54,8 @@ function above(min: number, max: number, unit = '') {
   return z
     .number({ error: 'must be a number' })
     .refine(Number.isFinite, 'must be a finite number')
-    .refine((n) => n > min && n <= max, `must be above ${min} and at most ${max}${u}`);
+    .refine((n) => n > min && n <= max, `must be above ${min} and at most ${max}${u}`)
+    .meta({ exclusiveMinimum: min, maximum: max, ...(unit ? { description: `Unit: ${unit}` } : {}) });
 }
 
 const money = moneyField('Price in USD', TRADEOFF_MONEY_MAX_USD);
