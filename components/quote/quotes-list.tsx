@@ -4,7 +4,7 @@ import Link from 'next/link';
 import { useState } from 'react';
 import useSWR from 'swr';
 import type { QuoteListItem } from '@/db/queries/quotes';
-import type { QuoteStatus } from '@/server/quotes/snapshot';
+import type { QuoteStatus } from '@/server/quotes/status';
 import { PagedList } from '@/components/study/paged-list';
 import { fetchJson } from '@/components/study/fetch-json';
 import { EmptyRow, Table, TBody, THead, Td, Th } from '@/components/ui/table';

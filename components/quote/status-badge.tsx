@@ -1,4 +1,4 @@
-import type { QuoteStatus } from '@/server/quotes/snapshot';
+import type { QuoteStatus } from '@/server/quotes/status';
 import { QUOTE_STATUS_LABELS } from '@/server/quotes/status';
 
 // One accent colour: open states in teal, the outcome states in calm neutrals with a clear word.

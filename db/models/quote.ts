@@ -1,6 +1,7 @@
 import Decimal from 'decimal.js';
 import { DataTypes, Model, type InferAttributes, type InferCreationAttributes, type CreationOptional, type Sequelize } from 'sequelize';
-import { QUOTE_STATUSES, type QuoteOptionSnapshot, type QuoteStatus, type QuoteStudySnapshot } from '@/server/quotes/snapshot';
+import type { QuoteOptionSnapshot, QuoteStudySnapshot } from '@/server/quotes/snapshot';
+import { QUOTE_STATUSES, type QuoteStatus } from '@/server/quotes/status';
 
 /**
  * A quote made from one option of a study. Options, chosen option and study summary are

@@ -4,7 +4,8 @@ import { QueryTypes, type Transaction } from 'sequelize';
 import { models } from '../models';
 import type { QuoteEventKind } from '../models/quote-event';
 import type { Paged } from '@/server/validation/paging';
-import type { QuoteOptionSnapshot, QuoteStatus, QuoteStudySnapshot } from '@/server/quotes/snapshot';
+import type { QuoteOptionSnapshot, QuoteStudySnapshot } from '@/server/quotes/snapshot';
+import { OPEN_STATUSES, QUOTE_STATUSES, type QuoteStatus } from '@/server/quotes/status';
 import { containsPattern, paged } from './paging';
 
 /** A row of the quotes list: summary columns only, never the JSON snapshots. */
@@ -107,7 +108,10 @@ export async function listQuotes(companyId: number, query: { q: string; page: nu
     where.push(`(${parts.join(' OR ')})`);
     replacements.q = containsPattern(query.q);
   }
-  if (query.status === 'open') where.push("q.status IN ('sent', 'viewed')");
+  if (query.status === 'open') {
+    where.push('q.status IN (:open)');
+    replacements.open = [...OPEN_STATUSES];
+  }
   else if (query.status !== 'all') {
     where.push('q.status = :status');
     replacements.status = query.status;
@@ -132,7 +136,7 @@ export async function countQuotesByStatus(companyId: number): Promise<Record<Quo
     replacements: { companyId },
     type: QueryTypes.SELECT,
   });
-  const out: Record<QuoteStatus, number> = { draft: 0, sent: 0, viewed: 0, accepted: 0, declined: 0, expired: 0 };
+  const out = Object.fromEntries(QUOTE_STATUSES.map((s) => [s, 0])) as Record<QuoteStatus, number>;
   for (const r of rows) out[r.status] = Number(r.n);
   return out;
 }
@@ -381,16 +385,16 @@ export async function listQuoteEvents(companyId: number, quoteId: number): Promi
 export async function lockOverdueQuotes(companyId: number, today: string, t: Transaction): Promise<{ id: number; status: QuoteStatus }[]> {
   const { sequelize } = models();
   return sequelize.query<{ id: number; status: QuoteStatus }>(
-    "SELECT id, status FROM quotes WHERE company_id = :companyId AND status IN ('sent', 'viewed') AND valid_until < :today FOR UPDATE",
-    { replacements: { companyId, today }, type: QueryTypes.SELECT, transaction: t },
+    'SELECT id, status FROM quotes WHERE company_id = :companyId AND status IN (:open) AND valid_until < :today FOR UPDATE',
+    { replacements: { companyId, today, open: [...OPEN_STATUSES] }, type: QueryTypes.SELECT, transaction: t },
   );
 }
 
 /** Whether the company has any sent or viewed quote past its validity (cheap check before locking). */
 export async function hasOverdueQuotes(companyId: number, today: string): Promise<boolean> {
   const { sequelize } = models();
-  const rows = await sequelize.query<{ id: number }>("SELECT id FROM quotes WHERE company_id = :companyId AND status IN ('sent', 'viewed') AND valid_until < :today LIMIT 1", {
-    replacements: { companyId, today },
+  const rows = await sequelize.query<{ id: number }>('SELECT id FROM quotes WHERE company_id = :companyId AND status IN (:open) AND valid_until < :today LIMIT 1', {
+    replacements: { companyId, today, open: [...OPEN_STATUSES] },
     type: QueryTypes.SELECT,
   });
   return rows.length > 0;

@@ -1,7 +1,7 @@
 import 'server-only';
 import { Op, QueryTypes, type Transaction } from 'sequelize';
 import { models } from '../models';
-import type { QuoteStatus } from '@/server/quotes/snapshot';
+import type { QuoteStatus } from '@/server/quotes/status';
 
 export interface ShareLinkItem {
   id: number;

@@ -1,7 +1,7 @@
 import 'server-only';
 import { models } from '@/db/models';
 import { hasOverdueQuotes, insertQuoteEvent, lockOverdueQuotes, moveQuoteStatus } from '@/db/queries/quotes';
-import { utcDay } from './status';
+import { OPEN_STATUSES, utcDay } from './status';
 
 /**
  * Writes down what time already decided: sent or viewed quotes past their validity day become
@@ -15,7 +15,7 @@ export async function expireOverdueQuotes(companyId: number, now: Date = new Dat
   return sequelize.transaction(async (t) => {
     const overdue = await lockOverdueQuotes(companyId, today, t);
     for (const q of overdue) {
-      if (await moveQuoteStatus(companyId, q.id, ['sent', 'viewed'], 'expired', {}, t)) {
+      if (await moveQuoteStatus(companyId, q.id, OPEN_STATUSES, 'expired', {}, t)) {
         await insertQuoteEvent({ companyId, quoteId: q.id, kind: 'expired', fromStatus: q.status, toStatus: 'expired', actorLabel: 'FadeLedger (validity ended)' }, t);
       }
     }

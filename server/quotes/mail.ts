@@ -1,6 +1,7 @@
 import { htmlFrame, textFrame } from '@/server/mail/templates/layout';
 import { formatMoney } from '@/server/money-format';
 import type { OptionReading } from '@/server/study-option';
+import type { DecidedStatus } from './status';
 
 const dateWords = (day: string) => new Date(`${day}T00:00:00Z`).toLocaleDateString('en-GB', { day: 'numeric', month: 'long', year: 'numeric', timeZone: 'UTC' });
 
@@ -41,7 +42,7 @@ export function quoteToCustomerMail(m: QuoteToCustomerMail): { subject: string; 
 
 export type DecisionToTeamMail = {
   recipientName: string;
-  decision: 'accepted' | 'declined';
+  decision: DecidedStatus;
   reference: string;
   customerName: string;
   decidedByName: string;

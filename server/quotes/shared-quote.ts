@@ -12,7 +12,7 @@ import { sendMail } from '@/server/mail/send';
 import { expireOverdueQuotes } from './expire';
 import { decisionToTeamMail } from './mail';
 import { readQuotedOption } from '@/server/study-option';
-import { isPastValidity, quoteReference } from './status';
+import { isDecided, isPastValidity, OPEN_STATUSES, quoteReference, type DecidedStatus } from './status';
 
 const CUSTOMER_LABEL = 'Customer (comparison link)';
 
@@ -87,18 +87,18 @@ export interface CustomerDecision {
  * After commit the sender and the maker of the quote are told by e-mail; a mail failure does not
  * undo the customer's decision (the team sees it in the app either way).
  */
-export async function decideSharedQuote(input: CustomerDecision, meta: RequestMeta, now: Date = new Date()): Promise<{ status: 'accepted' | 'declined'; quoteId: number }> {
+export async function decideSharedQuote(input: CustomerDecision, meta: RequestMeta, now: Date = new Date()): Promise<{ status: DecidedStatus; quoteId: number }> {
   const link = await openLink(input.token, now);
   if (!link) throw new NotFoundError('This link');
   await expireOverdueQuotes(link.companyId, now);
   const { sequelize } = models();
-  const to = input.decision === 'accept' ? 'accepted' : 'declined';
+  const to: DecidedStatus = input.decision === 'accept' ? 'accepted' : 'declined';
   const outcome = await sequelize.transaction(async (t) => {
     const locked = await findLinkByTokenHash(hashToken(input.token), { t, lock: true });
     if (!locked || locked.revokedAt || locked.expiresAt.getTime() <= now.getTime()) throw new NotFoundError('This link');
     const quote = await getQuote(link.companyId, link.quoteId, { t, lock: true });
     if (!quote) throw new NotFoundError('This link');
-    if (quote.status === 'accepted' || quote.status === 'declined') {
+    if (isDecided(quote.status)) {
       throw new ConflictError(`This quote was already ${quote.status}${quote.decidedByName ? ` by ${quote.decidedByName}` : ''}${quote.decidedAt ? ` on ${quote.decidedAt.slice(0, 10)}` : ''}.`);
     }
     if (quote.status === 'expired' || isPastValidity(quote.validUntil, now)) {
@@ -107,7 +107,7 @@ export async function decideSharedQuote(input: CustomerDecision, meta: RequestMe
     const moved = await moveQuoteStatus(
       link.companyId,
       quote.id,
-      ['sent', 'viewed'],
+      OPEN_STATUSES,
       to,
       { decidedAt: now, decidedByName: input.name, decisionComment: input.comment, decisionIp: meta.ip, decisionUserAgent: meta.userAgent, decisionLinkId: link.linkId },
       t,
@@ -120,7 +120,7 @@ export async function decideSharedQuote(input: CustomerDecision, meta: RequestMe
   return { status: to, quoteId: outcome.id };
 }
 
-async function tellTheTeam(companyId: number, quote: QuoteDetail, decision: 'accepted' | 'declined', input: CustomerDecision): Promise<void> {
+async function tellTheTeam(companyId: number, quote: QuoteDetail, decision: DecidedStatus, input: CustomerDecision): Promise<void> {
   const people = await quotePeople(companyId, quote.id);
   const recipients = new Map<string, string>();
   for (const p of [people.sender, people.creator]) if (p) recipients.set(p.email, p.name);

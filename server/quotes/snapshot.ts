@@ -1,19 +1,14 @@
 import type { ExceedanceBound } from '@/server/engine/p618-rain-path';
 import type { ClimateSnapshot } from '@/server/studies/snapshot';
 
+// The lifecycle lives in ./status; the demo seeder still reads the type from here.
+export type { QuoteStatus } from './status';
+
 /**
  * What a quote keeps of its study, frozen at creation: the customer is shown exactly these
  * figures for as long as the quote lives, whatever happens to the study, the catalogue or the
  * engine later. Plain JSON: numbers as numbers, money as decimal strings.
  */
-
-export const QUOTE_STATUSES = ['draft', 'sent', 'viewed', 'accepted', 'declined', 'expired'] as const;
-export type QuoteStatus = (typeof QUOTE_STATUSES)[number];
-
-/** Statuses in which the customer may still decide. */
-export const OPEN_STATUSES: readonly QuoteStatus[] = ['sent', 'viewed'];
-/** Statuses after which nothing changes any more. */
-export const FINAL_STATUSES: readonly QuoteStatus[] = ['accepted', 'declined', 'expired'];
 
 /** Outage of one option on the study's basis (downlink alone, or two-way for VSAT terminals). */
 export interface QuoteOutage {

@@ -1,4 +1,27 @@
-import type { QuoteStatus } from './snapshot';
+/**
+ * The quote lifecycle, in one place: draft → sent → viewed → accepted | declined, or expired when
+ * the validity day passes first. Every check of "which statuses" reads these lists. Pure.
+ */
+export const QUOTE_STATUSES = ['draft', 'sent', 'viewed', 'accepted', 'declined', 'expired'] as const;
+export type QuoteStatus = (typeof QUOTE_STATUSES)[number];
+
+/** With the customer, who may still decide (and which expire when the validity day passes). */
+export const OPEN_STATUSES = ['sent', 'viewed'] as const satisfies readonly QuoteStatus[];
+/** The customer has answered. */
+export const DECIDED_STATUSES = ['accepted', 'declined'] as const satisfies readonly QuoteStatus[];
+export type DecidedStatus = (typeof DECIDED_STATUSES)[number];
+/** Links may be made and e-mails sent: before the customer decides or the quote expires. */
+const SHAREABLE_STATUSES: readonly QuoteStatus[] = ['draft', ...OPEN_STATUSES];
+
+const among = (list: readonly QuoteStatus[], status: QuoteStatus) => list.includes(status);
+
+export function isOpen(status: QuoteStatus): boolean {
+  return among(OPEN_STATUSES, status);
+}
+
+export function isDecided(status: QuoteStatus): status is DecidedStatus {
+  return among(DECIDED_STATUSES, status);
+}
 
 /** Status words shown to the team (the customer sees sentences of their own). */
 export const QUOTE_STATUS_LABELS: Record<QuoteStatus, string> = {
@@ -30,7 +53,7 @@ export function endOfValidity(validUntil: string): Date {
  * wrote that down (expireOverdueQuotes records it on the next read).
  */
 export function effectiveStatus(status: QuoteStatus, validUntil: string, now: Date = new Date()): QuoteStatus {
-  if ((status === 'sent' || status === 'viewed') && isPastValidity(validUntil, now)) return 'expired';
+  if (isOpen(status) && isPastValidity(validUntil, now)) return 'expired';
   return status;
 }
 
@@ -39,9 +62,8 @@ export function isEditable(status: QuoteStatus): boolean {
   return status === 'draft';
 }
 
-/** Links may be made and e-mails sent until the customer decides or the quote expires. */
 export function isShareable(status: QuoteStatus): boolean {
-  return status === 'draft' || status === 'sent' || status === 'viewed';
+  return among(SHAREABLE_STATUSES, status);
 }
 
 /** Quote number as people say it: Q-0042. */

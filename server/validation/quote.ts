@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { checkboxField, idField, idListField, moneyField, optionalEmail, optionalText, requiredText } from './fields';
+import { QUOTE_STATUSES } from '@/server/quotes/status';
 
 /** How long a quote may stay open, days from today (our product rule: a year at most). */
 export const QUOTE_VALIDITY_DAYS = { min: 0, max: 365, default: 30 } as const;
@@ -113,4 +114,4 @@ export const customerDecisionSchema = z
   })
   .refine((v) => v.decision !== 'accept' || v.confirm, { path: ['confirm'], message: 'Tick the box to confirm you accept this quote.' });
 
-export const QUOTE_LIST_STATUSES = ['all', 'draft', 'sent', 'viewed', 'accepted', 'declined', 'expired', 'open'] as const;
+export const QUOTE_LIST_STATUSES = ['all', ...QUOTE_STATUSES, 'open'] as const;

@@ -13,7 +13,7 @@ import { requestMetaFrom } from '@/server/auth/request-meta';
 import { siteAndServiceInWords } from '@/server/quotes/present';
 import { figuresSourceInWords } from '@/server/quotes/climate-words';
 import { diameterLabel } from '@/server/study-option';
-import { isPastValidity, quoteReference } from '@/server/quotes/status';
+import { effectiveStatus, isDecided, quoteReference } from '@/server/quotes/status';
 
 export const dynamic = 'force-dynamic';
 
@@ -37,8 +37,8 @@ export default async function SharedQuotePage({ params }: { params: Promise<{ to
   const ref = quoteReference(quote.number);
   const words = siteAndServiceInWords(quote.studySnapshot);
   const sources = figuresSourceInWords(quote.studySnapshot, companyName);
-  const decided = quote.status === 'accepted' || quote.status === 'declined';
-  const expired = !decided && (quote.status === 'expired' || isPastValidity(quote.validUntil));
+  const decided = isDecided(quote.status);
+  const expired = effectiveStatus(quote.status, quote.validUntil) === 'expired';
   const chosen = quote.chosenOption;
   const total = formatMoney(quote.total, quote.currency);
   return (

@@ -3,7 +3,7 @@ import type { QuoteDetail } from '@/db/queries/quotes';
 import { quoteCautions } from '../cautions';
 import { figuresSourceInWords } from '../climate-words';
 import { presentOptions, siteAndServiceInWords } from '../present';
-import { QUOTE_STATUS_LABELS, quoteReference } from '../status';
+import { effectiveStatus, isDecided, QUOTE_STATUS_LABELS, quoteReference } from '../status';
 import { formatMoney } from '@/server/money-format';
 import { diameterLabel } from '@/server/study-option';
 import { winAnsi as w } from './win-ansi';
@@ -78,7 +78,7 @@ export function QuoteDocument({ companyName, logo, quote, generatedAt }: QuotePd
           <View style={s.refBlock}>
             <Text style={s.ref}>Quote {ref}</Text>
             <Text style={s.small}>Issued {dateWords(quote.sentAt ?? quote.createdAt)} · valid until {dateWords(quote.validUntil)}</Text>
-            <Text style={s.small}>Status: {QUOTE_STATUS_LABELS[quote.status]}</Text>
+            <Text style={s.small}>Status: {QUOTE_STATUS_LABELS[effectiveStatus(quote.status, quote.validUntil, generatedAt)]}</Text>
           </View>
         </View>
 
@@ -179,7 +179,7 @@ export function QuoteDocument({ companyName, logo, quote, generatedAt }: QuotePd
           </>
         ) : null}
 
-        {quote.status === 'accepted' || quote.status === 'declined' ? (
+        {isDecided(quote.status) ? (
           <View style={[s.box, { marginTop: 12 }]} wrap={false}>
             <Text style={s.bold}>{w(`${quote.status === 'accepted' ? 'Accepted' : 'Declined'} by ${quote.decidedByName ?? 'the customer'} on ${quote.decidedAt ? dateWords(quote.decidedAt) : ''}.`)}</Text>
           </View>

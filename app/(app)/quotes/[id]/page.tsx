@@ -19,7 +19,7 @@ import { requirePermission } from '@/server/auth/guards';
 import { can } from '@/server/auth/permissions';
 import { AppError } from '@/server/errors';
 import { readQuote, type QuoteWithHistory } from '@/server/quotes/read-quote';
-import { isEditable, isPastValidity, isShareable, quoteReference } from '@/server/quotes/status';
+import { isDecided, isEditable, isOpen, isPastValidity, isShareable, quoteReference } from '@/server/quotes/status';
 import { siteAndServiceInWords } from '@/server/quotes/present';
 import { figuresSourceInWords } from '@/server/quotes/climate-words';
 import { getCompanyName } from '@/db/queries/branding';
@@ -44,7 +44,7 @@ export default async function QuotePage({ params }: { params: Promise<{ id: stri
   const words = siteAndServiceInWords(quote.studySnapshot);
   // The customer's page names the company that chose any override climate; this card shows the same words.
   const sources = figuresSourceInWords(quote.studySnapshot, (await getCompanyName(ctx.companyId)) ?? 'your company');
-  const waiting = quote.status === 'sent' || quote.status === 'viewed';
+  const waiting = isOpen(quote.status);
   return (
     <>
       <PageHeader
@@ -143,7 +143,7 @@ export default async function QuotePage({ params }: { params: Promise<{ id: stri
           <Card aria-labelledby="links-title">
             <CardHeader id="links-title" title="Comparison links" description="Each link opens this quote for the customer, without an account. Only your team sees the view counts." />
             <CardBody>
-              {!shareable && quote.status !== 'accepted' && quote.status !== 'declined' && (
+              {!shareable && !isDecided(quote.status) && (
                 <p className="mb-3 text-sm text-stone-700">{quote.status === 'draft' ? 'Set a valid-until date from today on to share this draft.' : 'This quote can no longer be shared.'}</p>
               )}
               <LinksPanel quoteId={quote.id} links={links} canShare={canShare} shareable={shareable} />
