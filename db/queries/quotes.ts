@@ -2,6 +2,7 @@ import 'server-only';
 import Decimal from 'decimal.js';
 import { QueryTypes, type Transaction } from 'sequelize';
 import { models } from '../models';
+import type { CompanyLock } from './company-lock';
 import type { QuoteEventKind } from '../models/quote-event';
 import type { Paged } from '@/server/validation/paging';
 import type { QuoteOptionSnapshot, QuoteStudySnapshot } from '@/server/quotes/snapshot';
@@ -240,22 +241,15 @@ export async function getQuote(companyId: number, id: number, opts: { t?: Transa
   return row ? toDetail(row) : null;
 }
 
-/** The next per-company quote number. Call with the company row locked (assertWithinLimit or lockCompany). */
-export async function nextQuoteNumber(companyId: number, t: Transaction): Promise<number> {
+/** The next per-company quote number, under the company row lock: two quotes never share a number. */
+export async function nextQuoteNumber(lock: CompanyLock): Promise<number> {
   const { sequelize } = models();
   const [{ max }] = await sequelize.query<{ max: number | null }>('SELECT MAX(number) AS max FROM quotes WHERE company_id = :companyId FOR UPDATE', {
-    replacements: { companyId },
+    replacements: { companyId: lock.companyId },
     type: QueryTypes.SELECT,
-    transaction: t,
+    transaction: lock.transaction,
   });
   return Number(max ?? 0) + 1;
-}
-
-/** Locks the company row: quote numbers and link counts of one company are handed out one at a time. */
-export async function lockCompany(companyId: number, t: Transaction): Promise<boolean> {
-  const { sequelize } = models();
-  const rows = await sequelize.query<{ id: number }>('SELECT id FROM companies WHERE id = :companyId FOR UPDATE', { replacements: { companyId }, type: QueryTypes.SELECT, transaction: t });
-  return rows.length === 1;
 }
 
 export interface QuoteTermsRow {

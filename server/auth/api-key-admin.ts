@@ -1,7 +1,8 @@
 import 'server-only';
 import { models } from '@/db/models';
 import { countLiveApiKeys, insertApiKey, revokeApiKeyRow } from '@/db/queries/api-keys';
-import { assertWithinLimit } from '@/server/billing/limits';
+import { lockCompanyRow } from '@/db/queries/company-lock';
+import { assertWithinPlan } from '@/server/plan-limit';
 import { ConflictError, NotFoundError } from '@/server/errors';
 import type { CreateApiKeyInput } from '@/server/validation/api-key';
 import type { CompanyAuthContext } from './guards';
@@ -17,14 +18,14 @@ const actorOf = (ctx: CompanyAuthContext) => ({ id: ctx.user.id, name: ctx.user.
 /**
  * Makes a key for the admin's company and returns it — the only time the key exists outside the
  * caller's hands; the database keeps its sha256 and prefix. The plan must include API access
- * (assertWithinLimit also locks the company row, so the live-key count and the insert are one step).
+ * (checked under the company row lock, so the live-key count and the insert are one step).
  */
 export async function createApiKey(ctx: CompanyAuthContext, input: CreateApiKeyInput, meta: RequestMeta): Promise<{ id: number; token: string; prefix: string }> {
   const token = newApiKeyToken();
   const prefix = apiKeyPrefix(token);
   const { sequelize } = models();
   const { id } = await sequelize.transaction(async (t) => {
-    await assertWithinLimit(ctx.companyId, 'apiAccess', t);
+    await assertWithinPlan(await lockCompanyRow(ctx.companyId, t), 'apiAccess');
     if ((await countLiveApiKeys(ctx.companyId, t)) >= MAX_LIVE_API_KEYS) {
       throw new ConflictError(`A company can hold ${MAX_LIVE_API_KEYS} live API keys; revoke one you no longer use first.`);
     }

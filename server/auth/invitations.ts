@@ -4,7 +4,8 @@ import { models } from '@/db/models';
 import type { CompanyRole } from '@/db/models';
 import { getEnv } from '@/server/env';
 import { ConflictError, InvalidInputError, NotFoundError } from '@/server/errors';
-import { assertWithinLimit } from '@/server/billing/limits';
+import { lockCompanyRow } from '@/db/queries/company-lock';
+import { assertWithinPlan } from '@/server/plan-limit';
 import { sendMail } from '@/server/mail/send';
 import { invitationMail } from '@/server/mail/templates/invitation';
 import { createInvitation, findInvitationByTokenHash, findInvitationInCompany, findPendingInvitationByEmail, type InvitationRow } from '@/db/queries/invitations';
@@ -41,7 +42,7 @@ async function mailInvitation(ctx: CompanyAuthContext, invitation: { email: stri
 
 /**
  * Invites an address with a role. The seat check and the insert share one transaction that
- * holds the company row lock (assertWithinLimit), so parallel invitations can never take more
+ * holds the company row lock (lockCompanyRow), so parallel invitations can never take more
  * seats than the plan has. If the mail cannot be sent, the invitation is withdrawn again and
  * the seat is free: nothing is left half-done.
  */
@@ -50,7 +51,7 @@ export async function inviteMember(ctx: CompanyAuthContext, input: { email: stri
   const email = normaliseEmail(input.email);
   const token = newToken();
   const invitation = await sequelize.transaction(async (t) => {
-    await assertWithinLimit(ctx.companyId, 'seats', t);
+    await assertWithinPlan(await lockCompanyRow(ctx.companyId, t), 'seats');
     if (await isMemberByEmail(ctx.companyId, email, t)) throw new InvalidInputError(`${email} is already a member of ${ctx.company.name}.`, { email: ['Already a member.'] });
     if (await findPendingInvitationByEmail(ctx.companyId, email, t)) {
       throw new InvalidInputError(`${email} already has a pending invitation. Resend it from the list instead.`, { email: ['Already invited.'] });
@@ -85,7 +86,7 @@ export async function resendInvitation(ctx: CompanyAuthContext, invitationId: nu
     if (row.revokedAt) throw new ConflictError('This invitation was revoked. Invite the address again instead.');
     const sinceLast = (Date.now() - row.lastSentAt.getTime()) / 1000;
     if (sinceLast < RESEND_COOLDOWN_SECONDS) throw new ConflictError(`The invitation to ${row.email} was sent less than a minute ago. Give it a moment to arrive.`);
-    if (row.expiresAt.getTime() <= Date.now()) await assertWithinLimit(ctx.companyId, 'seats', t);
+    if (row.expiresAt.getTime() <= Date.now()) await assertWithinPlan(await lockCompanyRow(ctx.companyId, t), 'seats');
     await row.update(
       { tokenHash: hashToken(token), expiresAt: new Date(Date.now() + INVITATION_DAYS * 86_400_000), lastSentAt: new Date(), sendCount: row.sendCount + 1 },
       { transaction: t },
@@ -144,7 +145,7 @@ async function spendInvitation<T>(token: string, work: (inv: InvitationRow, t: T
   const early = deadState(peek?.invitation ?? null);
   if (early || !peek) throw new InvalidInputError(INVITATION_DEAD[early ?? 'unknown']);
   return sequelize.transaction(async (t) => {
-    await sequelize.query('SELECT id FROM companies WHERE id = :id FOR UPDATE', { replacements: { id: peek.invitation.companyId }, transaction: t });
+    await lockCompanyRow(peek.invitation.companyId, t);
     const locked = await findInvitationByTokenHash(hashToken(token), t, true);
     const dead = deadState(locked?.invitation ?? null);
     if (dead || !locked) throw new InvalidInputError(INVITATION_DEAD[dead ?? 'unknown']);

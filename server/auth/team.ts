@@ -1,26 +1,23 @@
 import 'server-only';
-import type { Transaction } from 'sequelize';
 import { models } from '@/db/models';
 import type { CompanyRole } from '@/db/models';
 import { ConflictError, NotFoundError } from '@/server/errors';
 import { countAdmins, deleteMember, findMemberInCompany, setMemberRole } from '@/db/queries/team';
 import { deleteUserSessionsInCompany } from '@/db/queries/sessions';
+import { lockCompanyRow } from '@/db/queries/company-lock';
 import { ROLE_LABELS } from './permissions';
 import { audit } from './audit';
 import type { CompanyAuthContext } from './guards';
 import type { RequestMeta } from './request-meta';
 
-/** Team changes serialise on the company row, so two admins demoting each other cannot both win. */
-async function lockCompany(companyId: number, t: Transaction): Promise<void> {
-  await models().sequelize.query('SELECT id FROM companies WHERE id = :id FOR UPDATE', { replacements: { id: companyId }, transaction: t });
-}
 
 const lastAdmin = (name: string) => `${name} is the only admin of this company. Make someone else an admin first.`;
 
 export async function changeMemberRole(ctx: CompanyAuthContext, membershipId: number, role: CompanyRole, meta: RequestMeta): Promise<{ name: string; changed: boolean }> {
   const { sequelize } = models();
   return sequelize.transaction(async (t) => {
-    await lockCompany(ctx.companyId, t);
+    // Team changes serialise on the company row, so two admins demoting each other cannot both win.
+    await lockCompanyRow(ctx.companyId, t);
     const member = await findMemberInCompany(ctx.companyId, membershipId, t, true);
     if (!member) throw new NotFoundError('That member');
     if (member.role === role) return { name: member.name, changed: false };
@@ -42,7 +39,8 @@ export async function changeMemberRole(ctx: CompanyAuthContext, membershipId: nu
 export async function removeMember(ctx: CompanyAuthContext, membershipId: number, meta: RequestMeta): Promise<{ name: string; self: boolean }> {
   const { sequelize } = models();
   return sequelize.transaction(async (t) => {
-    await lockCompany(ctx.companyId, t);
+    // Team changes serialise on the company row, so two admins demoting each other cannot both win.
+    await lockCompanyRow(ctx.companyId, t);
     const member = await findMemberInCompany(ctx.companyId, membershipId, t, true);
     if (!member) throw new NotFoundError('That member');
     if (member.role === 'admin' && (await countAdmins(ctx.companyId, t)) <= 1) throw new ConflictError(lastAdmin(member.name));

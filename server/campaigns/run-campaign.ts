@@ -4,7 +4,8 @@ import { listDishes } from '@/db/queries/dishes';
 import { getServiceProfile } from '@/db/queries/service-profiles';
 import { getClimateProfile } from '@/db/queries/climate-profiles';
 import { InvalidInputError, NotFoundError } from '@/server/errors';
-import { assertUploadWithinPlan } from '@/server/studies/plan-limit';
+import { lockCompanyRow } from '@/db/queries/company-lock';
+import { assertWithinPlan } from '@/server/plan-limit';
 import { climateSnapshotOf, dishSnapshotOf, serviceSnapshotOf } from '@/server/studies/snapshot-of';
 import { EACH_SITE_CLIMATE_LABEL, type CampaignInput } from '@/server/validation/campaign';
 import { computeCampaign, type CampaignOutcome } from './campaign-compute';
@@ -33,7 +34,7 @@ export interface CampaignResponse extends Omit<CampaignOutcome, 'results'> {
 
 /**
  * An upgrade campaign, computed on request and kept nowhere. The plan's monthly upload limit is
- * checked inside a transaction (the company row lock of assertWithinLimit); no upload row is
+ * checked inside a transaction under the company row lock (lockCompanyRow); no upload row is
  * written, so a campaign is checked against the limit but not counted (the uploads table's kind
  * enum has no campaign kind).
  */
@@ -55,7 +56,7 @@ export async function runCampaign(companyId: number, input: CampaignInput): Prom
     // No profile: each site's own rain climate from the ITU-R maps (the default, server/engine/README.md §1).
     const climate = input.climateProfileId === null ? null : await getClimateProfile(companyId, input.climateProfileId, t);
     if (input.climateProfileId !== null && !climate) throw new NotFoundError('That climate profile');
-    await assertUploadWithinPlan(companyId, t);
+    await assertWithinPlan(await lockCompanyRow(companyId, t), 'uploadsPerMonth');
     return { service, climate, dishes: await listDishes(companyId, { activeOnly: true }) };
   });
   if (dishes.length === 0) {

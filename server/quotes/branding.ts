@@ -1,7 +1,8 @@
 import 'server-only';
 import { models } from '@/db/models';
 import { clearCompanyLogo, setCompanyLogo } from '@/db/queries/branding';
-import { assertWithinLimit } from '@/server/billing/limits';
+import { lockCompanyRow } from '@/db/queries/company-lock';
+import { assertWithinPlan } from '@/server/plan-limit';
 import { InvalidInputError } from '@/server/errors';
 import { inspectLogo, LogoImageError, type LogoImage } from './logo-image';
 
@@ -20,7 +21,7 @@ export async function uploadLogo(companyId: number, bytes: Buffer): Promise<Logo
   }
   const { sequelize } = models();
   await sequelize.transaction(async (t) => {
-    await assertWithinLimit(companyId, 'quoteBranding', t);
+    await assertWithinPlan(await lockCompanyRow(companyId, t), 'quoteBranding');
     await setCompanyLogo(companyId, { mime: image.mime, data: bytes, width: image.width, height: image.height }, t);
   });
   return image;

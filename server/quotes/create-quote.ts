@@ -1,7 +1,8 @@
 import 'server-only';
 import { models } from '@/db/models';
 import { getStudy } from '@/db/queries/studies';
-import { getQuote, insertQuote, insertQuoteEvent, lockCompany, nextQuoteNumber, updateQuoteTerms, deleteDraftQuote, type QuoteTermsRow } from '@/db/queries/quotes';
+import { getQuote, insertQuote, insertQuoteEvent, nextQuoteNumber, updateQuoteTerms, deleteDraftQuote, type QuoteTermsRow } from '@/db/queries/quotes';
+import { lockCompanyRow } from '@/db/queries/company-lock';
 import { revokeAllShareLinks } from '@/db/queries/share-links';
 import { ConflictError, InvalidInputError, NotFoundError } from '@/server/errors';
 import type { NewQuoteInput, UpdateQuoteInput } from '@/server/validation/quote';
@@ -59,8 +60,7 @@ export async function createQuote(actor: QuoteActor, input: NewQuoteInput, now: 
 
   const { sequelize } = models();
   return sequelize.transaction(async (t) => {
-    if (!(await lockCompany(actor.companyId, t))) throw new NotFoundError('That company');
-    const number = await nextQuoteNumber(actor.companyId, t);
+    const number = await nextQuoteNumber(await lockCompanyRow(actor.companyId, t));
     const id = await insertQuote(
       actor.companyId,
       {

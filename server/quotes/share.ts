@@ -3,7 +3,8 @@ import type { Transaction } from 'sequelize';
 import { models } from '@/db/models';
 import { getQuote, insertQuoteEvent, moveQuoteStatus, type QuoteDetail } from '@/db/queries/quotes';
 import { insertShareLink, revokeShareLink } from '@/db/queries/share-links';
-import { assertWithinLimit } from '@/server/billing/limits';
+import { lockCompanyRow } from '@/db/queries/company-lock';
+import { assertWithinPlan } from '@/server/plan-limit';
 import { hashToken, newToken } from '@/server/auth/tokens';
 import { getEnv } from '@/server/env';
 import { ConflictError, InvalidInputError, NotFoundError } from '@/server/errors';
@@ -41,7 +42,7 @@ function assertCanShare(quote: QuoteDetail, now: Date): void {
  * the company lock), and the quote moves draft → sent with the sharer as its sender.
  */
 async function addLink(actor: QuoteActor, quoteId: number, days: number, now: Date, t: Transaction, via: 'link' | 'email'): Promise<NewShareLink & { quote: QuoteDetail }> {
-  await assertWithinLimit(actor.companyId, 'activeLinks', t);
+  await assertWithinPlan(await lockCompanyRow(actor.companyId, t), 'activeLinks');
   const quote = await getQuote(actor.companyId, quoteId, { t, lock: true });
   if (!quote) throw new NotFoundError('That quote');
   assertCanShare(quote, now);

@@ -9,7 +9,8 @@ import { insertStudy } from '@/db/queries/studies';
 import { InvalidInputError, NotFoundError } from '@/server/errors';
 import type { NewStudyInput } from '@/server/validation/study';
 import { toStudyInputError } from './engine-errors';
-import { assertStudyWithinPlan } from './plan-limit';
+import { lockCompanyRow } from '@/db/queries/company-lock';
+import { assertWithinPlan } from '@/server/plan-limit';
 import { computeStudyFromRows } from './snapshot-of';
 import { resolveSiteAltitude } from './site-altitude';
 import type { StudyInputsSnapshot, StudyResultSnapshot } from './snapshot';
@@ -62,7 +63,7 @@ export async function createStudy(actor: StudyActor, input: NewStudyInput): Prom
 
     // The map altitude is read before anything is written, so a site it cannot fill is refused cleanly.
     const altitude = 'id' in input.site ? null : resolveSiteAltitude(input.site.latDeg, input.site.lonDeg, input.site.altitudeM);
-    await assertStudyWithinPlan(companyId, t);
+    await assertWithinPlan(await lockCompanyRow(companyId, t), 'studiesPerMonth');
     if (!('id' in input.customer)) {
       customer = await createCustomer(companyId, { name: input.customer.name, email: null, phone: null, notes: null }, t);
     }

@@ -9,7 +9,8 @@ import { getStudy, insertStudy, nextRevision } from '@/db/queries/studies';
 import { ConflictError, NotFoundError } from '@/server/errors';
 import { recommendedDiameterOf, type StudyActor } from './create-study';
 import { toStudyInputError } from './engine-errors';
-import { assertStudyWithinPlan } from './plan-limit';
+import { lockCompanyRow } from '@/db/queries/company-lock';
+import { assertWithinPlan } from '@/server/plan-limit';
 import { computeStudyFromRows } from './snapshot-of';
 
 /**
@@ -40,7 +41,7 @@ export async function rerunStudy(actor: StudyActor, studyId: number): Promise<{ 
     const dishes = await getDishesByIds(companyId, ids, t);
     if (dishes.length === 0) throw gone('dish selection');
 
-    await assertStudyWithinPlan(companyId, t);
+    await assertWithinPlan(await lockCompanyRow(companyId, t), 'studiesPerMonth');
     let computed;
     try {
       computed = computeStudyFromRows({ site, customerName: customer.name, service, climate, dishes, targetAvailabilityPercent: old.targetAvailabilityPercent });

@@ -5,7 +5,8 @@ import { isEngineInputError } from '@/server/engine/errors';
 import type { TradeoffResult } from '@/server/engine/tradeoff-types';
 import { InvalidInputError } from '@/server/errors';
 import type { TradeoffScenarioInput } from '@/server/validation/tradeoff-scenario';
-import { assertApiWithinPlan } from './plan-limit';
+import { lockCompanyRow } from '@/db/queries/company-lock';
+import { assertWithinPlan } from '@/server/plan-limit';
 import { scenarioFromMaps, type MapInputs } from './tradeoff-scenario-from-maps';
 
 /** The engine's result, plus what the ITU-R maps supplied that the request left out. */
@@ -19,7 +20,7 @@ export type TradeoffApiResult = TradeoffResult & { mapInputs: MapInputs };
  */
 export async function runTradeoffForApi(companyId: number, input: TradeoffScenarioInput): Promise<TradeoffApiResult> {
   const { sequelize } = models();
-  await sequelize.transaction((t) => assertApiWithinPlan(companyId, t));
+  await sequelize.transaction(async (t) => assertWithinPlan(await lockCompanyRow(companyId, t), 'apiAccess'));
   try {
     const { scenario, mapInputs } = scenarioFromMaps(input);
     return { ...dishTradeoff(scenario), mapInputs };

@@ -4,7 +4,8 @@ import { createUpload } from '@/db/queries/uploads';
 import { upsertDishesByName } from '@/db/queries/dishes';
 import { createClimateProfile } from '@/db/queries/climate-profiles';
 import { InvalidInputError } from '@/server/errors';
-import { assertUploadWithinPlan } from '@/server/studies/plan-limit';
+import { lockCompanyRow } from '@/db/queries/company-lock';
+import { assertWithinPlan } from '@/server/plan-limit';
 import type { UploadConfirmInput } from '@/server/validation/upload';
 import { parseUpload } from './parse-upload';
 import type { ParseReport } from './parse-report';
@@ -32,7 +33,7 @@ export async function confirmUpload(actor: { companyId: number; userId: string }
   if (!parsed.report.ok) refuse(parsed.report);
   const { sequelize } = models();
   return sequelize.transaction(async (t) => {
-    await assertUploadWithinPlan(actor.companyId, t);
+    await assertWithinPlan(await lockCompanyRow(actor.companyId, t), 'uploadsPerMonth');
     const upload = await createUpload(actor.companyId, { kind: input.kind, filename, bytes, report: parsed.report, userId: actor.userId }, t);
     if (parsed.kind === 'dish-catalogue') {
       const { added, updated } = await upsertDishesByName(actor.companyId, parsed.dishes, t);
