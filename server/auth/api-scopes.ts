@@ -7,7 +7,7 @@ import type { Permission } from './permissions';
  * team-management and catalogue-editing permissions stay with signed-in people).
  *
  * Keys never gain more than the permission map gives an admin: every permission below is an
- * admin's too (checked by tests/unit/auth-api-scopes.test.ts).
+ * admin's too (checked by tests/unit/auth-api-keys.test.ts).
  */
 export const API_SCOPES = ['read', 'trade-off', 'studies', 'quotes'] as const;
 export type ApiScope = (typeof API_SCOPES)[number];
