@@ -1,5 +1,6 @@
 import type { Metadata, Viewport } from 'next';
 import type { ReactNode } from 'react';
+import { connection } from 'next/server';
 import { uiFont, figuresFont } from './fonts';
 import './globals.css';
 
@@ -10,7 +11,10 @@ export const metadata: Metadata = {
 
 export const viewport: Viewport = { width: 'device-width', initialScale: 1, themeColor: '#1f6f69' };
 
-export default function RootLayout({ children }: { children: ReactNode }) {
+export default async function RootLayout({ children }: { children: ReactNode }) {
+  // Every page renders per request: Next stamps its scripts with the nonce that proxy.ts put in
+  // this request's CSP, and a page built ahead of time would carry none (and not run).
+  await connection();
   return (
     <html lang="en" className={`${uiFont.variable} ${figuresFont.variable}`}>
       <body className="min-h-screen font-sans">{children}</body>

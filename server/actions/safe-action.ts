@@ -3,6 +3,7 @@ import { z } from 'zod';
 import { unstable_rethrow } from 'next/navigation';
 import { AppError, InvalidInputError } from '@/server/errors';
 import { resolveAccess, type Access, type ContextForAccess } from '@/server/auth/access';
+import { isDatabaseUnavailable } from '@/db/unavailable';
 
 /**
  * What every server action returns to its form (React's useActionState). Failures carry a
@@ -26,6 +27,9 @@ export type ActionResult<T> = { data?: T; message?: string } | void;
  * "confirmPin" is covered without anyone remembering to list it.
  */
 const SECRET_FIELD = /pass|pwd|current|confirm|repeat|token|secret|code|key|otp|pin|cvc|cvv|card/i;
+
+// Not "nothing was saved": the connection may have dropped after a commit. The form keeps what was typed.
+const DATABASE_DOWN = 'FadeLedger is briefly unavailable. Please try again in a minute.';
 
 /** FormData to a plain object: repeated names become arrays; Next's internal fields are dropped. */
 export function formDataToObject(form: FormData): Record<string, unknown> {
@@ -93,6 +97,7 @@ export function safeAction<S extends z.ZodType, A extends Access, T = unknown>(
         return { ok: false, error: error.message, code: error.code, fieldErrors: error.fieldErrors, values: echoValues(raw) };
       }
       if (error instanceof AppError) return { ok: false, error: error.message, code: error.code, values: echoValues(raw) };
+      if (isDatabaseUnavailable(error)) return { ok: false, error: DATABASE_DOWN, code: 'unavailable', values: echoValues(raw) };
       console.error('action failed:', error);
       return { ok: false, error: 'Something went wrong on our side. Nothing was changed; please try again.', code: 'internal', values: echoValues(raw) };
     }

@@ -4,6 +4,7 @@ import { NextResponse } from 'next/server';
 import { unstable_rethrow } from 'next/navigation';
 import { AppError, ForbiddenError, InvalidInputError, RateLimitedError } from '@/server/errors';
 import { getEnv } from '@/server/env';
+import { DB_RETRY_AFTER_SECONDS, isDatabaseUnavailable } from '@/db/unavailable';
 import { resolveAccess, type Access, type ContextForAccess } from '@/server/auth/access';
 import { fieldErrorsFrom } from '@/server/actions/safe-action';
 import { bearerTokenOf } from '@/server/auth/api-key-token';
@@ -89,6 +90,11 @@ export function errorResponse(error: unknown): Response {
     const body: ApiErrorBody = { error: { code: error.code, message: error.message } };
     if (error instanceof InvalidInputError && Object.keys(error.fieldErrors).length) body.error.fieldErrors = error.fieldErrors;
     return NextResponse.json(body, { status: error.status, headers });
+  }
+  // MariaDB out of reach is not our bug: 503 with a time to come back, and nothing else said.
+  if (isDatabaseUnavailable(error)) {
+    headers['Retry-After'] = String(DB_RETRY_AFTER_SECONDS);
+    return NextResponse.json<ApiErrorBody>({ error: { code: 'unavailable', message: 'The service is briefly unavailable. Try again shortly.' } }, { status: 503, headers });
   }
   console.error('route handler failed:', error);
   return NextResponse.json<ApiErrorBody>({ error: { code: 'internal', message: 'Something went wrong on our side.' } }, { status: 500, headers });
