@@ -27,7 +27,8 @@ type Call = { url: string; params?: Record<string, string>; json?: unknown };
 const EXPECTED: Record<string, { scope: ApiScope | 'any' | 'public'; call: (w: World) => Call }> = {
   'GET /api/v1/me': { scope: 'any', call: () => ({ url: '/api/v1/me' }) },
   'GET /api/v1/openapi.json': { scope: 'public', call: () => ({ url: '/api/v1/openapi.json' }) },
-  'POST /api/v1/tradeoff': { scope: 'trade-off', call: () => ({ url: '/api/v1/tradeoff', json: SCENARIO }) },
+  // The document's own example body: the reference's example runs.
+  'POST /api/v1/tradeoff': { scope: 'trade-off', call: () => ({ url: '/api/v1/tradeoff', json: documented('POST /api/v1/tradeoff')!.bodyExample }) },
   'GET /api/v1/studies': { scope: 'studies', call: () => ({ url: '/api/v1/studies?pageSize=5' }) },
   'GET /api/v1/studies/[id]': { scope: 'studies', call: (w) => ({ url: `/api/v1/studies/${w.studyId}`, params: { id: String(w.studyId) } }) },
   'GET /api/v1/dashboard': { scope: 'studies', call: () => ({ url: '/api/v1/dashboard' }) },
@@ -41,14 +42,6 @@ const EXPECTED: Record<string, { scope: ApiScope | 'any' | 'public'; call: (w: W
   'GET /api/v1/uploads/[id]': { scope: 'read', call: (w) => ({ url: `/api/v1/uploads/${w.uploadId}`, params: { id: String(w.uploadId) } }) },
 };
 
-// Invented scenario (demo figures): coordinates only, the maps fill in the rest.
-const SCENARIO = {
-  site: { latDeg: 47.1, lonDeg: 2.6 },
-  satellite: { longitudeDeg: -19.5 },
-  downlink: { frequencyGHz: 11.75, tiltDeg: 20, eirpDbw: 50, symbolRateMsps: 27.5, requiredEsN0Db: 7.91, implementationMarginDb: 1 },
-  receiver: { lnbNoiseTempK: 60, antennaNoiseTempK: 40 },
-  dishes: [{ diameterM: 0.6, efficiency: 0.65 }, { diameterM: 0.9, efficiency: 0.65 }],
-};
 
 const modules = import.meta.glob<RouteModule>('/app/api/v1/**/route.ts');
 const ROUTES: { name: string; handler: Handler }[] = [];

@@ -70,7 +70,7 @@ function operation(op: ApiOperation): Json {
     summary: op.summary,
     description,
     ...(parameters.length ? { parameters } : {}),
-    ...(op.body ? { requestBody: { required: true, content: { 'application/json': { schema: jsonSchema(op.body, 'input') } } } } : {}),
+    ...(op.body ? { requestBody: { required: true, content: { 'application/json': { schema: jsonSchema(op.body, 'input'), ...(op.bodyExample ? { example: op.bodyExample } : {}) } } } } : {}),
     responses,
     security:
       op.permission === 'public'

@@ -25,6 +25,8 @@ export type ApiOperation = {
   keyScope?: ApiScope;
   query?: z.ZodType;
   body?: z.ZodType;
+  /** A body that works against the demo (shown as the request example). */
+  bodyExample?: unknown;
   /** JSON answer, or a file of this content type. */
   response: { json: z.ZodType } | { file: string; description: string };
   /** Path ids that another company's rows answer 404 for. */
@@ -34,6 +36,16 @@ export type ApiOperation = {
 };
 
 const KEY = '-H "Authorization: Bearer $FADELEDGER_KEY"';
+
+/** An invented site in central France, coordinates only (the maps fill in the rest), two dishes. */
+const DEMO_SCENARIO = {
+  site: { latDeg: 47.1, lonDeg: 2.6 },
+  satellite: { longitudeDeg: -19.5 },
+  downlink: { frequencyGHz: 11.75, tiltDeg: 20, eirpDbw: 50, symbolRateMsps: 27.5, requiredEsN0Db: 7.91, implementationMarginDb: 1 },
+  receiver: { lnbNoiseTempK: 60, antennaNoiseTempK: 40 },
+  dishes: [{ diameterM: 0.6, efficiency: 0.65 }, { diameterM: 0.9, efficiency: 0.65 }],
+  targetAvailabilityPercent: 99.7,
+};
 
 export const API_OPERATIONS: readonly ApiOperation[] = [
   {
@@ -47,7 +59,10 @@ export const API_OPERATIONS: readonly ApiOperation[] = [
     summary: 'Dish-size trade-off for a scenario (nothing saved)',
     description:
       'The site, satellite, downlink, receiver and dishes in; margins, availability, outage minutes a year per dish and the recommended dish out. Coordinates are enough: a missing altitude, rain climate, rain height and the atmosphere are read from the ITU-R maps at the site (reported in `mapInputs`); send `atmosphere: null` for rain-only figures. A site without map data or a satellite below the horizon is a 422 naming the field. Needs a plan with API access.',
-    example: `curl ${KEY} -H "Content-Type: application/json" \\\n  -d '{"site":{"latDeg":47.1,"lonDeg":2.6},"satellite":{"longitudeDeg":-19.5},"downlink":{"frequencyGHz":11.75,"tiltDeg":20,"eirpDbw":50,"symbolRateMsps":27.5,"requiredEsN0Db":7.91,"implementationMarginDb":1},"receiver":{"lnbNoiseTempK":60,"antennaNoiseTempK":40},"dishes":[{"diameterM":0.6,"efficiency":0.65},{"diameterM":0.9,"efficiency":0.65}]}' \\\n  $FADELEDGER_URL/api/v1/tradeoff`,
+    bodyExample: DEMO_SCENARIO,
+    example: `curl ${KEY} -H "Content-Type: application/json" \\
+  -d '${JSON.stringify(DEMO_SCENARIO)}' \\
+  $FADELEDGER_URL/api/v1/tradeoff`,
   },
   {
     method: 'get', route: '/api/v1/studies', tag: 'Studies', permission: 'study.read', query: studyListQuerySchema, response: { json: R.studyListSchema },
@@ -71,7 +86,8 @@ export const API_OPERATIONS: readonly ApiOperation[] = [
   {
     method: 'get', route: '/api/v1/quotes/[id]/pdf', tag: 'Quotes', permission: 'quote.read', byId: true, response: { file: 'application/pdf', description: 'The quote as a PDF (attachment).' },
     summary: 'The quote as a PDF',
-    example: `curl ${KEY} -o quote.pdf $FADELEDGER_URL/api/v1/quotes/1/pdf`,
+    description: 'Take a quote id from GET /api/v1/quotes.',
+    example: `curl ${KEY} -o quote.pdf "$FADELEDGER_URL/api/v1/quotes/$QUOTE_ID/pdf"`,
   },
   {
     method: 'get', route: '/api/v1/branding/logo', tag: 'Quotes', permission: 'quote.read', response: { file: 'image/png', description: 'The company’s quote logo (PNG or JPEG); 404 when none is kept.' },
