@@ -15,6 +15,8 @@ export const AUDIT_LABELS: Record<AuditAction, string> = {
   'session.signed_in': 'Signed in',
   'session.sign_in_failed': 'Failed sign-in (wrong password) for',
   'session.sign_in_throttled': 'Sign-in refused (too many attempts) for',
+  'session.unlock_link_sent': 'Link to sign in past the limits e-mailed to',
+  'session.unlocked': 'Let a browser sign in with the e-mailed link for',
   'session.signed_out': 'Signed out',
   'session.revoked': 'Signed out another device',
   'session.signed_out_everywhere': 'Signed out everywhere',

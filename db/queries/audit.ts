@@ -16,6 +16,8 @@ export type AuditAction =
   | 'session.signed_in'
   | 'session.sign_in_failed'
   | 'session.sign_in_throttled'
+  | 'session.unlock_link_sent'
+  | 'session.unlocked'
   | 'session.signed_out'
   | 'session.revoked'
   | 'session.signed_out_everywhere'

@@ -1,42 +1,56 @@
 import 'server-only';
 import { createHash } from 'node:crypto';
-import { Op, QueryTypes, Transaction } from 'sequelize';
+import { Op, QueryTypes, Transaction, type WhereOptions } from 'sequelize';
 import { models } from '@/db/models';
-import type { AttemptKind } from '@/db/models/sign-in-attempt';
+import type { AttemptKind, SignInAttempt } from '@/db/models/sign-in-attempt';
 
-/** One throttle bucket: attempts of a kind by one address, one IP, or (ip: null) every unknown IP. */
-export type AttemptKey = { column: 'email'; value: string } | { column: 'ip'; value: string | null };
+/**
+ * One throttle bucket: the attempts of a kind that match every condition given. A null value
+ * matches NULL (the shared bucket of requests whose IP is unknown); `trusted: false` keeps
+ * attempts from browsers trusted for their address out of the buckets strangers share.
+ */
+export type AttemptKey = { email?: string; ip?: string | null; client?: string; trusted?: false };
+
+const COLUMNS = ['email', 'ip', 'client', 'trusted'] as const;
+
+function whereOf(kind: AttemptKind, key: AttemptKey, since: Date, now: Date, failuresOnly: boolean): WhereOptions<SignInAttempt> {
+  // The upper bound keeps the count to attempts that had happened by `now` (tests look at a
+  // moment of their own without disturbing anyone else's window).
+  return { kind, ...key, createdAt: { [Op.gte]: since, [Op.lte]: now }, ...(failuresOnly ? { succeeded: false } : {}) } as WhereOptions<SignInAttempt>;
+}
 
 /** How many counted attempts lie inside the window for this key. */
-export async function countAttempts(kind: AttemptKind, key: AttemptKey, since: Date, failuresOnly: boolean, t?: Transaction): Promise<number> {
+export async function countAttempts(kind: AttemptKind, key: AttemptKey, since: Date, now: Date, failuresOnly: boolean, t?: Transaction): Promise<number> {
   const { SignInAttempt } = models();
-  return SignInAttempt.count({
-    // A null value becomes IS NULL: the shared bucket of requests whose IP is unknown.
-    where: { kind, [key.column]: key.value, createdAt: { [Op.gte]: since }, ...(failuresOnly ? { succeeded: false } : {}) },
-    transaction: t,
-  });
+  return SignInAttempt.count({ where: whereOf(kind, key, since, now, failuresOnly), transaction: t });
 }
 
 /**
  * When the count for this key drops below `max` again: the time of the max-th newest counted
  * attempt in the window (once it ages out, one slot is free). Null when under the limit.
  */
-export async function nthNewestAttemptAt(kind: AttemptKind, key: AttemptKey, since: Date, failuresOnly: boolean, n: number, t?: Transaction): Promise<Date | null> {
-  const { sequelize } = models();
-  const column = key.column === 'email' ? 'email' : 'ip';
-  const rows = await sequelize.query<{ created_at: string }>(
-    `SELECT created_at FROM sign_in_attempts
-      WHERE kind = :kind AND ${column} <=> :value AND created_at >= :since ${failuresOnly ? 'AND succeeded = 0' : ''}
-      ORDER BY created_at DESC, id DESC
-      LIMIT 1 OFFSET ${Math.max(0, Math.floor(n) - 1)}`,
-    { replacements: { kind, value: key.value, since }, type: QueryTypes.SELECT, transaction: t },
-  );
-  return rows[0] ? new Date(rows[0].created_at) : null;
+export async function nthNewestAttemptAt(kind: AttemptKind, key: AttemptKey, since: Date, now: Date, failuresOnly: boolean, n: number, t?: Transaction): Promise<Date | null> {
+  const { SignInAttempt } = models();
+  const rows = await SignInAttempt.findAll({
+    attributes: ['createdAt'],
+    where: whereOf(kind, key, since, now, failuresOnly),
+    order: [['createdAt', 'DESC'], ['id', 'DESC']],
+    offset: Math.max(0, Math.floor(n) - 1),
+    limit: 1,
+    transaction: t,
+  });
+  return rows[0]?.createdAt ?? null;
 }
 
-export async function insertAttempt(kind: AttemptKind, email: string | null, ip: string | null, succeeded: boolean, t?: Transaction): Promise<number> {
+export async function insertAttempt(
+  kind: AttemptKind,
+  who: { email: string | null; ip: string | null; client?: string | null; trusted?: boolean },
+  succeeded: boolean,
+  createdAt: Date,
+  t?: Transaction,
+): Promise<number> {
   const { SignInAttempt } = models();
-  const row = await SignInAttempt.create({ kind, email, ip, succeeded }, { transaction: t });
+  const row = await SignInAttempt.create({ kind, email: who.email, ip: who.ip, client: who.client ?? null, trusted: who.trusted ?? false, succeeded, createdAt }, { transaction: t });
   return row.id;
 }
 
@@ -45,10 +59,10 @@ export async function markAttemptSucceeded(id: number): Promise<void> {
   await SignInAttempt.update({ succeeded: true }, { where: { id } });
 }
 
-/** A correct password wipes the address's failures (not the IP's: others may share it). */
-export async function clearEmailFailures(kind: AttemptKind, email: string): Promise<void> {
+/** Wipes an address's failures at a door: all of them, or only those made from the given clients. */
+export async function clearEmailFailures(kind: AttemptKind, email: string, clients?: string[]): Promise<void> {
   const { SignInAttempt } = models();
-  await SignInAttempt.destroy({ where: { kind, email, succeeded: false } });
+  await SignInAttempt.destroy({ where: { kind, email, succeeded: false, ...(clients ? { client: clients } : {}) } });
 }
 
 export async function deleteAttemptsOlderThan(cutoff: Date): Promise<void> {
@@ -60,7 +74,8 @@ const LOCK_WAIT_SECONDS = 10;
 
 /** MariaDB lock names are at most 64 characters; a digest keeps addresses out of them too. */
 function lockName(kind: AttemptKind, key: AttemptKey): string {
-  return 'fl_throttle_' + createHash('sha1').update(`${kind}\u0000${key.column}\u0000${key.value ?? '\u0000unknown'}`).digest('hex');
+  const parts = COLUMNS.map((c) => (c in key ? `${c}=${key[c] ?? '\u0000null'}` : ''));
+  return 'fl_throttle_' + createHash('sha1').update(`${kind}\u0000${parts.join('\u0000')}`).digest('hex');
 }
 
 /**

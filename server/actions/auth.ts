@@ -21,6 +21,9 @@ import { endCurrentSession, startSession } from '@/server/auth/session';
 import { getAuthContext } from '@/server/auth/guards';
 import { getRequestMeta } from '@/server/auth/request-meta';
 import { sweepOldAttempts } from '@/server/auth/throttle';
+import { currentSignInClient } from '@/server/auth/sign-in-client';
+import { spendUnlockLink } from '@/server/auth/sign-in-unlock';
+import { trustClient } from '@/db/queries/sign-in-trust';
 import { audit } from '@/server/auth/audit';
 import { firstMembership } from '@/db/queries/team';
 import { InvalidInputError } from '@/server/errors';
@@ -72,8 +75,16 @@ export const requestPasswordReset = safeAction({ schema: requestResetSchema, per
 });
 
 export const resetPassword = safeAction({ schema: resetPasswordSchema, permission: 'public' }, async (input) => {
-  await spendResetLink(input.token, input.password, await getRequestMeta());
+  const { email } = await spendResetLink(input.token, input.password, await getRequestMeta());
+  // Whoever read the mailbox may sign in from this browser whatever strangers try at the address.
+  await trustClient(email, (await currentSignInClient()).cookieDigest);
   redirect('/sign-in?reset=1');
+});
+
+/** The mailed unlock link's button: this browser may sign in to the address past the shared limits. */
+export const unlockSignIn = safeAction({ schema: signUpConfirmSchema, permission: 'public' }, async (input) => {
+  await spendUnlockLink(input.token, await currentSignInClient(), await getRequestMeta());
+  redirect('/sign-in?unlocked=1');
 });
 
 /** Invitation for an address without an account: create it, join, and sign in. */

@@ -14,13 +14,14 @@ const NOTICES: Record<string, string> = {
   'signed-out': 'You are signed out.',
   everywhere: 'You are signed out on every device.',
   left: 'You have left the company.',
+  unlocked: 'This browser may sign in to that address now. Sign in with your password.',
 };
 
 export default async function SignInPage({ searchParams }: { searchParams: Promise<Record<string, string | undefined>> }) {
   const params = await searchParams;
   const ctx = await getAuthContext();
   if (ctx) redirect(ctx.role === 'staff' ? '/staff' : '/dashboard');
-  const notice = params.reset ? NOTICES.reset : params['signed-out'] === 'everywhere' ? NOTICES.everywhere : params['signed-out'] ? NOTICES['signed-out'] : params.left ? NOTICES.left : null;
+  const notice = params.reset ? NOTICES.reset : params['signed-out'] === 'everywhere' ? NOTICES.everywhere : params['signed-out'] ? NOTICES['signed-out'] : params.left ? NOTICES.left : params.unlocked ? NOTICES.unlocked : null;
   return (
     <AuthCard
       title="Sign in to FadeLedger"

@@ -1,4 +1,4 @@
-import { signIn, signOut, signUp, confirmSignUp, requestPasswordReset, resetPassword, acceptInvitation, acceptInvitationWithAccount } from '@/server/actions/auth';
+import { signIn, signOut, signUp, confirmSignUp, requestPasswordReset, resetPassword, acceptInvitation, acceptInvitationWithAccount, unlockSignIn } from '@/server/actions/auth';
 import { inviteMember, resendInvitation, revokeInvitation, changeMemberRole, removeMember } from '@/server/actions/team';
 import { revokeSession, signOutEverywhere, changePassword, switchCompany } from '@/server/actions/security';
 import { GET as getMe } from '@/app/api/v1/me/route';
@@ -30,6 +30,8 @@ export const cases: MatrixCase[] = [
   actionCase({ file: 'auth', exportName: 'signOut', action: signOut, access: 'public', allow: EVERYONE, input: () => ({}) }),
   actionCase({ file: 'auth', exportName: 'requestPasswordReset', action: requestPasswordReset, access: 'public', allow: EVERYONE, input: () => ({ email: uniqueEmail('matrix-nobody') }) }),
   actionCase({ file: 'auth', exportName: 'resetPassword', action: resetPassword, access: 'public', allow: EVERYONE, input: () => ({ token: 'A'.repeat(43), password: 'matrix-password-2', confirm: 'matrix-password-2' }) }),
+  // Public like the reset link: the mailed token is the authority (an unknown one is a form error, nothing trusted).
+  actionCase({ file: 'auth', exportName: 'unlockSignIn', action: unlockSignIn, access: 'public', allow: EVERYONE, input: () => ({ token: 'U'.repeat(43) }) }),
   actionCase({ file: 'auth', exportName: 'acceptInvitation', action: acceptInvitation, access: 'public', allow: EVERYONE, prepare: (w) => w.invitation(), input: (_w, inv) => ({ token: inv.token, name: 'Matrix Invitee', password: 'matrix-password-3' }) }),
   actionCase({
     file: 'auth',
