@@ -60,7 +60,8 @@ export const THROTTLE_RULES: Record<AttemptKind, DoorRules> = {
     perClient: { max: 5, windowMinutes: 15 },
     perEmail: { max: 10, windowMinutes: 60 },
     perIp: { max: 30, windowMinutes: 15 },
-    global: { max: 300, windowMinutes: 15 },
+    // Far above what people mistype in a quarter hour, far below a spray across many addresses.
+    global: { max: 1000, windowMinutes: 15 },
     failuresOnly: true,
     message: (m, bucket) =>
       (bucket === 'client'

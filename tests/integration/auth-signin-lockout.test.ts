@@ -10,13 +10,18 @@ import { CLIENT_COOKIE } from '@/server/auth/sign-in-client';
 import { inspectUnlockLink, UNLOCK_LINK_DEAD } from '@/server/auth/sign-in-unlock';
 import { createCompany, createUserWithRole, suffix, uniqueEmail, TEST_PASSWORD } from './support/factories';
 import { linkIn, mailsTo, tokenFromLink, waitForMails } from './support/mailbox';
+import { attemptsTracker } from './support/throttle-cleanup';
 
 /**
  * Default configuration (TRUST_PROXY unset, so no request has a known IP): strangers can slow
  * down guessing at an address but cannot lock its owner out. The owner's browsers stay usable;
  * a new browser held back by the shared budgets gets in through a mailed link.
  */
-afterAll(closeSequelize);
+const attempts = attemptsTracker();
+afterAll(async () => {
+  await attempts.forget();
+  await closeSequelize();
+});
 beforeEach(() => setRequestHeaders({}));
 
 const PER_EMAIL = THROTTLE_RULES.sign_in.perEmail!;
@@ -30,7 +35,7 @@ function fromBrowser<T>(clientCookie: string | null, fn: () => Promise<T>): Prom
   });
 }
 const newBrowser = () => `br-${suffix()}${suffix()}${suffix()}${suffix()}`.padEnd(43, 'z');
-const tryPassword = (browser: string | null, email: string, password: string) => fromBrowser(browser, () => callAction(signIn, { email, password }));
+const tryPassword = (browser: string | null, email: string, password: string) => fromBrowser(browser, () => callAction(signIn, { email: attempts.track(email), password }));
 const codeOf = (o: Awaited<ReturnType<typeof callAction>>) => (o.state && !o.state.ok ? o.state.code : o.redirect ? 'signed_in' : 'ok');
 
 /** A stranger (a new client each try, as a script dropping cookies is) fills the address's budget. */

@@ -21,8 +21,13 @@ import { signIn } from '@/server/actions/auth';
 import { THROTTLE_RULES } from '@/server/auth/throttle';
 import { CLIENT_COOKIE } from '@/server/auth/sign-in-client';
 import { createCompany, createUserWithRole, uniqueEmail, TEST_PASSWORD } from './support/factories';
+import { attemptsTracker } from './support/throttle-cleanup';
 
-afterAll(closeSequelize);
+const attempts = attemptsTracker();
+afterAll(async () => {
+  await attempts.forget();
+  await closeSequelize();
+});
 beforeEach(() => {
   asSignedOut();
   setRequestHeaders({});
@@ -46,6 +51,7 @@ const fromBrowser = <T,>(clientCookie: string | null, fn: () => Promise<T>) =>
 describe('sign-in throttle under a burst of parallel guesses', () => {
   it(`20 wrong passwords at once from cookie-less clients: only ${PER_EMAIL} are checked, the rest refused; the owner's own browser still signs in`, async () => {
     const user = await createUserWithRole((await createCompany()).id, 'admin');
+    attempts.track(user.email);
     const ownersBrowser = 'o'.repeat(43);
     expect((await fromBrowser(ownersBrowser, () => callAction(signIn, { email: user.email, password: TEST_PASSWORD }))).redirect).toBe('/dashboard');
     verifyCalls.n = 0;
@@ -68,6 +74,7 @@ describe('sign-in throttle under a burst of parallel guesses', () => {
 
   it(`20 wrong passwords at once from one browser: only ${PER_CLIENT} are checked`, async () => {
     const user = await createUserWithRole((await createCompany()).id, 'installer');
+    attempts.track(user.email);
     const browser = 'b'.repeat(42) + 'x';
     const outcomes = await Promise.all(Array.from({ length: 20 }, (_, i) => fromBrowser(browser, () => callAction(signIn, { email: user.email, password: `wrong-guess-${i}` }))));
     expect(verifyCalls.n).toBe(PER_CLIENT);
@@ -75,7 +82,7 @@ describe('sign-in throttle under a burst of parallel guesses', () => {
   });
 
   it('an address without an account answers a burst the same way (no hint that an account exists)', async () => {
-    const nobody = uniqueEmail('nobody');
+    const nobody = attempts.track(uniqueEmail('nobody'));
     const outcomes = await Promise.all(Array.from({ length: 20 }, (_, i) => fromBrowser(null, () => callAction(signIn, { email: nobody, password: `guess-${i}` }))));
     const codes = outcomes.map(codeOf);
     expect(verifyCalls.n).toBe(PER_EMAIL);

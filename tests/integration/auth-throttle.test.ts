@@ -10,9 +10,12 @@ import { signIn, requestPasswordReset } from '@/server/actions/auth';
 import { clientDigest, THROTTLE_RULES, UNLOCK_HINT } from '@/server/auth/throttle';
 import { clientIpFrom } from '@/server/auth/request-meta';
 import { createCompany, createUserWithRole, uniqueEmail, TEST_PASSWORD } from './support/factories';
+import { attemptsTracker } from './support/throttle-cleanup';
 
+const attempts = attemptsTracker();
 afterAll(async () => {
   delete process.env.TRUST_PROXY;
+  await attempts.forget();
   await closeSequelize();
 });
 beforeEach(() => asSignedOut());
@@ -27,6 +30,7 @@ const PER_CLIENT = THROTTLE_RULES.sign_in.perClient!;
 describe('sign-in throttle per address on one network (behind a trusted proxy the client is its IP)', () => {
   it(`locks an address on a network after ${PER_CLIENT.max} wrong passwords, even with the right one; the owner on another network is not locked out`, async () => {
     const user = await createUserWithRole((await createCompany()).id, 'admin');
+    attempts.track(user.email);
     const network = ip();
     setRequestHeaders({ 'x-forwarded-for': network });
     for (let i = 0; i < PER_CLIENT.max; i++) {
@@ -44,6 +48,7 @@ describe('sign-in throttle per address on one network (behind a trusted proxy th
 
   it('counts only the window: once the oldest failures age out, that network works again', async () => {
     const user = await createUserWithRole((await createCompany()).id, 'installer');
+    attempts.track(user.email);
     const { SignInAttempt } = models();
     const network = ip();
     const client = clientDigest('ip', network);
@@ -60,6 +65,7 @@ describe('sign-in throttle per address on one network (behind a trusted proxy th
 
   it('a correct password clears the failures of the network it came from, not those of others', async () => {
     const user = await createUserWithRole((await createCompany()).id, 'installer');
+    attempts.track(user.email);
     const [here, there] = [ip(), ip()];
     setRequestHeaders({ 'x-forwarded-for': there });
     for (let i = 0; i < 2; i++) await callAction(signIn, { email: user.email, password: 'wrong-pass' });
@@ -74,8 +80,9 @@ describe('sign-in throttle per address on one network (behind a trusted proxy th
 
   it('throttles unknown addresses exactly like known ones, with the same words (no hint that an account exists)', async () => {
     const known = await createUserWithRole((await createCompany()).id, 'sales');
+    attempts.track(known.email);
     const answers: string[] = [];
-    for (const email of [uniqueEmail('nobody'), known.email]) {
+    for (const email of [attempts.track(uniqueEmail('nobody')), known.email]) {
       asSignedOut();
       setRequestHeaders({ 'x-forwarded-for': ip() });
       for (let i = 0; i < PER_CLIENT.max; i++) await callAction(signIn, { email, password: 'guess' });
@@ -94,8 +101,9 @@ describe('sign-in throttle per IP', () => {
     const { SignInAttempt } = models();
     const max = THROTTLE_RULES.sign_in.perIp!.max;
     await SignInAttempt.bulkCreate(Array.from({ length: max - 1 }, (_, i) => ({ kind: 'sign_in' as const, email: `spray-${i}-${address}@test.example`, ip: address, succeeded: false })));
-    expect(errorOf(await callAction(signIn, { email: uniqueEmail('spray'), password: 'guess' }))?.code).toBe('invalid_input');
+    expect(errorOf(await callAction(signIn, { email: attempts.track(uniqueEmail('spray')), password: 'guess' }))?.code).toBe('invalid_input');
     const user = await createUserWithRole((await createCompany()).id, 'sales');
+    attempts.track(user.email);
     asSignedOut();
     expect(errorOf(await callAction(signIn, { email: user.email, password: TEST_PASSWORD }))?.code).toBe('rate_limited');
 
@@ -119,6 +127,7 @@ describe('sign-in throttle per IP', () => {
 describe('reset request throttle', () => {
   it('allows three reset mails per address an hour, then says when to come back', async () => {
     const user = await createUserWithRole((await createCompany()).id, 'installer');
+    attempts.track(user.email);
     setRequestHeaders({ 'x-forwarded-for': ip() });
     for (let i = 0; i < 3; i++) expect((await callAction(requestPasswordReset, { email: user.email })).state?.ok).toBe(true);
     const out = errorOf(await callAction(requestPasswordReset, { email: user.email }));
