@@ -60,7 +60,7 @@ export default async function ApiKeysPage() {
             <TBody>
               {keys.length === 0 && <EmptyRow colSpan={7}>No API keys yet.</EmptyRow>}
               {keys.map((k) => (
-                <tr key={k.id} className={k.revokedAt ? 'text-stone-400' : undefined}>
+                <tr key={k.id} className={k.revokedAt ? 'text-stone-500' : undefined}>
                   <Td className="font-medium">{k.name}</Td>
                   <Td>
                     <code className="num text-xs">{k.prefix}…</code>
