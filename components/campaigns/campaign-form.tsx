@@ -1,19 +1,20 @@
 'use client';
 
-import { startTransition, useActionState, useRef, useState } from 'react';
+import { useState } from 'react';
 import type { ActionState } from '@/server/actions/safe-action';
 import type { CampaignResponse } from '@/server/campaigns/run-campaign';
 import { CAMPAIGN_MAX_BYTES, CAMPAIGN_MAX_ROWS } from '@/server/campaigns/campaign-csv';
 import { verdictWords } from '@/server/campaigns/campaign-result-csv';
+import { ActionForm, ActionFormStatus, useFormState } from '@/components/ui/action-form';
+import { Field, SelectField } from '@/components/ui/field';
 import { Button } from '@/components/ui/button';
-import { FormStatus } from '@/components/ui/form-status';
+import { SubmitButton } from '@/components/ui/submit-button';
 import { Table, TBody, THead, Td, Th } from '@/components/ui/table';
-import { SelectInput, TextInput } from '@/components/study/form-fields';
 import { CsvFileInput } from '@/components/uploads/csv-file-input';
 import { fixed } from '@/components/study/format';
 import { formatMoney } from '@/server/money-format';
 import { readCampaignRow } from '@/server/campaigns/campaign-row-reading';
-import { EACH_SITE_CLIMATE, EACH_SITE_CLIMATE_LABEL } from '@/server/validation/campaign';
+import { campaignSchema, EACH_SITE_CLIMATE, EACH_SITE_CLIMATE_LABEL } from '@/server/validation/campaign';
 
 type Act = (prev: ActionState<CampaignResponse> | null, input: FormData) => Promise<ActionState<CampaignResponse>>;
 export type CampaignChoices = { services: { value: string; label: string }[]; climates: { value: string; label: string }[] };
@@ -50,6 +51,13 @@ function Counts({ data }: { data: CampaignResponse }) {
       ))}
     </dl>
   );
+}
+
+/** The last campaign the form computed, under it. */
+function CampaignResults() {
+  const state = useFormState();
+  const data = state?.ok ? ((state.data as CampaignResponse | undefined) ?? null) : null;
+  return data ? <Results data={data} /> : null;
 }
 
 function Results({ data }: { data: CampaignResponse }) {
@@ -128,54 +136,36 @@ function Results({ data }: { data: CampaignResponse }) {
  * its own climate from the ITU-R maps. Computed on each request; nothing is stored.
  */
 export function CampaignForm({ choices, action }: { choices: CampaignChoices; action: Act }) {
-  const form = useRef<HTMLFormElement>(null);
-  const [state, run, running] = useActionState(action, null);
   const [tooBig, setTooBig] = useState<string | null>(null);
-  const data = state?.ok ? (state.data ?? null) : null;
-  const fieldErrors = state && !state.ok ? (state.fieldErrors ?? {}) : {};
-
   return (
-    <div>
-      <form
-        ref={form}
-        className="space-y-4"
-        aria-label="Upgrade campaign"
-        onSubmit={(e) => {
-          e.preventDefault();
-          if (!form.current) return;
-          const fd = new FormData(form.current);
-          startTransition(() => run(fd));
-        }}
-      >
-        <p className="text-sm text-stone-600">
-          Columns: <code className="rounded bg-stone-100 px-1 font-mono text-xs">site_ref, latitude, longitude, altitude_m, current_dish_cm</code>. Latitude and longitude in decimal degrees
-          or degrees, minutes and seconds; altitude_m may be blank or left out (the ITU-R P.1511-1 height at the site is used). Comma, semicolon or tab separated, UTF-8, at most{' '}
-          {CAMPAIGN_MAX_ROWS.toLocaleString('en-US')} sites and {CAMPAIGN_MAX_BYTES / 1024} KiB.
-          <span className="block text-xs">
-            Example line: <code className="font-mono">HOLM-0042,47°30&apos;15&quot; N,2.25,140,60</code>
-          </span>
-        </p>
-        <CsvFileInput id="campaign-file" label="Sites file (CSV)" maxBytes={CAMPAIGN_MAX_BYTES} limitedNoun="campaign files" errors={fieldErrors.file} tooBig={tooBig} onPick={setTooBig} />
-        <div className="grid gap-4 sm:grid-cols-3">
-          <SelectInput label="Service" name="serviceProfileId" options={choices.services} placeholder="Choose a service" errors={fieldErrors.serviceProfileId} />
-          <SelectInput
-            label="Rain climate"
-            name="climateProfileId"
-            defaultValue={EACH_SITE_CLIMATE}
-            options={[{ value: EACH_SITE_CLIMATE, label: EACH_SITE_CLIMATE_LABEL }, ...choices.climates]}
-            errors={fieldErrors.climateProfileId}
-            hint="A climate profile replaces every site's own rain climate; use one only when it holds better local data for all of them."
-          />
-          <TextInput label="Target availability (%)" name="targetAvailabilityPercent" inputMode="decimal" defaultValue="99.9" errors={fieldErrors.targetAvailabilityPercent} hint="Of an average year, 90–99.999 %." />
-        </div>
-        <div className="flex flex-wrap items-center gap-3">
-          <Button type="submit" disabled={running || tooBig !== null}>
-            {running ? 'Computing…' : 'Compute the campaign'}
-          </Button>
-          <FormStatus state={state} />
-        </div>
-      </form>
-      {data && <Results data={data} />}
-    </div>
+    <ActionForm action={action} schema={campaignSchema} status="placed" className="space-y-4" aria-label="Upgrade campaign">
+      <p className="text-sm text-stone-600">
+        Columns: <code className="rounded bg-stone-100 px-1 font-mono text-xs">site_ref, latitude, longitude, altitude_m, current_dish_cm</code>. Latitude and longitude in decimal degrees
+        or degrees, minutes and seconds; altitude_m may be blank or left out (the ITU-R P.1511-1 height at the site is used). Comma, semicolon or tab separated, UTF-8, at most{' '}
+        {CAMPAIGN_MAX_ROWS.toLocaleString('en-US')} sites and {CAMPAIGN_MAX_BYTES / 1024} KiB.
+        <span className="block text-xs">
+          Example line: <code className="font-mono">HOLM-0042,47°30&apos;15&quot; N,2.25,140,60</code>
+        </span>
+      </p>
+      <CsvFileInput id="campaign-file" label="Sites file (CSV)" maxBytes={CAMPAIGN_MAX_BYTES} limitedNoun="campaign files" tooBig={tooBig} onPick={setTooBig} />
+      <div className="grid gap-4 sm:grid-cols-3">
+        <SelectField label="Service" name="serviceProfileId" options={choices.services} placeholder="Choose a service" />
+        <SelectField
+          label="Rain climate"
+          name="climateProfileId"
+          defaultValue={EACH_SITE_CLIMATE}
+          options={[{ value: EACH_SITE_CLIMATE, label: EACH_SITE_CLIMATE_LABEL }, ...choices.climates]}
+          hint="A climate profile replaces every site's own rain climate; use one only when it holds better local data for all of them."
+        />
+        <Field label="Target availability (%)" name="targetAvailabilityPercent" inputMode="decimal" defaultValue="99.9" hint="Of an average year, 90–99.999 %." />
+      </div>
+      <div className="flex flex-wrap items-center gap-3">
+        <SubmitButton pendingLabel="Computing…" disabled={tooBig !== null}>
+          Compute the campaign
+        </SubmitButton>
+        <ActionFormStatus />
+      </div>
+      <CampaignResults />
+    </ActionForm>
   );
 }

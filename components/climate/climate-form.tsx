@@ -4,10 +4,9 @@ import { useState } from 'react';
 import { createClimateProfile } from '@/server/actions/climate';
 import { climateFormSchema } from '@/server/validation/climate';
 import { CLIMATE_ZONES } from '@/server/engine/p837-1-climate-zones';
-import { Button } from '@/components/ui/button';
-import { FormStatus } from '@/components/ui/form-status';
-import { SelectInput, TextInput } from '@/components/study/form-fields';
-import { useValidatedAction } from '@/components/study/use-validated-action';
+import { ActionForm, ActionFormStatus } from '@/components/ui/action-form';
+import { Field, SelectField } from '@/components/ui/field';
+import { SubmitButton } from '@/components/ui/submit-button';
 import { PlaceFields } from './place-fields';
 
 /**
@@ -16,9 +15,8 @@ import { PlaceFields } from './place-fields';
  */
 export function ClimateForm() {
   const [kind, setKind] = useState<'known-r001' | 'climate-zone'>('known-r001');
-  const { state, formAction, pending, onSubmit, onInput, errors, message, failed } = useValidatedAction(createClimateProfile, climateFormSchema, { resetOnSuccess: true });
   return (
-    <form action={formAction} onSubmit={onSubmit} onInput={onInput} noValidate className="space-y-4" aria-label="Add a climate profile">
+    <ActionForm action={createClimateProfile} schema={climateFormSchema} resetOnSuccess status="placed" className="space-y-4" aria-label="Add a climate profile">
       <fieldset>
         <legend className="text-sm font-medium text-stone-800">Kind</legend>
         <div className="mt-1 flex flex-wrap gap-4">
@@ -36,22 +34,20 @@ export function ClimateForm() {
         </div>
       </fieldset>
       <div className="grid gap-4 md:grid-cols-2">
-        <TextInput label="Name" name="name" errors={errors.name} />
+        <Field label="Name" name="name" />
         {kind === 'known-r001' ? (
-          <TextInput label="R0.01 (mm/h)" name="r001MmH" inputMode="decimal" hint="Rain rate exceeded 0.01 % of an average year, e.g. read off the ITU-R P.837 map." errors={errors.r001MmH} />
+          <Field label="R0.01 (mm/h)" name="r001MmH" inputMode="decimal" hint="Rain rate exceeded 0.01 % of an average year, e.g. read off the ITU-R P.837 map." />
         ) : (
-          <SelectInput label="Zone" name="zone" placeholder="Choose a zone…" options={CLIMATE_ZONES.map((z) => ({ value: z, label: `Zone ${z}` }))} errors={errors.zone} hint="Legacy P.837-1 zones; prefer monthly normals where you have them." />
+          <SelectField label="Zone" name="zone" placeholder="Choose a zone…" options={CLIMATE_ZONES.map((z) => ({ value: z, label: `Zone ${z}` }))} hint="Legacy P.837-1 zones; prefer monthly normals where you have them." />
         )}
-        <TextInput label="Source of the figure" name="sourceNote" placeholder="Where the value comes from" errors={errors.sourceNote} />
-        <TextInput label="0 °C isotherm height (km, optional)" name="zeroIsothermKm" inputMode="decimal" hint="ITU-R P.839-4 h0; blank takes the P.839-4 map value at each study's site." errors={errors.zeroIsothermKm} />
-        <PlaceFields errors={errors} className="md:col-span-2" />
+        <Field label="Source of the figure" name="sourceNote" placeholder="Where the value comes from" />
+        <Field label="0 °C isotherm height (km, optional)" name="zeroIsothermKm" inputMode="decimal" hint="ITU-R P.839-4 h0; blank takes the P.839-4 map value at each study's site." />
+        <PlaceFields className="md:col-span-2" />
       </div>
       <div className="flex flex-wrap items-center gap-3">
-        <Button type="submit" disabled={pending}>
-          {pending ? 'Saving…' : 'Add climate profile'}
-        </Button>
-        <FormStatus state={failed ? { ok: false, error: message } : state} />
+        <SubmitButton pendingLabel="Saving…">Add climate profile</SubmitButton>
+        <ActionFormStatus />
       </div>
-    </form>
+    </ActionForm>
   );
 }

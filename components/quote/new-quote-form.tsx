@@ -8,7 +8,7 @@ import { createQuote } from '@/server/actions/quotes';
 import type { QuoteOptionSnapshot } from '@/server/quotes/snapshot';
 import { readQuotedOption } from '@/server/study-option';
 import { formatMoney } from '@/server/money-format';
-import { NavigateOnSuccess } from './navigate-on-success';
+import { NavigateOnSuccess } from '@/components/ui/navigate-on-success';
 import { TermsFields, type TermsDefaults } from './terms-fields';
 
 /**

@@ -3,10 +3,9 @@
 import { useState } from 'react';
 import { createServiceProfile, updateServiceProfile } from '@/server/actions/services';
 import { MODCOD_NAMES, POLARIZATION_CHOICES, serviceProfileSchema, serviceProfileUpdateSchema } from '@/server/validation/service-profile';
-import { Button } from '@/components/ui/button';
-import { FormStatus } from '@/components/ui/form-status';
-import { SelectInput, TextInput } from '@/components/study/form-fields';
-import { useValidatedAction } from '@/components/study/use-validated-action';
+import { ActionForm, ActionFormStatus } from '@/components/ui/action-form';
+import { Field, SelectField } from '@/components/ui/field';
+import { SubmitButton } from '@/components/ui/submit-button';
 
 export type ServiceFormValues = Record<string, string> & { id: string };
 
@@ -15,28 +14,34 @@ const MODCOD_OPTIONS = MODCOD_NAMES.map((m) => ({ value: m, label: m }));
 /** A satellite service: the carrier the dishes must receive (and, for two-way terminals, send). */
 export function ServiceForm({ values }: { values?: ServiceFormValues }) {
   const edit = values !== undefined;
-  const { state, formAction, pending, onSubmit, onInput, errors, message, failed } = useValidatedAction(edit ? updateServiceProfile : createServiceProfile, edit ? serviceProfileUpdateSchema : serviceProfileSchema, { resetOnSuccess: !edit });
   const [uplink, setUplink] = useState(values?.uplinkEnabled === 'on');
   const v = (k: string, d = '') => values?.[k] ?? d;
   return (
-    <form action={formAction} onSubmit={onSubmit} onInput={onInput} noValidate className="space-y-5" aria-label={edit ? `Edit ${values.name}` : 'Add a service'}>
+    <ActionForm
+      action={edit ? updateServiceProfile : createServiceProfile}
+      schema={edit ? serviceProfileUpdateSchema : serviceProfileSchema}
+      resetOnSuccess={!edit}
+      status="placed"
+      className="space-y-5"
+      aria-label={edit ? `Edit ${values.name}` : 'Add a service'}
+    >
       {edit && <input type="hidden" name="id" value={values.id} />}
       <div className="grid gap-4 sm:grid-cols-2 lg:grid-cols-4">
-        <TextInput label="Service name" name="name" defaultValue={v('name')} errors={errors.name} className="lg:col-span-2" />
-        <TextInput label="Satellite" name="satelliteName" defaultValue={v('satelliteName')} errors={errors.satelliteName} />
-        <TextInput label="Orbital position" name="satelliteLongitudeDeg" defaultValue={v('satelliteLongitudeDeg')} placeholder="19.5 W or -19.5" hint="Degrees east; W or a minus sign for west." errors={errors.satelliteLongitudeDeg} />
-        <TextInput label="Downlink frequency (GHz)" name="downlinkFrequencyGHz" inputMode="decimal" defaultValue={v('downlinkFrequencyGHz')} errors={errors.downlinkFrequencyGHz} />
-        <SelectInput label="Polarization" name="polarization" defaultValue={v('polarization', 'linear-horizontal')} options={POLARIZATION_CHOICES} errors={errors.polarization} />
-        <TextInput label="Polarization tilt offset (°)" name="polarizationTiltDeg" inputMode="decimal" defaultValue={v('polarizationTiltDeg', '0')} hint="Added to the skew; linear only." errors={errors.polarizationTiltDeg} />
-        <TextInput label="EIRP at the site (dBW)" name="eirpDbw" inputMode="decimal" defaultValue={v('eirpDbw')} errors={errors.eirpDbw} />
-        <TextInput label="Symbol rate (Msps)" name="symbolRateMsps" inputMode="decimal" defaultValue={v('symbolRateMsps')} errors={errors.symbolRateMsps} />
-        <SelectInput label="MODCOD (DVB-S2)" name="modcod" defaultValue={v('modcod')} placeholder="— none, Es/N0 given —" options={MODCOD_OPTIONS} errors={errors.modcod} />
-        <TextInput label="Required Es/N0 (dB)" name="requiredEsN0Db" inputMode="decimal" defaultValue={v('requiredEsN0Db')} hint="Blank: the MODCOD's ideal threshold." errors={errors.requiredEsN0Db} />
-        <TextInput label="Implementation margin (dB)" name="implementationMarginDb" inputMode="decimal" defaultValue={v('implementationMarginDb', '1')} errors={errors.implementationMarginDb} />
-        <TextInput label="Other losses (dB)" name="otherLossesDb" inputMode="decimal" defaultValue={v('otherLossesDb', '0.3')} hint="Gases, radome, wet feed…" errors={errors.otherLossesDb} />
-        <TextInput label="LNB noise temperature (K)" name="lnbNoiseTempK" inputMode="decimal" defaultValue={v('lnbNoiseTempK', '60')} errors={errors.lnbNoiseTempK} />
-        <TextInput label="Antenna noise temperature (K)" name="antennaNoiseTempK" inputMode="decimal" defaultValue={v('antennaNoiseTempK', '40')} errors={errors.antennaNoiseTempK} />
-        <TextInput label="ACM MODCOD set (optional)" name="acmModcods" defaultValue={v('acmModcods')} placeholder="QPSK 1/2, QPSK 3/4, 8PSK 2/3" errors={errors.acmModcods} className="sm:col-span-2" />
+        <Field label="Service name" name="name" defaultValue={v('name')} className="lg:col-span-2" />
+        <Field label="Satellite" name="satelliteName" defaultValue={v('satelliteName')} />
+        <Field label="Orbital position" name="satelliteLongitudeDeg" defaultValue={v('satelliteLongitudeDeg')} placeholder="19.5 W or -19.5" hint="Degrees east; W or a minus sign for west." />
+        <Field label="Downlink frequency (GHz)" name="downlinkFrequencyGHz" inputMode="decimal" defaultValue={v('downlinkFrequencyGHz')} />
+        <SelectField label="Polarization" name="polarization" defaultValue={v('polarization', 'linear-horizontal')} options={POLARIZATION_CHOICES} />
+        <Field label="Polarization tilt offset (°)" name="polarizationTiltDeg" inputMode="decimal" defaultValue={v('polarizationTiltDeg', '0')} hint="Added to the skew; linear only." />
+        <Field label="EIRP at the site (dBW)" name="eirpDbw" inputMode="decimal" defaultValue={v('eirpDbw')} />
+        <Field label="Symbol rate (Msps)" name="symbolRateMsps" inputMode="decimal" defaultValue={v('symbolRateMsps')} />
+        <SelectField label="MODCOD (DVB-S2)" name="modcod" defaultValue={v('modcod')} placeholder="— none, Es/N0 given —" options={MODCOD_OPTIONS} />
+        <Field label="Required Es/N0 (dB)" name="requiredEsN0Db" inputMode="decimal" defaultValue={v('requiredEsN0Db')} hint="Blank: the MODCOD's ideal threshold." />
+        <Field label="Implementation margin (dB)" name="implementationMarginDb" inputMode="decimal" defaultValue={v('implementationMarginDb', '1')} />
+        <Field label="Other losses (dB)" name="otherLossesDb" inputMode="decimal" defaultValue={v('otherLossesDb', '0.3')} hint="Gases, radome, wet feed…" />
+        <Field label="LNB noise temperature (K)" name="lnbNoiseTempK" inputMode="decimal" defaultValue={v('lnbNoiseTempK', '60')} />
+        <Field label="Antenna noise temperature (K)" name="antennaNoiseTempK" inputMode="decimal" defaultValue={v('antennaNoiseTempK', '40')} />
+        <Field label="ACM MODCOD set (optional)" name="acmModcods" defaultValue={v('acmModcods')} placeholder="QPSK 1/2, QPSK 3/4, 8PSK 2/3" className="sm:col-span-2" />
       </div>
       <fieldset className="rounded-md border border-stone-200 px-4 py-3">
         <legend className="px-1 text-sm font-medium text-stone-800">
@@ -46,24 +51,22 @@ export function ServiceForm({ values }: { values?: ServiceFormValues }) {
         </legend>
         {uplink && (
           <div className="mt-2 grid gap-4 sm:grid-cols-2 lg:grid-cols-4">
-            <TextInput label="Uplink frequency (GHz)" name="uplinkFrequencyGHz" inputMode="decimal" defaultValue={v('uplinkFrequencyGHz')} errors={errors.uplinkFrequencyGHz} />
-            <TextInput label="HPA (BUC) power (W)" name="uplinkHpaPowerW" inputMode="decimal" defaultValue={v('uplinkHpaPowerW')} hint="EIRP then follows each dish's gain." errors={errors.uplinkHpaPowerW} />
-            <TextInput label="…or fixed terminal EIRP (dBW)" name="uplinkTerminalEirpDbw" inputMode="decimal" defaultValue={v('uplinkTerminalEirpDbw')} errors={errors.uplinkTerminalEirpDbw} />
-            <TextInput label="Satellite G/T (dB/K)" name="uplinkSatelliteGOverTDbK" inputMode="decimal" defaultValue={v('uplinkSatelliteGOverTDbK')} errors={errors.uplinkSatelliteGOverTDbK} />
-            <TextInput label="Uplink symbol rate (Msps)" name="uplinkSymbolRateMsps" inputMode="decimal" defaultValue={v('uplinkSymbolRateMsps')} errors={errors.uplinkSymbolRateMsps} />
-            <SelectInput label="Uplink MODCOD" name="uplinkModcod" defaultValue={v('uplinkModcod')} placeholder="— none, Es/N0 given —" options={MODCOD_OPTIONS} errors={errors.uplinkModcod} />
-            <TextInput label="Uplink required Es/N0 (dB)" name="uplinkRequiredEsN0Db" inputMode="decimal" defaultValue={v('uplinkRequiredEsN0Db')} errors={errors.uplinkRequiredEsN0Db} />
-            <TextInput label="Uplink implementation margin (dB)" name="uplinkImplementationMarginDb" inputMode="decimal" defaultValue={v('uplinkImplementationMarginDb', '1')} errors={errors.uplinkImplementationMarginDb} />
+            <Field label="Uplink frequency (GHz)" name="uplinkFrequencyGHz" inputMode="decimal" defaultValue={v('uplinkFrequencyGHz')} />
+            <Field label="HPA (BUC) power (W)" name="uplinkHpaPowerW" inputMode="decimal" defaultValue={v('uplinkHpaPowerW')} hint="EIRP then follows each dish's gain." />
+            <Field label="…or fixed terminal EIRP (dBW)" name="uplinkTerminalEirpDbw" inputMode="decimal" defaultValue={v('uplinkTerminalEirpDbw')} />
+            <Field label="Satellite G/T (dB/K)" name="uplinkSatelliteGOverTDbK" inputMode="decimal" defaultValue={v('uplinkSatelliteGOverTDbK')} />
+            <Field label="Uplink symbol rate (Msps)" name="uplinkSymbolRateMsps" inputMode="decimal" defaultValue={v('uplinkSymbolRateMsps')} />
+            <SelectField label="Uplink MODCOD" name="uplinkModcod" defaultValue={v('uplinkModcod')} placeholder="— none, Es/N0 given —" options={MODCOD_OPTIONS} />
+            <Field label="Uplink required Es/N0 (dB)" name="uplinkRequiredEsN0Db" inputMode="decimal" defaultValue={v('uplinkRequiredEsN0Db')} />
+            <Field label="Uplink implementation margin (dB)" name="uplinkImplementationMarginDb" inputMode="decimal" defaultValue={v('uplinkImplementationMarginDb', '1')} />
           </div>
         )}
       </fieldset>
-      <TextInput label="Notes" name="notes" defaultValue={v('notes')} errors={errors.notes} />
+      <Field label="Notes" name="notes" defaultValue={v('notes')} />
       <div className="flex flex-wrap items-center gap-3">
-        <Button type="submit" disabled={pending}>
-          {pending ? 'Saving…' : edit ? 'Save service' : 'Add service'}
-        </Button>
-        <FormStatus state={failed ? { ok: false, error: message } : state} />
+        <SubmitButton pendingLabel="Saving…">{edit ? 'Save service' : 'Add service'}</SubmitButton>
+        <ActionFormStatus />
       </div>
-    </form>
+    </ActionForm>
   );
 }

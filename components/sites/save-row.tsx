@@ -1,29 +1,20 @@
 'use client';
 
-import type { ActionState } from '@/server/actions/safe-action';
+import { ActionFormStatus } from '@/components/ui/action-form';
 import { Button } from '@/components/ui/button';
-import { FormStatus } from '@/components/ui/form-status';
+import { SubmitButton } from '@/components/ui/submit-button';
 
-/** The submit, cancel and status line under an add-or-edit form of a list row. */
-export function SaveRow({ pending, label, onCancel, state, failed, message }: {
-  pending: boolean;
-  label: string;
-  onCancel?: () => void;
-  state: ActionState | null;
-  failed: boolean;
-  message: string;
-}) {
+/** The submit, cancel and status line under an add-or-edit form of a list row (inside an ActionForm with status="placed"). */
+export function SaveRow({ label, onCancel }: { label: string; onCancel?: () => void }) {
   return (
     <div className="flex flex-wrap items-center gap-3">
-      <Button type="submit" disabled={pending}>
-        {pending ? 'Saving…' : label}
-      </Button>
+      <SubmitButton pendingLabel="Saving…">{label}</SubmitButton>
       {onCancel && (
         <Button variant="quiet" onClick={onCancel}>
           Cancel
         </Button>
       )}
-      <FormStatus state={failed ? { ok: false, error: message } : state} />
+      <ActionFormStatus />
     </div>
   );
 }

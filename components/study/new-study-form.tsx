@@ -1,15 +1,14 @@
 'use client';
 
-import { useEffect, useMemo, useState } from 'react';
-import { useRouter } from 'next/navigation';
+import { useMemo, useState } from 'react';
 import { createStudy } from '@/server/actions/studies';
 import { MAPS_CLIMATE_VALUE, newStudySchema, TARGET_AVAILABILITY_PERCENT } from '@/server/validation/study';
 import { parseCoordinate, formatDms } from '@/server/validation/coordinates';
-import { Button } from '@/components/ui/button';
-import { FormStatus } from '@/components/ui/form-status';
-import { SelectInput, TextInput } from './form-fields';
-import { useValidatedAction } from './use-validated-action';
-import { diameterLabel } from '@/server/study-option';
+import { ActionForm, ActionFormStatus } from '@/components/ui/action-form';
+import { Field, FormErrors, SelectField } from '@/components/ui/field';
+import { SubmitButton } from '@/components/ui/submit-button';
+import { NavigateOnSuccess } from '@/components/ui/navigate-on-success';
+import { allowedMinutesPerYear, diameterLabel, minutesText } from '@/server/study-option';
 import { formatMoney } from '@/server/money-format';
 import { greatCircleKm, PROFILE_FAR_FROM_SITE_KM } from '@/server/studies/climate-location';
 
@@ -61,8 +60,6 @@ function Radio({ name, value, checked, onChange, children }: { name: string; val
  * browser with the same zod schema the server action uses; on success it opens the result.
  */
 export function NewStudyForm({ options, preset }: { options: NewStudyOptions; preset?: { customerId?: number; siteId?: number } }) {
-  const router = useRouter();
-  const { state, formAction, pending, onSubmit, onInput, errors, message, failed } = useValidatedAction(createStudy, newStudySchema);
   const [customerMode, setCustomerMode] = useState<'existing' | 'new'>(options.customers.length ? 'existing' : 'new');
   const [siteMode, setSiteMode] = useState<'existing' | 'new'>(options.sites.length ? 'existing' : 'new');
   const [customerId, setCustomerId] = useState(preset?.customerId ? String(preset.customerId) : '');
@@ -81,13 +78,9 @@ export function NewStudyForm({ options, preset }: { options: NewStudyOptions; pr
   const picked = options.sites.find((s) => String(s.id) === siteId);
   const siteAt = newSite ? (typedLat.ok && typedLon.ok ? { latDeg: typedLat.value, lonDeg: typedLon.value } : null) : picked ? { latDeg: picked.latDeg, lonDeg: picked.lonDeg } : null;
 
-  useEffect(() => {
-    if (state?.ok && state.data && typeof (state.data as { id?: number }).id === 'number') router.push(`/studies/${(state.data as { id: number }).id}`);
-  }, [state, router]);
-
-  const statusState = failed ? { ok: false as const, error: message } : state;
   return (
-    <form action={formAction} onSubmit={onSubmit} onInput={onInput} noValidate className="space-y-8" aria-label="New study">
+    <ActionForm action={createStudy} schema={newStudySchema} status="placed" className="space-y-8" aria-label="New study">
+      <NavigateOnSuccess base="/studies/" />
       <fieldset className="space-y-4">
         <legend className="text-base font-semibold text-stone-900">Customer and site</legend>
         <div className="flex flex-wrap gap-4" role="radiogroup" aria-label="Customer">
@@ -99,7 +92,7 @@ export function NewStudyForm({ options, preset }: { options: NewStudyOptions; pr
           </Radio>
         </div>
         {customerMode === 'existing' ? (
-          <SelectInput
+          <SelectField
             label="Customer"
             name="customerId"
             value={customerId}
@@ -109,11 +102,10 @@ export function NewStudyForm({ options, preset }: { options: NewStudyOptions; pr
             }}
             placeholder="Choose a customer…"
             options={options.customers.map((c) => ({ value: String(c.id), label: c.name }))}
-            errors={errors.customerId}
             className="max-w-md"
           />
         ) : (
-          <TextInput label="Customer name" name="newCustomerName" autoComplete="off" errors={errors.newCustomerName} className="max-w-md" />
+          <Field label="Customer name" name="newCustomerName" autoComplete="off" className="max-w-md" />
         )}
 
         {showSiteChoice && (
@@ -131,8 +123,8 @@ export function NewStudyForm({ options, preset }: { options: NewStudyOptions; pr
             {!showSiteChoice && <input type="hidden" name="siteMode" value="new" />}
             {customerMode === 'existing' && sitesOfCustomer.length === 0 && <p className="text-sm text-stone-600">This customer has no site yet: add it here.</p>}
             <div className="grid gap-4 sm:grid-cols-2 lg:grid-cols-4">
-              <TextInput label="Site name" name="siteName" autoComplete="off" errors={errors.siteName} className="lg:col-span-1" />
-              <TextInput
+              <Field label="Site name" name="siteName" autoComplete="off" className="lg:col-span-1" />
+              <Field
                 label="Latitude"
                 name="latDeg"
                 value={lat}
@@ -140,9 +132,8 @@ export function NewStudyForm({ options, preset }: { options: NewStudyOptions; pr
                 placeholder={`47.1234 or 47°07'24"N`}
                 autoComplete="off"
                 hint={<CoordinateEcho text={lat} axis="lat" />}
-                errors={errors.latDeg}
               />
-              <TextInput
+              <Field
                 label="Longitude"
                 name="lonDeg"
                 value={lon}
@@ -150,21 +141,19 @@ export function NewStudyForm({ options, preset }: { options: NewStudyOptions; pr
                 placeholder={`2.654 or 2°39'15"E`}
                 autoComplete="off"
                 hint={<CoordinateEcho text={lon} axis="lon" />}
-                errors={errors.lonDeg}
               />
-              <TextInput
+              <Field
                 label="Altitude (m above sea level)"
                 name="altitudeM"
                 inputMode="decimal"
                 placeholder="from the map"
                 hint="Blank: the ground height at the site from the ITU-R P.1511-1 map."
-                errors={errors.altitudeM}
               />
             </div>
             <p className="text-xs text-stone-600">Decimal degrees (north and east positive) or degrees, minutes and seconds with N/S/E/W.</p>
           </>
         ) : (
-          <SelectInput
+          <SelectField
             label="Site"
             name="siteId"
             value={siteId}
@@ -172,7 +161,6 @@ export function NewStudyForm({ options, preset }: { options: NewStudyOptions; pr
             onChange={(e) => setSiteId(e.target.value)}
             placeholder={pickingCustomer ? 'Choose a customer first' : 'Choose a site…'}
             options={sitesOfCustomer.map((s) => ({ value: String(s.id), label: s.name }))}
-            errors={errors.siteId}
             className="max-w-md"
           />
         )}
@@ -180,14 +168,13 @@ export function NewStudyForm({ options, preset }: { options: NewStudyOptions; pr
 
       <fieldset className="grid gap-4 md:grid-cols-2">
         <legend className="mb-4 text-base font-semibold text-stone-900">Service and rain climate</legend>
-        <SelectInput
+        <SelectField
           label="Satellite service"
           name="serviceProfileId"
           placeholder="Choose a service…"
           options={options.services.map((s) => ({ value: String(s.id), label: `${s.name} — ${s.satelliteName} at ${s.slot}, ${s.frequencyGHz} GHz` }))}
-          errors={errors.serviceProfileId}
         />
-        <SelectInput
+        <SelectField
           label="Rain climate"
           name="climateProfileId"
           value={climateId}
@@ -197,11 +184,10 @@ export function NewStudyForm({ options, preset }: { options: NewStudyOptions; pr
             ...options.climates.map((c) => ({ value: String(c.id), label: `${c.name} (${c.kindLabel}; made for ${c.place})` })),
           ]}
           hint={<ClimateHint profile={options.climates.find((c) => String(c.id) === climateId)} site={siteAt} />}
-          errors={errors.climateProfileId}
         />
       </fieldset>
 
-      <fieldset aria-describedby={errors.dishIds?.length ? 'dishes-error' : undefined}>
+      <fieldset aria-describedby="dishes-error">
         <legend className="text-base font-semibold text-stone-900">Dishes to compare</legend>
         <p className="mt-1 text-sm text-stone-600">Active dishes of your catalogue; prices are copied into the study so it never changes afterwards.</p>
         {options.dishes.length === 0 ? (
@@ -226,32 +212,27 @@ export function NewStudyForm({ options, preset }: { options: NewStudyOptions; pr
             })}
           </ul>
         )}
-        {errors.dishIds?.length ? (
-          <p id="dishes-error" className="mt-2 text-xs text-red-700">
-            {errors.dishIds.join(' ')}
-          </p>
-        ) : null}
+        <div className="mt-2">
+          <FormErrors names={['dishIds']} id="dishes-error" />
+        </div>
       </fieldset>
 
       <fieldset className="grid gap-4 md:grid-cols-2">
         <legend className="mb-4 text-base font-semibold text-stone-900">Target and title</legend>
-        <TextInput
+        <Field
           label="Target availability (%)"
           name="targetAvailabilityPercent"
           inputMode="decimal"
           defaultValue={String(TARGET_AVAILABILITY_PERCENT.default)}
-          hint={`Between ${TARGET_AVAILABILITY_PERCENT.min} and ${TARGET_AVAILABILITY_PERCENT.max} %. 99.9 % allows about 526 minutes of outage a year.`}
-          errors={errors.targetAvailabilityPercent}
+          hint={`Between ${TARGET_AVAILABILITY_PERCENT.min} and ${TARGET_AVAILABILITY_PERCENT.max} %. 99.9 % allows ${minutesText(allowedMinutesPerYear(99.9) ?? 0, 'down')} of outage a year.`}
         />
-        <TextInput label="Title (optional)" name="title" placeholder="Customer · site · service" errors={errors.title} />
+        <Field label="Title (optional)" name="title" placeholder="Customer · site · service" />
       </fieldset>
 
       <div className="flex flex-wrap items-center gap-4">
-        <Button type="submit" disabled={pending} aria-disabled={pending}>
-          {pending ? 'Computing…' : 'Compute study'}
-        </Button>
-        <FormStatus state={statusState} />
+        <SubmitButton pendingLabel="Computing…">Compute study</SubmitButton>
+        <ActionFormStatus />
       </div>
-    </form>
+    </ActionForm>
   );
 }

@@ -5,7 +5,7 @@ import useSWR from 'swr';
 import type { Paged } from '@/server/validation/paging';
 import { Button } from '@/components/ui/button';
 import { fetchJson } from './fetch-json';
-import { INPUT_CLASSES } from './form-fields';
+import { INPUT_CLASSES } from '@/components/ui/field';
 
 /** Search text settles for a moment before it is sent, so typing does not fire a request per key. */
 function useDebounced(value: string, ms = 250): string {

@@ -7,7 +7,8 @@ import { MAX_UPLOAD_BYTES } from '@/server/uploads/upload-limits';
 import { Button } from '@/components/ui/button';
 import { FormStatus } from '@/components/ui/form-status';
 import { Table, TBody, THead, Td, Th } from '@/components/ui/table';
-import { TextInput } from '@/components/study/form-fields';
+import { FormStateProvider } from '@/components/ui/action-form';
+import { Field } from '@/components/ui/field';
 import { CsvFileInput } from './csv-file-input';
 import { PlaceFields } from '@/components/climate/place-fields';
 
@@ -83,62 +84,64 @@ export function UploadPanel({ kinds, preview, confirm, needsProfileFields }: { k
     // The action's revalidatePath refreshes the lists on this page once the save is done.
     startTransition(() => (which === 'preview' ? previewAction(data) : confirmAction(data)));
   };
-  const fieldErrors = (confirmState && !confirmState.ok ? confirmState.fieldErrors : undefined) ?? (previewState && !previewState.ok ? previewState.fieldErrors : undefined) ?? {};
+  // Two actions behind two buttons: the fields read the errors of whichever refused last (saving first).
+  const refusal = confirmState && !confirmState.ok && confirmState.fieldErrors ? confirmState : previewState && !previewState.ok ? previewState : null;
 
   return (
     <form ref={form} onSubmit={(e) => e.preventDefault()} className="space-y-4" aria-label="Upload a CSV file">
-      {kinds.length > 1 ? (
-        <fieldset>
-          <legend className="text-sm font-medium text-stone-800">The file holds</legend>
-          <div className="mt-1 flex flex-wrap gap-4">
-            {kinds.map((k) => (
-              <label key={k.value} className="inline-flex items-center gap-1.5 text-sm">
-                <input type="radio" name="kind" value={k.value} checked={kind === k.value} onChange={() => {
-                    setKind(k.value);
-                    setStale(true);
-                  }} className="accent-ledger-700" />
-                {k.label}
-              </label>
-            ))}
+      <FormStateProvider state={refusal}>
+        {kinds.length > 1 ? (
+          <fieldset>
+            <legend className="text-sm font-medium text-stone-800">The file holds</legend>
+            <div className="mt-1 flex flex-wrap gap-4">
+              {kinds.map((k) => (
+                <label key={k.value} className="inline-flex items-center gap-1.5 text-sm">
+                  <input type="radio" name="kind" value={k.value} checked={kind === k.value} onChange={() => {
+                      setKind(k.value);
+                      setStale(true);
+                    }} className="accent-ledger-700" />
+                  {k.label}
+                </label>
+              ))}
+            </div>
+          </fieldset>
+        ) : (
+          <input type="hidden" name="kind" value={kinds[0].value} />
+        )}
+        <p className="text-sm text-stone-600">
+          Columns: <code className="rounded bg-stone-100 px-1 font-mono text-xs">{choice.columns}</code>. Comma, semicolon or tab separated, UTF-8, at most {MAX_UPLOAD_BYTES / 1024} KiB.
+          <span className="block text-xs">Example line: <code className="font-mono">{choice.example}</code></span>
+        </p>
+        <CsvFileInput
+          id="upload-file"
+          label="CSV file"
+          maxBytes={MAX_UPLOAD_BYTES}
+          limitedNoun="uploads"
+          tooBig={tooBig}
+          onPick={(message) => {
+            setStale(true);
+            setTooBig(message);
+          }}
+        />
+        {needsProfileFields && kind !== 'dish-catalogue' && (
+          <div className="grid gap-4 sm:grid-cols-2">
+            <Field label="Profile name" name="name" />
+            <Field label="Source of the figures" name="sourceNote" placeholder="Weather service, station, years" />
+            <Field label="0 °C isotherm height (km, optional)" name="zeroIsothermKm" inputMode="decimal" hint="ITU-R P.839-4 h0; blank takes the P.839-4 map value at each study's site." />
+            <PlaceFields className="sm:col-span-2" />
           </div>
-        </fieldset>
-      ) : (
-        <input type="hidden" name="kind" value={kinds[0].value} />
-      )}
-      <p className="text-sm text-stone-600">
-        Columns: <code className="rounded bg-stone-100 px-1 font-mono text-xs">{choice.columns}</code>. Comma, semicolon or tab separated, UTF-8, at most {MAX_UPLOAD_BYTES / 1024} KiB.
-        <span className="block text-xs">Example line: <code className="font-mono">{choice.example}</code></span>
-      </p>
-      <CsvFileInput
-        id="upload-file"
-        label="CSV file"
-        maxBytes={MAX_UPLOAD_BYTES}
-        limitedNoun="uploads"
-        errors={fieldErrors.file}
-        tooBig={tooBig}
-        onPick={(message) => {
-          setStale(true);
-          setTooBig(message);
-        }}
-      />
-      {needsProfileFields && kind !== 'dish-catalogue' && (
-        <div className="grid gap-4 sm:grid-cols-2">
-          <TextInput label="Profile name" name="name" errors={fieldErrors.name} />
-          <TextInput label="Source of the figures" name="sourceNote" placeholder="Weather service, station, years" errors={fieldErrors.sourceNote} />
-          <TextInput label="0 °C isotherm height (km, optional)" name="zeroIsothermKm" inputMode="decimal" errors={fieldErrors.zeroIsothermKm} hint="ITU-R P.839-4 h0; blank takes the P.839-4 map value at each study's site." />
-          <PlaceFields errors={fieldErrors} className="sm:col-span-2" />
+        )}
+        <div className="flex flex-wrap items-center gap-3">
+          <Button variant="secondary" onClick={() => run('preview')} disabled={previewing || saving || tooBig !== null}>
+            {previewing ? 'Reading…' : 'Preview'}
+          </Button>
+          <Button onClick={() => run('confirm')} disabled={stale || !report?.ok || saving || previewing || tooBig !== null}>
+            {saving ? 'Saving…' : 'Save'}
+          </Button>
+          <FormStatus state={confirmState ?? (previewState && !previewState.ok ? previewState : null)} />
         </div>
-      )}
-      <div className="flex flex-wrap items-center gap-3">
-        <Button variant="secondary" onClick={() => run('preview')} disabled={previewing || saving || tooBig !== null}>
-          {previewing ? 'Reading…' : 'Preview'}
-        </Button>
-        <Button onClick={() => run('confirm')} disabled={stale || !report?.ok || saving || previewing || tooBig !== null}>
-          {saving ? 'Saving…' : 'Save'}
-        </Button>
-        <FormStatus state={confirmState ?? (previewState && !previewState.ok ? previewState : null)} />
-      </div>
-      {report && !stale && <ReportView report={report} />}
+        {report && !stale && <ReportView report={report} />}
+      </FormStateProvider>
     </form>
   );
 }

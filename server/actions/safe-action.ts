@@ -2,6 +2,7 @@ import 'server-only';
 import { z } from 'zod';
 import { unstable_rethrow } from 'next/navigation';
 import { AppError, InvalidInputError } from '@/server/errors';
+import { fieldErrorsFrom } from '@/server/validation/fields';
 import { resolveAccess, type Access, type ContextForAccess } from '@/server/auth/access';
 import { isDatabaseUnavailable } from '@/db/unavailable';
 
@@ -56,16 +57,6 @@ export function echoValues(raw: Record<string, unknown>): Record<string, string>
     values[k] = v.slice(0, 2000);
   }
   return values;
-}
-
-/** zod issues as { field: [messages] }, keyed by the dotted path ("" for the whole form). */
-export function fieldErrorsFrom(error: z.ZodError): Record<string, string[]> {
-  const out: Record<string, string[]> = {};
-  for (const issue of error.issues) {
-    const key = issue.path.map(String).join('.');
-    (out[key] ??= []).push(issue.message);
-  }
-  return out;
 }
 
 /**

@@ -6,7 +6,7 @@ import { AppError, ForbiddenError, InvalidInputError, RateLimitedError } from '@
 import { getEnv } from '@/server/env';
 import { DB_RETRY_AFTER_SECONDS, isDatabaseUnavailable } from '@/db/unavailable';
 import { resolveAccess, type Access, type ContextForAccess } from '@/server/auth/access';
-import { fieldErrorsFrom } from '@/server/actions/safe-action';
+import { fieldErrorsFrom } from '@/server/validation/fields';
 import { bearerTokenOf } from '@/server/auth/api-key-token';
 import type { ApiScope } from '@/server/auth/api-scopes';
 import { resolveKeyAccess } from './key-access';

@@ -124,11 +124,15 @@ export function optionalCoordinateField(axis: CoordinateAxis, label?: string) {
   return z.preprocess((v) => (v === null ? undefined : blankToUndefined(v)), coordinateField(axis, label).optional());
 }
 
-/** Field errors of a failed parse in the ActionState shape (`{ field: [messages] }`). */
-export function fieldErrorsOf(error: z.ZodError): Record<string, string[]> {
+/**
+ * The field errors of a failed parse, for forms (in the browser and from actions) and for the
+ * API alike: `{ field: [messages] }` keyed by the dotted path ("dishes.2.diameterM"), "" for the
+ * whole input. A form field shows the messages under its name and any path inside it.
+ */
+export function fieldErrorsFrom(error: z.ZodError): Record<string, string[]> {
   const out: Record<string, string[]> = {};
   for (const issue of error.issues) {
-    const key = issue.path.length ? issue.path.map(String).join('.') : '_form';
+    const key = issue.path.map(String).join('.');
     (out[key] ??= []).push(issue.message);
   }
   return out;
