@@ -83,6 +83,13 @@ test('every page group and the API answer with the security headers', async ({ b
     const res = await request.get(path);
     expectCommonHeaders(res.headers(), `api ${path}`);
   }
+  // HSTS only when served over https: a client claiming https itself is not believed without a
+  // trusted proxy (TRUST_PROXY is off on the test profile), so neither the page nor the API sends it.
+  for (const path of ['/sign-in', '/api/health']) {
+    const res = await request.get(path, { headers: { 'x-forwarded-proto': 'https' } });
+    expect(res.headers()['strict-transport-security'], path).toBeUndefined();
+    expect(res.headers()['content-security-policy'], path).not.toContain('upgrade-insecure-requests');
+  }
   const hook = await request.post('/api/webhooks/stripe', { data: '{}', headers: { 'content-type': 'application/json' } });
   expect(hook.status()).toBe(400); // unsigned
   expect(hook.headers()['x-frame-options']).toBe('DENY');
