@@ -11,8 +11,3 @@ export async function createCompany(data: { name: string; planId: number; trialE
   const { Company } = models();
   return Company.create(data, { transaction: t });
 }
-
-export async function findCompanyById(id: number, t?: Transaction) {
-  const { Company } = models();
-  return Company.findByPk(id, { transaction: t });
-}

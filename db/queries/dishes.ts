@@ -34,21 +34,11 @@ export async function listDishes(companyId: number, o: { activeOnly?: boolean } 
   });
 }
 
-export async function getDish(companyId: number, id: number, t?: Transaction) {
-  const { Dish } = models();
-  return Dish.findOne({ where: { id, companyId }, transaction: t });
-}
-
 /** The named dishes of this company (others' ids are simply not found). */
 export async function getDishesByIds(companyId: number, ids: number[], t?: Transaction) {
   const { Dish } = models();
   if (ids.length === 0) return [];
   return Dish.findAll({ where: { companyId, id: { [Op.in]: ids } }, transaction: t });
-}
-
-export async function findDishByName(companyId: number, name: string, t?: Transaction) {
-  const { Dish } = models();
-  return Dish.findOne({ where: { companyId, name }, transaction: t });
 }
 
 export async function createDish(companyId: number, input: DishColumnsInput, t?: Transaction) {

@@ -39,8 +39,3 @@ export async function setUserPassword(userId: string, passwordHash: string, t?: 
   const { User } = models();
   await User.update({ passwordHash }, { where: { id: userId }, transaction: t });
 }
-
-export async function setUserName(userId: string, name: string): Promise<void> {
-  const { User } = models();
-  await User.update({ name }, { where: { id: userId } });
-}

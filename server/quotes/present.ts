@@ -9,13 +9,13 @@ import { diameterLabel, readQuotedOption, savingWords, type OptionReading } from
 const COMPASS_16 = ['north', 'north-northeast', 'northeast', 'east-northeast', 'east', 'east-southeast', 'southeast', 'south-southeast', 'south', 'south-southwest', 'southwest', 'west-southwest', 'west', 'west-northwest', 'northwest', 'north-northwest'];
 
 /** 16-point compass word for an azimuth (degrees clockwise from true north). */
-export function compassWord(azimuthDeg: number): string {
+function compassWord(azimuthDeg: number): string {
   const i = Math.round((((azimuthDeg % 360) + 360) % 360) / 22.5) % 16;
   return COMPASS_16[i];
 }
 
 /** Orbital position as people write it: "19.2° E". */
-export function orbitalPosition(longitudeDeg: number): string {
+function orbitalPosition(longitudeDeg: number): string {
   const abs = Math.abs(longitudeDeg);
   return `${abs.toFixed(1)}° ${longitudeDeg < 0 ? 'W' : 'E'}`;
 }

@@ -15,7 +15,7 @@ import { quoteToCustomerMail } from './mail';
 import { readQuotedOption } from '@/server/study-option';
 import { isPastValidity, isShareable, quoteReference } from './status';
 
-export function shareUrl(token: string): string {
+function shareUrl(token: string): string {
   return `${getEnv().APP_URL.replace(/\/$/, '')}/share/${token}`;
 }
 

@@ -63,7 +63,7 @@ export async function sharedLogoCompany(token: string, now: Date = new Date()): 
  * One view of the customer's page: the link's count goes up (atomically), and the first view of
  * a sent quote moves it to viewed with an event for the team's timeline.
  */
-export async function recordShareView(linkId: number, companyId: number, quoteId: number, meta: RequestMeta, now: Date = new Date()): Promise<void> {
+async function recordShareView(linkId: number, companyId: number, quoteId: number, meta: RequestMeta, now: Date = new Date()): Promise<void> {
   const { sequelize } = models();
   await sequelize.transaction(async (t) => {
     await recordLinkView(linkId, t);
@@ -150,7 +150,7 @@ const PREVIEW_AGENTS = /bot\b|crawler|spider|slurp|facebookexternalhit|embedly|p
  * Whether this request is a person opening the page: not a server action re-render (the accept
  * form), not a router prefetch or refresh, not a link-preview robot.
  */
-export function countsAsView(h: Headers): boolean {
+function countsAsView(h: Headers): boolean {
   if (h.get('next-action') || h.get('next-router-prefetch') || h.get('rsc') === '1') return false;
   const purpose = h.get('purpose') ?? h.get('sec-purpose') ?? '';
   if (/prefetch|prerender/i.test(purpose)) return false;

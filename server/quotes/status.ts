@@ -43,11 +43,6 @@ export function isPastValidity(validUntil: string, now: Date = new Date()): bool
   return utcDay(now) > validUntil;
 }
 
-/** The end of a validity day: the last instant the quote can be accepted. */
-export function endOfValidity(validUntil: string): Date {
-  return new Date(`${validUntil}T23:59:59.000Z`);
-}
-
 /**
  * The status to show: a sent or viewed quote past its validity is expired even before anything
  * wrote that down (expireOverdueQuotes records it on the next read).

@@ -44,7 +44,7 @@ export class QuotePriceError extends Error {
 }
 
 /** An amount string as typed ("1 249,90" is refused; "1249.9" is fine) → canonical "1249.90". */
-export function normaliseAmount(value: string, field: keyof QuotePrices): string {
+function normaliseAmount(value: string, field: keyof QuotePrices): string {
   const v = value.trim();
   if (!AMOUNT.test(v)) throw new QuotePriceError(field, 'Enter an amount such as 1249.90 (digits, at most two decimals).');
   return new Money(v).toFixed(2);

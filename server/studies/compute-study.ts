@@ -40,7 +40,7 @@ export function exceedanceCurve(inputs: StudyInputsSnapshot, result: { elevation
 }
 
 /** The option the total curve is drawn for: the recommended dish, else the smallest (index 0: options run small to large). */
-export function curveOptionIndex(tradeoff: Pick<TradeoffResult, 'recommendation'>): number {
+function curveOptionIndex(tradeoff: Pick<TradeoffResult, 'recommendation'>): number {
   return tradeoff.recommendation.smallestMeetingTargetIndex ?? 0;
 }
 
@@ -50,7 +50,7 @@ export function curveOptionIndex(tradeoff: Pick<TradeoffResult, 'recommendation'
  * Built from the same engine paths dishTradeoff uses, so the curve meets each fade threshold where
  * that dish's outage lies.
  */
-export function totalExceedanceCurve(inputs: StudyInputsSnapshot, tradeoff: TradeoffResult, atmosphere: SiteAtmosphere, optionIndex: number): ExceedancePoint[] {
+function totalExceedanceCurve(inputs: StudyInputsSnapshot, tradeoff: TradeoffResult, atmosphere: SiteAtmosphere, optionIndex: number): ExceedancePoint[] {
   const sc = inputs.scenario;
   const dish = sc.dishes[optionIndex];
   const path = { latDeg: sc.site.latDeg, stationHeightKm: sc.site.altitudeKm, elevationDeg: tradeoff.elevationDeg, frequencyGHz: sc.downlink.frequencyGHz };

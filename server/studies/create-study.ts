@@ -25,7 +25,7 @@ export function recommendedDiameterOf(result: StudyResultSnapshot): number | nul
   return i === null ? null : result.tradeoff.options[i].diameterM;
 }
 
-export function defaultStudyTitle(inputs: Pick<StudyInputsSnapshot, 'site' | 'service'>): string {
+function defaultStudyTitle(inputs: Pick<StudyInputsSnapshot, 'site' | 'service'>): string {
   return `${inputs.site.customerName} · ${inputs.site.name} · ${inputs.service.name}`.slice(0, 200);
 }
 

@@ -12,7 +12,7 @@ const MINUTES_PER_DAY = 1440;
 /** From two days on, days read better than hours (our own choice, no source). */
 const HOURS_BEFORE_DAYS = 48;
 
-export type DurationUnit = 'minute' | 'hour' | 'day';
+type DurationUnit = 'minute' | 'hour' | 'day';
 
 export interface RoundedDuration extends RoundedFigure {
   unit: DurationUnit;

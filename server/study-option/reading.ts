@@ -58,7 +58,7 @@ const NEVER = '—';
  *
  * @example readOption({ diameterM: 0.9, figures, knownToMeetTarget: true }).availability.text // => '99.951 %'
  */
-export function readOption(o: { diameterM: number; figures: BasisFigures; knownToMeetTarget: boolean | null | undefined }): OptionReading {
+function readOption(o: { diameterM: number; figures: BasisFigures; knownToMeetTarget: boolean | null | undefined }): OptionReading {
   const f = o.figures;
   const q = outageQualifier(f);
   const closes = f.closes;

@@ -10,7 +10,6 @@ export const CLIMATE_KIND_LABELS = {
   'known-r001': 'Known R0.01',
   'climate-zone': 'Climate zone (ITU-R P.837-1)',
 } as const;
-export type ClimateKindName = keyof typeof CLIMATE_KIND_LABELS;
 
 const twelve = (label: string, min: number, max: number, unit: string) =>
   z
@@ -18,12 +17,12 @@ const twelve = (label: string, min: number, max: number, unit: string) =>
     .length(12, `${label}: exactly 12 monthly values (January to December) are required.`);
 
 /** Monthly mean total rainfall MT (mm) and mean surface temperature T (°C), January first. */
-export const monthlyNormalsDataSchema = z.object({
+const monthlyNormalsDataSchema = z.object({
   monthlyRainfallMm: twelve('Monthly rainfall', 0, 3000, 'mm'),
   monthlyTemperatureC: twelve('Monthly temperature', -70, 50, '°C'),
 });
 
-export const measuredPointSchema = z.object({
+const measuredPointSchema = z.object({
   pPercent: z.number().gt(0, 'p must be above 0 %.').lte(100, 'p must be at most 100 %.'),
   rainRateMmH: z.number().gt(0, 'The rain rate must be above 0 mm/h.').lte(1000, 'The rain rate must be at most 1000 mm/h.'),
 });
@@ -56,21 +55,14 @@ export const measuredCurveDataSchema = z.object({
     }),
 });
 
-export const knownR001DataSchema = z.object({ r001MmH: numberIn('R0.01', 0, 300, 'mm/h') });
+const knownR001DataSchema = z.object({ r001MmH: numberIn('R0.01', 0, 300, 'mm/h') });
 
-export const climateZoneDataSchema = z.object({
+const climateZoneDataSchema = z.object({
   zone: z.preprocess(
     (v) => (typeof v === 'string' ? v.trim().toUpperCase() : v),
     z.enum(CLIMATE_ZONES as unknown as [string, ...string[]], { error: 'Choose an ITU-R P.837-1 zone (A–H, J–N, P, Q).' }),
   ),
 });
-
-export const climateDataSchemas = {
-  'monthly-normals': monthlyNormalsDataSchema,
-  'measured-curve': measuredCurveDataSchema,
-  'known-r001': knownR001DataSchema,
-  'climate-zone': climateZoneDataSchema,
-} as const;
 
 /**
  * The place a profile's figures were measured or made for (decimal or DMS, like a site): both or

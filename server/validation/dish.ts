@@ -17,7 +17,5 @@ export const dishFields = {
 
 /** A catalogue entry as the dish form posts it. */
 export const dishSchema = z.object({ ...dishFields, active: checkboxField() });
-export type DishInput = z.infer<typeof dishSchema>;
-
 export const dishUpdateSchema = dishSchema.extend({ id: idField('dish') });
 export const dishIdSchema = z.object({ id: idField('dish') });

@@ -11,7 +11,7 @@ export const QUOTE_NOTES_MAX = 4000;
 const DAY = /^\d{4}-\d{2}-\d{2}$/;
 
 /** A calendar date typed as YYYY-MM-DD (the <input type="date"> format). */
-export function dayField(label: string) {
+function dayField(label: string) {
   return z.preprocess(
     (v) => (typeof v === 'string' ? v.trim() : v),
     z
@@ -22,7 +22,7 @@ export function dayField(label: string) {
 }
 
 /** A tax rate in percent with at most 3 decimals, 0–100. Blank means 0. */
-export function taxRateField(label = 'Tax rate') {
+function taxRateField(label = 'Tax rate') {
   return z.preprocess(
     (v) => (v === undefined || v === null || (typeof v === 'string' && v.trim() === '') ? '0' : typeof v === 'number' ? String(v) : typeof v === 'string' ? v.trim().replace(/%$/, '').trim() : v),
     z

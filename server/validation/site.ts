@@ -8,7 +8,7 @@ export const SITE_ALTITUDE_M = { min: -450, max: 6000 } as const;
  * Fields of a site; latitude and longitude accept decimal degrees or DMS (server/validation/coordinates.ts).
  * A blank altitude is `undefined`: the server fills it from the ITU-R P.1511-1 map (server/studies/site-altitude.ts).
  */
-export const siteFields = {
+const siteFields = {
   name: requiredText('Site name', 160),
   address: optionalText('Address', 300),
   latDeg: coordinateField('lat'),
@@ -18,7 +18,4 @@ export const siteFields = {
 };
 
 export const siteSchema = z.object({ customerId: idField('customer'), ...siteFields });
-export type SiteInput = z.infer<typeof siteSchema>;
-
 export const siteUpdateSchema = siteSchema.extend({ id: idField('site') });
-export const siteIdSchema = z.object({ id: idField('site') });

@@ -2,22 +2,15 @@ import { z } from 'zod';
 import { optionalNumberIn, optionalText } from './fields';
 import { profileLocationFields, requireBothCoordinates } from './climate';
 
-export const UPLOAD_KIND_LABELS = {
-  'dish-catalogue': 'Dish catalogue',
-  'rain-curve': 'Measured rain-rate exceedance curve',
-  'climate-normals': 'Monthly climate normals',
-} as const;
-
 /** A file from a form (a File/Blob in the browser and in Node's FormData). */
 const fileField = z.custom<File>(
   (v) => typeof v === 'object' && v !== null && typeof (v as Blob).arrayBuffer === 'function' && (v as Blob).size > 0,
   { error: 'Choose a CSV file.' },
 );
 
-export const uploadKindField = z.enum(['dish-catalogue', 'rain-curve', 'climate-normals'], { error: 'Choose what the file holds.' });
+const uploadKindField = z.enum(['dish-catalogue', 'rain-curve', 'climate-normals'], { error: 'Choose what the file holds.' });
 
 /** Preview: the file and what it holds; nothing else is needed and nothing is saved. */
-export const uploadPreviewSchema = z.object({ kind: uploadKindField, file: fileField });
 export const cataloguePreviewSchema = z.object({ kind: z.literal('dish-catalogue').default('dish-catalogue'), file: fileField });
 export const climatePreviewSchema = z.object({ kind: z.enum(['rain-curve', 'climate-normals'], { error: 'Choose a measured curve or monthly normals.' }), file: fileField });
 
