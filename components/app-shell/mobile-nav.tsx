@@ -1,6 +1,6 @@
 'use client';
 
-import { useEffect, useState } from 'react';
+import { useState } from 'react';
 import { usePathname } from 'next/navigation';
 import { NavLinks } from './nav-links';
 
@@ -8,7 +8,12 @@ import { NavLinks } from './nav-links';
 export function MobileNav({ items }: { items: { label: string; href: string }[] }) {
   const [open, setOpen] = useState(false);
   const pathname = usePathname();
-  useEffect(() => setOpen(false), [pathname]);
+  // A navigation closes the menu (state adjusted while rendering, not in an effect).
+  const [shownFor, setShownFor] = useState(pathname);
+  if (shownFor !== pathname) {
+    setShownFor(pathname);
+    setOpen(false);
+  }
   if (items.length === 0) return null;
   return (
     <div className="lg:hidden">

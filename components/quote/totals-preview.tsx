@@ -1,12 +1,12 @@
 'use client';
 
-import { useEffect, useState, type ReactNode } from 'react';
+import { useCallback, useState, type ReactNode } from 'react';
 import { QuotePriceError, quoteTotals, type QuoteTotals } from '@/server/quotes/totals';
 import { formatMoney } from '@/server/money-format';
 
-const PRICE_FIELDS = ['hardwarePrice', 'labourPrice', 'extrasPrice', 'discountAmount', 'taxRatePercent'] as const;
+type PriceField = 'hardwarePrice' | 'labourPrice' | 'extrasPrice' | 'discountAmount' | 'taxRatePercent';
 
-function read(form: HTMLFormElement): Record<(typeof PRICE_FIELDS)[number], string> {
+function read(form: HTMLFormElement): Record<PriceField, string> {
   const data = new FormData(form);
   const get = (n: string, blank: string) => {
     const v = String(data.get(n) ?? '').trim().replace(/^\$/, '').replace(/,/g, '').replace(/%$/, '').trim();
@@ -22,9 +22,8 @@ function read(form: HTMLFormElement): Record<(typeof PRICE_FIELDS)[number], stri
 export function TotalsPreview({ children, currency = 'USD' }: { children: ReactNode; currency?: string }) {
   const [totals, setTotals] = useState<QuoteTotals | null>(null);
   const [problem, setProblem] = useState<string | null>(null);
-  const [root, setRoot] = useState<HTMLDivElement | null>(null);
-  const recompute = () => {
-    const form = root?.closest('form');
+  const recomputeFrom = useCallback((el: Element | null) => {
+    const form = el?.closest('form');
     if (!form) return;
     try {
       setTotals(quoteTotals(read(form)));
@@ -33,11 +32,11 @@ export function TotalsPreview({ children, currency = 'USD' }: { children: ReactN
       setTotals(null);
       setProblem(e instanceof QuotePriceError ? e.message : 'Check the amounts.');
     }
-  };
-  // eslint-disable-next-line react-hooks/exhaustive-deps
-  useEffect(recompute, [root]);
+  }, []);
+  // First figures when the wrapper is mounted (the fields may hold an edited quote's prices), then on every edit.
+  const recompute = (e: { currentTarget: HTMLDivElement }) => recomputeFrom(e.currentTarget);
   return (
-    <div ref={setRoot} onInput={recompute} onChange={recompute}>
+    <div ref={recomputeFrom} onInput={recompute} onChange={recompute}>
       {children}
       <dl className="mt-4 grid max-w-sm grid-cols-[1fr_auto] gap-x-6 gap-y-1 rounded border border-stone-200 bg-stone-50 px-4 py-3 text-sm" aria-live="polite">
         {totals ? (

@@ -39,7 +39,12 @@ export function PagedList<T>({
   const [q, setQ] = useState('');
   const [page, setPage] = useState(1);
   const query = useDebounced(q);
-  useEffect(() => setPage(1), [query]);
+  // A new search starts again at page 1 (state adjusted while rendering, not in an effect).
+  const [pagedQuery, setPagedQuery] = useState(query);
+  if (pagedQuery !== query) {
+    setPagedQuery(query);
+    setPage(1);
+  }
   const url = `${endpoint}?q=${encodeURIComponent(query)}&page=${page}&pageSize=${pageSize}${extraQuery}`;
   const { data, error, isLoading } = useSWR<Paged<T>>(url, fetchJson, { keepPreviousData: true });
   return (

@@ -1,6 +1,6 @@
 import { PHYSICAL_RANGES } from './physical-ranges';
 import { SPEED_OF_LIGHT_M_S } from './physical-constants';
-import { requireNumberInRange, requirePositive } from './validate';
+import { requireNumberInRange } from './validate';
 
 /** Half-power beamwidth factor, degrees per (λ/D) (server/engine/README.md §3: ≈ 70 λ/D; common practice, no source). */
 export const BEAMWIDTH_FACTOR_DEG = 70;

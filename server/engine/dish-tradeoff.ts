@@ -32,7 +32,7 @@ import type {
 } from './tradeoff-types';
 import { ENGINE_VERSION } from './version';
 import { PHYSICAL_RANGES as R } from './physical-ranges';
-import { requireFinite, requireNonNegative, requireNumberInRange, requirePositive } from './validate';
+import { requireNumberInRange, requirePositive } from './validate';
 
 /** A path whose attenuation exceedance can be asked: rain alone, or the P.618 §2.5 total. */
 type FadeCurve = { exceedanceOf(attenuationDb: number): RainExceedance } & Partial<Pick<TotalAttenuationCurve, 'componentsAt'>>;

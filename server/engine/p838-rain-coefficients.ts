@@ -1,5 +1,5 @@
 import { PHYSICAL_RANGES } from './physical-ranges';
-import { requireFinite, requireNumberInRange } from './validate';
+import { requireNumberInRange } from './validate';
 
 /** Options of {@link rainCoefficients}. */
 export interface RainCoefficientsOptions {

@@ -1,4 +1,4 @@
-import { test, expect, type Page } from '@playwright/test';
+import { test, expect } from '@playwright/test';
 import { seriousViolations } from './support/axe';
 import { signIn } from './support/sign-in';
 import { DEMO_USERS } from '../../db/demo/accounts';

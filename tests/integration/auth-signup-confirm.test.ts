@@ -9,7 +9,6 @@ import { confirmSignUp, signUp } from '@/server/actions/auth';
 import {
   confirmSignUp as spendSignUpLink,
   inspectSignUpLink,
-  signUpRequestedMessage,
   SIGN_UP_LINK_DEAD,
   SIGN_UP_LINK_HOURS,
   SIGN_UP_LINK_SUPERSEDED,

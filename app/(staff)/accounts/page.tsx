@@ -9,15 +9,20 @@ export const dynamic = 'force-dynamic';
 
 const PAGE_SIZE = 50;
 
+/** One page of accounts and the time they were read at (which trials have ended by then). */
+async function loadAccounts(search: string, page: number) {
+  const { rows, total } = await listAccounts({ search, limit: PAGE_SIZE, offset: (page - 1) * PAGE_SIZE });
+  return { rows, total, now: Date.now() };
+}
+
 /** Staff: every company with its plan and subscription state (read only). */
 export default async function AccountsPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
   await requirePermission('accounts.read');
   const sp = await searchParams;
   const q = typeof sp.q === 'string' ? sp.q.slice(0, 120) : '';
   const page = Math.max(1, Number(typeof sp.page === 'string' && /^\d{1,5}$/.test(sp.page) ? sp.page : 1));
-  const { rows, total } = await listAccounts({ search: q, limit: PAGE_SIZE, offset: (page - 1) * PAGE_SIZE });
+  const { rows, total, now } = await loadAccounts(q, page);
   const pages = Math.max(1, Math.ceil(total / PAGE_SIZE));
-  const now = Date.now();
   return (
     <div className="space-y-5">
       <header className="flex flex-wrap items-end justify-between gap-3">

@@ -48,7 +48,6 @@ export default async function SharedQuotePage({ params }: { params: Promise<{ to
           <div className="flex items-center gap-3">
             {showLogo && (
               // A small stored image served from our own route; next/image would add nothing here.
-              // eslint-disable-next-line @next/next/no-img-element
               <img src={`/share/${token}/logo`} alt={`${companyName} logo`} className="h-10 w-auto max-w-[160px] object-contain" />
             )}
             <p className="text-lg font-semibold text-stone-900">{companyName}</p>

@@ -19,9 +19,9 @@ type StoredCookie = { name: string; value: string; [attribute: string]: unknown 
 
 type RequestState = { cookies: Map<string, { name: string; value: string; [attribute: string]: unknown }>; headers: Headers; revalidated: string[] };
 
-const shared = vi.hoisted(() => {
-  // eslint-disable-next-line @typescript-eslint/no-require-imports
-  const { AsyncLocalStorage } = require('node:async_hooks') as typeof import('node:async_hooks');
+const shared = await vi.hoisted(async () => {
+  // Hoisted above the imports, so the module is loaded here.
+  const { AsyncLocalStorage } = await import('node:async_hooks');
   const global: RequestState = { cookies: new Map(), headers: new Headers({ 'user-agent': 'vitest integration' }), revalidated: [] };
   // Concurrent requests each get their own jar through inRequest(); everything else uses the global one.
   const scoped = new AsyncLocalStorage<RequestState>();

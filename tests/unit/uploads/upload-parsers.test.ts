@@ -1,3 +1,5 @@
+import fs from 'node:fs';
+import path from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { parseUpload } from '@/server/uploads/parse-upload';
 import { MAX_UPLOAD_BYTES } from '@/server/uploads/upload-limits';
@@ -128,8 +130,6 @@ describe('measured rain-rate curve CSV', () => {
 describe('monthly climate normals CSV', () => {
   // Monthly MT and T of ITU-R P.837-7 validation site V2 (../shared/reference/itu-p837-7-monthly-climate.csv),
   // whose R0.01 by Annex 1 is given in itu-p837-7-rain-rate.csv.
-  const fs = require('node:fs') as typeof import('node:fs');
-  const path = require('node:path') as typeof import('node:path');
   const refDir = referenceDir();
   const monthly = fs.readFileSync(path.join(refDir, 'itu-p837-7-monthly-climate.csv'), 'utf8').trim().split('\n').slice(1).map((l) => l.split(','));
   const rates = fs.readFileSync(path.join(refDir, 'itu-p837-7-rain-rate.csv'), 'utf8').trim().split('\n');

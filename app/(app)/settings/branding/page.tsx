@@ -29,7 +29,6 @@ export default async function BrandingPage() {
             {logo ? (
               <div className="flex flex-wrap items-center gap-4">
                 <div className="rounded border border-stone-200 bg-white p-3">
-                  {/* eslint-disable-next-line @next/next/no-img-element */}
                   <img src={`/api/v1/branding/logo?v=${logo.updatedAt.getTime()}`} alt={`${ctx.company.name} logo`} className="h-14 w-auto max-w-[220px] object-contain" />
                 </div>
                 <p className="text-sm text-stone-700">
