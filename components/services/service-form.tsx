@@ -17,14 +17,7 @@ export function ServiceForm({ values }: { values?: ServiceFormValues }) {
   const [uplink, setUplink] = useState(values?.uplinkEnabled === 'on');
   const v = (k: string, d = '') => values?.[k] ?? d;
   return (
-    <ActionForm
-      action={edit ? updateServiceProfile : createServiceProfile}
-      schema={edit ? serviceProfileUpdateSchema : serviceProfileSchema}
-      resetOnSuccess={!edit}
-      status="placed"
-      className="space-y-5"
-      aria-label={edit ? `Edit ${values.name}` : 'Add a service'}
-    >
+    <ActionForm action={edit ? updateServiceProfile : createServiceProfile} schema={edit ? serviceProfileUpdateSchema : serviceProfileSchema} resetOnSuccess={!edit} status="placed" className="space-y-5" aria-label={edit ? `Edit ${values.name}` : 'Add a service'}>
       {edit && <input type="hidden" name="id" value={values.id} />}
       <div className="grid gap-4 sm:grid-cols-2 lg:grid-cols-4">
         <Field label="Service name" name="name" defaultValue={v('name')} className="lg:col-span-2" />

@@ -12,14 +12,7 @@ export type CustomerFormValues = { id: number; name: string; email: string | nul
 /** Add a customer, or (with `customer`) change one; `onSaved` runs once the server accepted it. */
 export function CustomerForm({ customer, onSaved, onCancel }: { customer?: CustomerFormValues; onSaved?: () => void; onCancel?: () => void } = {}) {
   return (
-    <ActionForm
-      action={customer ? updateCustomer : createCustomer}
-      schema={customer ? customerUpdateSchema : customerSchema}
-      resetOnSuccess={!customer}
-      status="placed"
-      className="space-y-4"
-      aria-label={customer ? `Edit ${customer.name}` : 'Add a customer'}
-    >
+    <ActionForm action={customer ? updateCustomer : createCustomer} schema={customer ? customerUpdateSchema : customerSchema} resetOnSuccess={!customer} status="placed" className="space-y-4" aria-label={customer ? `Edit ${customer.name}` : 'Add a customer'}>
       <AfterSave listPrefix="/api/v1/customers" onSaved={onSaved} />
       {customer && <input type="hidden" name="id" value={customer.id} />}
       <div className="grid gap-4 sm:grid-cols-3">

@@ -7,12 +7,29 @@ import { useFieldErrors, useFormState } from './action-form';
 export const INPUT_CLASSES =
   'block w-full rounded border border-stone-300 bg-white px-3 py-2 text-sm text-stone-900 shadow-xs placeholder:text-stone-400 focus:border-ledger-600 focus:outline-none focus:ring-2 focus:ring-ledger-200 aria-[invalid=true]:border-red-400';
 
-/** The field's messages and, after a refusal, the value typed (the action echoes no secrets). */
-function useFieldState(name: string) {
+/**
+ * What every control shares: its id, the messages for its name and, after a refusal, the value
+ * typed (the action echoes no secrets) as its default; a controlled box keeps its own value.
+ */
+function useControl(name: string, hint: ReactNode, defaultValue: unknown, opts: { controlled: boolean; secret?: boolean }) {
+  const id = useId();
   const state = useFormState();
   const errors = useFieldErrors(name);
   const echoed = state && !state.ok ? state.values?.[name] : undefined;
-  return { errors, echoed };
+  return {
+    id,
+    errors,
+    // A new key after each answer lets the refilled default value take effect.
+    key: opts.controlled ? 'controlled' : (echoed ?? 'initial'),
+    props: {
+      id,
+      name,
+      defaultValue: opts.controlled || opts.secret ? undefined : (echoed ?? (defaultValue as string | undefined)),
+      'aria-invalid': errors.length > 0 || undefined,
+      'aria-describedby': errors.length ? `${id}-error` : hint ? `${id}-hint` : undefined,
+      className: INPUT_CLASSES,
+    },
+  };
 }
 
 function FieldShell({ id, label, hint, errors, children, className = '' }: { id: string; label: ReactNode; hint?: ReactNode; errors: string[]; children: ReactNode; className?: string }) {
@@ -36,30 +53,12 @@ function FieldShell({ id, label, hint, errors, children, className = '' }: { id:
   );
 }
 
-const describedBy = (id: string, errors: string[], hint: ReactNode) => (errors.length ? `${id}-error` : hint ? `${id}-hint` : undefined);
-
-/**
- * A labelled input. Inside an ActionForm it shows the field errors for its name and, after a
- * failed submit, refills what was typed (never passwords: the action does not echo them). A
- * controlled box (`value`) keeps its own value.
- */
+/** A labelled input that shows its field errors from the surrounding ActionForm and refills what was typed (never passwords). */
 export function Field({ label, name, hint, className, defaultValue, ...input }: InputHTMLAttributes<HTMLInputElement> & { label: ReactNode; name: string; hint?: ReactNode }) {
-  const id = useId();
-  const { errors, echoed } = useFieldState(name);
-  const controlled = input.value !== undefined;
+  const c = useControl(name, hint, defaultValue, { controlled: input.value !== undefined, secret: input.type === 'password' });
   return (
-    <FieldShell id={id} label={label} hint={hint} errors={errors} className={className}>
-      <input
-        id={id}
-        name={name}
-        // A new key after each answer lets the refilled default value take effect.
-        key={controlled ? 'controlled' : (echoed ?? 'initial')}
-        defaultValue={controlled || input.type === 'password' ? undefined : (echoed ?? defaultValue)}
-        aria-invalid={errors.length > 0 || undefined}
-        aria-describedby={describedBy(id, errors, hint)}
-        className={INPUT_CLASSES}
-        {...input}
-      />
+    <FieldShell id={c.id} label={label} hint={hint} errors={c.errors} className={className}>
+      <input key={c.key} {...c.props} {...input} />
     </FieldShell>
   );
 }
@@ -74,21 +73,10 @@ export function SelectField({
   defaultValue,
   ...select
 }: SelectHTMLAttributes<HTMLSelectElement> & { label: ReactNode; name: string; hint?: ReactNode; options: readonly { value: string; label: string }[]; placeholder?: string }) {
-  const id = useId();
-  const { errors, echoed } = useFieldState(name);
-  const controlled = select.value !== undefined;
+  const c = useControl(name, hint, defaultValue, { controlled: select.value !== undefined });
   return (
-    <FieldShell id={id} label={label} hint={hint} errors={errors} className={className}>
-      <select
-        id={id}
-        name={name}
-        key={controlled ? 'controlled' : (echoed ?? 'initial')}
-        defaultValue={controlled ? undefined : (echoed ?? (defaultValue as string | undefined))}
-        aria-invalid={errors.length > 0 || undefined}
-        aria-describedby={describedBy(id, errors, hint)}
-        className={INPUT_CLASSES}
-        {...select}
-      >
+    <FieldShell id={c.id} label={label} hint={hint} errors={c.errors} className={className}>
+      <select key={c.key} {...c.props} {...select}>
         {placeholder !== undefined && <option value="">{placeholder}</option>}
         {options.map((o) => (
           <option key={o.value} value={o.value}>
@@ -101,21 +89,10 @@ export function SelectField({
 }
 
 export function TextAreaField({ label, name, hint, className, defaultValue, ...area }: TextareaHTMLAttributes<HTMLTextAreaElement> & { label: ReactNode; name: string; hint?: ReactNode }) {
-  const id = useId();
-  const { errors, echoed } = useFieldState(name);
+  const c = useControl(name, hint, defaultValue, { controlled: area.value !== undefined });
   return (
-    <FieldShell id={id} label={label} hint={hint} errors={errors} className={className}>
-      <textarea
-        id={id}
-        name={name}
-        rows={3}
-        key={echoed ?? 'initial'}
-        defaultValue={echoed ?? defaultValue}
-        aria-invalid={errors.length > 0 || undefined}
-        aria-describedby={describedBy(id, errors, hint)}
-        className={INPUT_CLASSES}
-        {...area}
-      />
+    <FieldShell id={c.id} label={label} hint={hint} errors={c.errors} className={className}>
+      <textarea key={c.key} rows={3} {...c.props} {...area} />
     </FieldShell>
   );
 }

@@ -1,4 +1,4 @@
-import type { ExceedanceBound } from '@/server/engine/p618-rain-path';
+import type { BasisFigures } from '@/server/study-option';
 import type { ClimateSnapshot } from '@/server/studies/snapshot';
 
 // The lifecycle lives in ./status; the demo seeder still reads the type from here.
@@ -10,17 +10,11 @@ export type { QuoteStatus } from './status';
  * engine later. Plain JSON: numbers as numbers, money as decimal strings.
  */
 
-/** Outage of one option on the study's basis (downlink alone, or two-way for VSAT terminals). */
-export interface QuoteOutage {
-  outagePercent: number;
-  /** 'below-model-range': the figures are upper bounds; 'above-model-range': lower bounds (ITU-R P.618-14 range 0.001–5 %). */
-  outageBound: ExceedanceBound;
-  availabilityPercent: number;
-  outageMinutesPerYear: number;
-  worstMonthOutageMinutes: number;
-  /** Two-way outage is p_up + p_down, an upper bound on the true figure (server/engine/README.md §4). */
-  isUpperBound: boolean;
-}
+/**
+ * Outage of one option on the study's basis (downlink alone, or two-way for VSAT terminals), as
+ * the study's read model gave it when the quote was made; `closes` is kept beside it on the option.
+ */
+export type QuoteOutage = Omit<BasisFigures, 'closes'>;
 
 /** One option as the customer sees it. */
 export interface QuoteOptionSnapshot {
