@@ -88,6 +88,9 @@ test('sales reads studies but has no form, and the pages pass axe', async ({ pag
 });
 
 test('the setup pages pass axe for an admin', async ({ page }) => {
+  // Seven pages, each a full axe pass (5–9 s apiece on a loaded 2-core machine): the default
+  // 60 s per test measured the machine's load, not the pages.
+  test.setTimeout(240_000);
   const admin = DEMO_USERS.find((u) => u.role === 'admin' && u.company === 'quillfeather')!;
   await signIn(page, admin.email);
   for (const path of ['/dashboard', '/sites', '/customers', '/dishes', '/climate', '/services', '/studies/new']) {
