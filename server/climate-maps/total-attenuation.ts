@@ -1,8 +1,7 @@
 import { EngineInputError } from '../engine/errors';
-import { prepareRainPath } from '../engine/p618-rain-path';
-import { scintillationSigmaUnchecked } from '../engine/p618-scintillation';
-import { MIN_ELEVATION_DEG_ATMOSPHERE, prepareAtmosphericPath, totalAttenuationCurve, type AttenuationComponents } from '../engine/p618-total-attenuation';
-import { MAX_P_PERCENT_P618_14, MIN_P_PERCENT_P618_14 } from '../engine/p618-rain-path';
+import { MIN_ELEVATION_DEG_ATMOSPHERE, slantPathTotalCurve, type AttenuationComponents } from '../engine/p618-total-attenuation';
+import { checkRainPathOptions, MAX_P_PERCENT_P618_14, MIN_P_PERCENT_P618_14 } from '../engine/p618-rain-path';
+import { PHYSICAL_RANGES } from '../engine/physical-ranges';
 import { requireNumberInRange } from '../engine/validate';
 import { siteAtmosphere } from './site-atmosphere';
 import { siteClimate } from './site-climate';
@@ -48,20 +47,11 @@ export function totalAttenuation(o: TotalAttenuationOptions): AttenuationCompone
   if (el < MIN_ELEVATION_DEG_ATMOSPHERE) throw new EngineInputError('elevationDeg', 'gases, clouds and scintillation (P.676-12 Annex 2, P.840-8, P.618-14 §2.4.1) are stated for elevations of 5° and above', el);
   const p = requireNumberInRange(o.pPercent, 'pPercent', MIN_P_PERCENT_P618_14, MAX_P_PERCENT_P618_14, 'the ITU-R P.618-14 rain model covers 0.001–5 %');
   const f = requireNumberInRange(o.frequencyGHz, 'frequencyGHz', 1, 55, 'ITU-R P.618-14 rain attenuation is stated for 1–55 GHz');
-  const d = requireNumberInRange(o.diameterM, 'diameterM', 0.1, 20);
+  const d = requireNumberInRange(o.diameterM, 'diameterM', PHYSICAL_RANGES.diameterM.min, PHYSICAL_RANGES.diameterM.max, 'physical range');
   const eta = requireNumberInRange(o.efficiency, 'efficiency', 0.01, 1);
   const climate = siteClimate({ latDeg: o.latDeg, lonDeg: o.lonDeg });
   const atmosphere = siteAtmosphere({ latDeg: o.latDeg, lonDeg: o.lonDeg, stationHeightKm: o.stationHeightKm });
-  const rainPath = prepareRainPath({
-    latDeg: o.latDeg,
-    stationHeightKm: o.stationHeightKm,
-    frequencyGHz: f,
-    elevationDeg: el,
-    tiltDeg: o.tiltDeg,
-    r001MmH: climate.r001MmH,
-    rainHeightKm: climate.rainHeightKm,
-  });
-  const atmosphericPath = prepareAtmosphericPath({ frequencyGHz: f, elevationDeg: el, stationHeightKm: o.stationHeightKm, atmosphere });
-  const sigma = scintillationSigmaUnchecked(f, el, d, eta, atmosphere.nWetMedian);
-  return totalAttenuationCurve({ rainPath, atmosphericPath, scintillationSigmaDb: sigma }).componentsAt(p);
+  const path = { latDeg: o.latDeg, stationHeightKm: o.stationHeightKm, frequencyGHz: f, elevationDeg: el, tiltDeg: o.tiltDeg, r001MmH: climate.r001MmH, rainHeightKm: climate.rainHeightKm };
+  checkRainPathOptions(path);
+  return slantPathTotalCurve({ ...path, atmosphere, diameterM: d, efficiency: eta }).componentsAt(p);
 }

@@ -3,8 +3,8 @@ import { sampleCurve, type SampledCurve } from './math/largest-crossing';
 import { gasSlantPathAttenuation } from './p676-12-gas-slant-path';
 import { standardPressureHpaP835 } from './p835-standard-pressure';
 import { cloudMassAbsorptionUnchecked, CLOUD_LIQUID_TEMPERATURE_K_P840_8 } from './p840-8-cloud-attenuation';
-import { scintillationTimeFactor, scintillationTimeFactorLn } from './p618-scintillation';
-import { exceedanceOnCurve, MAX_P_PERCENT_P618_14, MIN_P_PERCENT_P618_14, type RainExceedance, type RainPath } from './p618-rain-path';
+import { scintillationSigmaUnchecked, scintillationTimeFactor, scintillationTimeFactorLn } from './p618-scintillation';
+import { exceedanceOnCurve, MAX_P_PERCENT_P618_14, MIN_P_PERCENT_P618_14, prepareRainPathUnchecked, type RainExceedance, type RainPath } from './p618-rain-path';
 import { atmosphereAt, type SiteAtmosphere } from './site-atmosphere';
 
 /** Below this p the total holds gases and clouds at their 1 % values (ITU-R P.618-14 §2.5). */
@@ -169,4 +169,39 @@ export function totalAttenuationCurve(o: { rainPath: RainPath; atmosphericPath: 
       return Math.exp(sampledBelowHeld().peak);
     },
   };
+}
+
+/** One dish's slant path, as {@link slantPathTotalCurve} takes it. */
+export interface SlantPathTotalOptions {
+  latDeg: number;
+  stationHeightKm: number;
+  frequencyGHz: number;
+  /** θ ≥ 5° (checked by the caller: gases, clouds and scintillation start there). */
+  elevationDeg: number;
+  tiltDeg: number;
+  r001MmH: number;
+  rainHeightKm: number;
+  atmosphere: SiteAtmosphere;
+  diameterM: number;
+  efficiency: number;
+}
+
+/**
+ * The P.618-14 §2.5 total curve of one dish on one path, set up from its inputs: the rain path
+ * (§2.2.1.1), gases and clouds, and the dish's own scintillation σ (§2.4.1). dishTradeoff prepares
+ * the dish-independent paths once for all its dishes; this is the same set-up for a single dish
+ * (the public totalAttenuation from coordinates, a study's exceedance chart).
+ *
+ * Bad input: callers validate (checkRainPathOptions, checkSiteAtmosphere, θ ≥ 5°) first.
+ *
+ * @example
+ * slantPathTotalCurve({ ...siteV8, frequencyGHz: 14.25, atmosphere, diameterM: 1, efficiency: 0.65 }).componentsAt(0.01).totalDb // => 7.5073
+ */
+export function slantPathTotalCurve(o: SlantPathTotalOptions): TotalAttenuationCurve {
+  const { atmosphere, diameterM, efficiency, ...path } = o;
+  return totalAttenuationCurve({
+    rainPath: prepareRainPathUnchecked(path),
+    atmosphericPath: prepareAtmosphericPath({ frequencyGHz: o.frequencyGHz, elevationDeg: o.elevationDeg, stationHeightKm: o.stationHeightKm, atmosphere }),
+    scintillationSigmaDb: scintillationSigmaUnchecked(o.frequencyGHz, o.elevationDeg, diameterM, efficiency, atmosphere.nWetMedian),
+  });
 }

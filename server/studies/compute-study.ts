@@ -1,7 +1,5 @@
 import { dishTradeoff, ENGINE_VERSION, rainAttenuation } from '@/server/engine';
-import { prepareRainPathUnchecked } from '@/server/engine/p618-rain-path';
-import { prepareAtmosphericPath, totalAttenuationCurve } from '@/server/engine/p618-total-attenuation';
-import { scintillationSigmaUnchecked } from '@/server/engine/p618-scintillation';
+import { slantPathTotalCurve } from '@/server/engine/p618-total-attenuation';
 import type { SiteAtmosphere } from '@/server/engine/site-atmosphere';
 import type { TradeoffResult } from '@/server/engine/tradeoff-types';
 import type { ExceedancePoint, StudyInputsSnapshot, StudyResultSnapshot } from './snapshot';
@@ -53,11 +51,17 @@ function curveOptionIndex(tradeoff: Pick<TradeoffResult, 'recommendation'>): num
 function totalExceedanceCurve(inputs: StudyInputsSnapshot, tradeoff: TradeoffResult, atmosphere: SiteAtmosphere, optionIndex: number): ExceedancePoint[] {
   const sc = inputs.scenario;
   const dish = sc.dishes[optionIndex];
-  const path = { latDeg: sc.site.latDeg, stationHeightKm: sc.site.altitudeKm, elevationDeg: tradeoff.elevationDeg, frequencyGHz: sc.downlink.frequencyGHz };
-  const curve = totalAttenuationCurve({
-    rainPath: prepareRainPathUnchecked({ ...path, tiltDeg: sc.downlink.tiltDeg, r001MmH: tradeoff.climateSource.r001MmH, rainHeightKm: tradeoff.rainHeightKm }),
-    atmosphericPath: prepareAtmosphericPath({ ...path, atmosphere }),
-    scintillationSigmaDb: scintillationSigmaUnchecked(path.frequencyGHz, tradeoff.elevationDeg, dish.diameterM, dish.efficiency, atmosphere.nWetMedian),
+  const curve = slantPathTotalCurve({
+    latDeg: sc.site.latDeg,
+    stationHeightKm: sc.site.altitudeKm,
+    frequencyGHz: sc.downlink.frequencyGHz,
+    elevationDeg: tradeoff.elevationDeg,
+    tiltDeg: sc.downlink.tiltDeg,
+    r001MmH: tradeoff.climateSource.r001MmH,
+    rainHeightKm: tradeoff.rainHeightKm,
+    atmosphere,
+    diameterM: dish.diameterM,
+    efficiency: dish.efficiency,
   });
   return curvePercentages().map((pPercent) => {
     const c = curve.componentsAt(pPercent);

@@ -59,11 +59,6 @@ export function mapsAtmosphere(latDeg: number, lonDeg: number, stationHeightKm: 
   return siteAtmosphere({ latDeg, lonDeg, stationHeightKm });
 }
 
-/** The P.839-4 0 °C isotherm height at the site, km: used when an override profile gives none. */
-export function mapsIsothermKm(latDeg: number, lonDeg: number): number {
-  return siteClimate({ latDeg, lonDeg }).isothermHeightKm;
-}
-
 /** The P.1511-1 topographic height at the site, m (rounded to 1 m): the default station altitude. */
 export function mapsAltitudeM(latDeg: number, lonDeg: number): number {
   return Math.round(siteClimate({ latDeg, lonDeg }).topographicHeightKm * 1000);
