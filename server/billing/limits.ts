@@ -4,7 +4,7 @@ import { models } from '@/db/models';
 import type { SubscriptionStatus } from '@/db/models';
 import { countActiveLinks, countStudiesThisMonth, countUploadsThisMonth, findLiveSubscription, getFreeTierPlan } from '@/db/queries/billing';
 import { countMembers, countPendingInvitations } from '@/db/queries/team';
-import { NotFoundError, PlanLimitError } from '@/server/errors';
+import { NotFoundError } from '@/server/errors';
 import { OVERDUE_STATUSES } from './policy';
 
 /**
@@ -73,7 +73,7 @@ const limitsOf = (p: { id: number; code: string; name: string; seatLimit: number
 });
 
 /**
- * `lockedRead` (used by assertWithinLimit, which already holds the company row) makes the reads
+ * `lockedRead` (used by assertWithinPlan, which already holds the company row) makes the reads
  * locking reads, so a limit check sees the plan and subscription as last committed (a webhook's
  * plan change), not an older snapshot of the caller's transaction.
  */
@@ -159,7 +159,8 @@ export async function getPlanUsage(companyId: number, t?: Transaction): Promise<
   return { seats, studiesPerMonth, activeLinks, uploadsPerMonth };
 }
 
-const COUNTED = {
+/** The counters behind each counted limit, as locking reads inside the caller's transaction. */
+export const COUNTED = {
   seats: seatsInUse,
   studiesPerMonth: (id: number, t: Transaction) => countStudiesThisMonth(id, t),
   activeLinks: (id: number, t: Transaction) => countActiveLinks(id, t),
@@ -201,39 +202,4 @@ export function limitMessage(limit: LimitName, limits: PlanLimits, used: number)
     case 'quoteBranding':
       return `Quote branding (your logo and colours on quotes) is not part of the ${plan} plan. ${raise}`;
   }
-}
-
-/**
- * Inside the caller's transaction: locks the company row (SELECT … FOR UPDATE) so that parallel
- * requests for the same company queue here, then throws PlanLimitError naming the limit and how
- * to raise it when `adding` more would go over. The lock is held until the caller commits, so
- * the check and the insert that follows it are one step for everyone else. Webhooks that change
- * the plan take the same lock.
- *
- * Call it BEFORE the transaction's first insert or update: inserting a row with a foreign key to
- * the company (a customer, a site…) takes a shared lock on the company row, and two parallel
- * transactions that both hold it deadlock when each then asks for FOR UPDATE here.
- *
- * @example
- *   await sequelize.transaction(async (t) => {
- *     await assertWithinLimit(companyId, 'studiesPerMonth', t); // throws PlanLimitError at the limit
- *     await Study.create({ … }, { transaction: t });
- *   });
- */
-export async function assertWithinLimit(companyId: number, limit: LimitName, t: Transaction, opts: { adding?: number } = {}): Promise<void> {
-  const { sequelize } = models();
-  const locked = await sequelize.query<{ id: number }>('SELECT id FROM companies WHERE id = :companyId FOR UPDATE', {
-    replacements: { companyId },
-    type: QueryTypes.SELECT,
-    transaction: t,
-  });
-  if (!locked[0]) throw new NotFoundError('That company');
-  const limits = await getPlanLimits(companyId, t, { lockedRead: true });
-  if (limit === 'apiAccess' || limit === 'quoteBranding') {
-    if (!limits[limit]) throw new PlanLimitError(limit, limitMessage(limit, limits, 0));
-    return;
-  }
-  const adding = opts.adding ?? 1;
-  const used = await COUNTED[limit](companyId, t);
-  if (used + adding > limits[limit]) throw new PlanLimitError(limit, limitMessage(limit, limits, used));
 }

@@ -4,7 +4,9 @@ import type { Transaction } from 'sequelize';
 import { models } from '@/db/models';
 import { closeSequelize } from '@/db/sequelize';
 import { inviteMember } from '@/server/actions/team';
-import { assertWithinLimit, getPlanLimits, getPlanUsage, type LimitName } from '@/server/billing/limits';
+import { getPlanLimits, getPlanUsage, type LimitName } from '@/server/billing/limits';
+import { assertWithinPlan } from '@/server/plan-limit';
+import { lockCompanyRow } from '@/db/queries/company-lock';
 import { createStudy } from '@/server/studies/create-study';
 import { PlanLimitError } from '@/server/errors';
 import { createClimateProfile } from '@/db/queries/climate-profiles';
@@ -36,7 +38,7 @@ async function refusal(run: () => Promise<unknown>): Promise<PlanLimitError> {
 }
 
 const inTransaction = <T,>(fn: (t: Transaction) => Promise<T>) => models().sequelize.transaction(fn);
-const check = (companyId: number, limit: LimitName) => inTransaction((t) => assertWithinLimit(companyId, limit, t));
+const check = (companyId: number, limit: LimitName) => inTransaction(async (t) => assertWithinPlan(await lockCompanyRow(companyId, t), limit));
 
 describe('seats: members plus pending invitations', () => {
   it('20 parallel invitations through the invite action at a 5-seat limit fill exactly the 5 seats', async () => {
@@ -59,7 +61,7 @@ describe('seats: members plus pending invitations', () => {
   });
 });
 
-// ---- studies: the studies service calls assertWithinLimit inside its own transaction ----------
+// ---- studies: the studies service calls assertWithinPlan inside its own transaction ----------
 
 async function studyInputsFor(companyId: number) {
   // Invented demo-style inputs: a Ku-band DTH service and a known R0.01 climate.

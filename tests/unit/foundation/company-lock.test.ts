@@ -21,12 +21,14 @@ function sourceFiles(dir: string): string[] {
 const files = SOURCE_DIRS.flatMap((d) => sourceFiles(path.join(ROOT, d))).map((f) => ({ file: path.relative(ROOT, f), text: readFileSync(f, 'utf8') }));
 
 describe('one company lock', () => {
-  it('the company row is locked FOR UPDATE only by lockCompanyRow (and, until it takes the lock token, the billing limits module)', () => {
+  it('the company row is locked FOR UPDATE only by lockCompanyRow', () => {
     const lockers = files.filter((f) => /FROM companies[^'"`]*FOR UPDATE/.test(f.text)).map((f) => f.file);
-    expect(lockers.sort()).toEqual(['db/queries/company-lock.ts', 'server/billing/limits.ts']);
+    expect(lockers).toEqual(['db/queries/company-lock.ts']);
   });
-  it('plan limits are checked through assertWithinPlan, which needs the lock', () => {
-    const direct = files.filter((f) => f.file !== 'server/plan-limit.ts' && !f.file.startsWith('server/billing/') && /assertWithinLimit\(/.test(f.text)).map((f) => f.file);
-    expect(direct).toEqual([]);
+  it('the plan-limit check takes the lock token, so it cannot run without the lock', () => {
+    const checker = files.find((f) => f.file === 'server/plan-limit.ts');
+    expect(checker?.text).toMatch(/export async function assertWithinPlan\(lock: CompanyLock,/);
+    const otherChecks = files.filter((f) => f.file !== 'server/plan-limit.ts' && /function assertWithin\w*\(/.test(f.text)).map((f) => f.file);
+    expect(otherChecks).toEqual([]);
   });
 });
