@@ -1,5 +1,5 @@
-import { describe, expect, it } from 'vitest';
-import { gridLoadCount, reducedCloudLiquidAt, siteAtmosphere, siteClimate, vapourAt } from '@/server/climate-maps';
+import { describe, expect, it, vi } from 'vitest';
+import { reducedCloudLiquidAt, siteAtmosphere, siteClimate, vapourAt } from '@/server/climate-maps';
 import { isEngineInputError } from '@/server/engine/errors';
 
 function refusal(run: () => unknown): { field: string; message: string } {
@@ -13,8 +13,11 @@ function refusal(run: () => unknown): { field: string; message: string } {
 }
 
 describe('edge cases', () => {
-  it('loads each grid once: a second look-up reads no file', () => {
-    // First in this file, so the counter starts at 0 (vitest gives each file its own modules).
+  it('loads each grid once: a second look-up reads no file', async () => {
+    // The unit project shares modules between files (isolate: false), so this test takes a fresh
+    // copy of the maps module whose grid cache and counter start empty.
+    vi.resetModules();
+    const { gridLoadCount, siteAtmosphere, siteClimate, vapourAt } = await import('@/server/climate-maps');
     expect(gridLoadCount()).toBe(0);
     siteClimate({ latDeg: 51.5, lonDeg: -0.14 });
     const afterClimate = gridLoadCount();
