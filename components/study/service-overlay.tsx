@@ -1,0 +1,32 @@
+import type { ServiceSection } from '@/server/studies/comparison';
+import { allowedMinutesPerYear, minutesText, readStudyOptions } from '@/server/study-option';
+import { Card, CardBody, CardHeader } from '@/components/ui/card';
+import { ServiceOverlayCharts, type ServiceSeries } from './service-overlay-chart';
+
+/** The services of a study drawn over each other (figures from the stored snapshots, read through the option read model). */
+export function ServiceOverlay({ sections }: { sections: ServiceSection[] }) {
+  const series: ServiceSeries[] = sections.map((s) => ({
+    name: `${s.inputs.service.name}${s.result.tradeoff.recommendation.basis === 'two-way' ? ' (two-way)' : ''}`,
+    outage: readStudyOptions(s.result.tradeoff)
+      .filter((r) => r.closes)
+      .map((r) => ({ diameterCm: r.diameterM * 100, minutes: r.figures.outageMinutesPerYear, minutesText: r.outage.minutesText })),
+    curve: s.result.exceedanceCurve.map((p) => ({ pPercent: p.pPercent, attenuationDb: p.attenuationDb })),
+  }));
+  const target = allowedMinutesPerYear(sections[0]?.inputs.targetAvailabilityPercent ?? 0);
+  const targetText = target === null ? '' : minutesText(target, 'down');
+  const outageDescription = `Outage minutes per year against dish diameter, by service: ${series
+    .map((s) => `${s.name} ${s.outage.map((p) => `${Math.round(p.diameterCm)} cm ${p.minutesText}`).join(', ') || 'no dish closes the link'}`)
+    .join('; ')}${target !== null ? `; the target allows ${targetText}` : ''}.`;
+  const at = (s: ServiceSeries, p: number) => s.curve.find((c) => c.pPercent === p)?.attenuationDb;
+  const curveDescription = `Downlink attenuation exceeded for a percentage of an average year (ITU-R P.618-14), by service: ${series
+    .map((s) => `${s.name} ${at(s, 0.01)?.toFixed(1) ?? '—'} dB at 0.01 %`)
+    .join('; ')}. A higher frequency fades more in the same rain.`;
+  return (
+    <Card aria-labelledby="service-overlay-title">
+      <CardHeader id="service-overlay-title" title="The services side by side" description="Each service's outage against dish size, and its downlink attenuation-exceedance curve, on the same axes." />
+      <CardBody>
+        <ServiceOverlayCharts series={series} targetMinutes={target} targetText={targetText} outageDescription={outageDescription} curveDescription={curveDescription} />
+      </CardBody>
+    </Card>
+  );
+}
