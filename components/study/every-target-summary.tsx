@@ -23,7 +23,7 @@ export function EveryTargetSummary({ sections }: { sections: ServiceSection[] })
             <strong>
               {verdict.dish.name} ({diameterLabel(verdict.dish.diameterM).cm})
             </strong>{' '}
-            is the smallest dish of this study that meets the target of {fixed(target, 3)} % for all {sections.length} services{price ? `, for ${formatMoney(price)}` : ''}.
+            is the smallest dish of this study that meets the target of {fixed(target, 3)} % for {sections.length === 2 ? 'both services' : `all ${sections.length} services`}{price ? `, for ${formatMoney(price)}` : ''}.
           </>
         ) : (
           <>

@@ -17,9 +17,14 @@ export function ServiceOverlay({ sections }: { sections: ServiceSection[] }) {
   const outageDescription = `Outage minutes per year against dish diameter, by service: ${series
     .map((s) => `${s.name} ${s.outage.map((p) => `${Math.round(p.diameterCm)} cm ${p.minutesText}`).join(', ') || 'no dish closes the link'}`)
     .join('; ')}${target !== null ? `; the target allows ${targetText}` : ''}.`;
-  const at = (s: ServiceSeries, p: number) => s.curve.find((c) => c.pPercent === p)?.attenuationDb;
+  // The stored curve's point nearest 0.01 % on the log axis (the curves are sampled, not always at 0.01 % itself).
+  const near = (s: ServiceSeries) => s.curve.reduce<ServiceSeries['curve'][number] | undefined>((best, c) => (!best || Math.abs(Math.log10(c.pPercent / 0.01)) < Math.abs(Math.log10(best.pPercent / 0.01)) ? c : best), undefined);
+  const pointText = (s: ServiceSeries) => {
+    const c = near(s);
+    return c ? `${c.attenuationDb.toFixed(1)} dB at ${c.pPercent} %` : 'no curve';
+  };
   const curveDescription = `Downlink attenuation exceeded for a percentage of an average year (ITU-R P.618-14), by service: ${series
-    .map((s) => `${s.name} ${at(s, 0.01)?.toFixed(1) ?? '—'} dB at 0.01 %`)
+    .map((s) => `${s.name} ${pointText(s)}`)
     .join('; ')}. A higher frequency fades more in the same rain.`;
   return (
     <Card aria-labelledby="service-overlay-title">
