@@ -1,6 +1,7 @@
 'use client';
 
 import { Line } from 'react-chartjs-2';
+import { Chart, type Chart as ChartInstance, type LegendItem } from 'chart.js';
 import './chart-setup';
 import { CHART } from './chart-setup';
 
@@ -21,6 +22,14 @@ const STYLES = [
 ];
 
 const font = CHART.font;
+
+/** Legend entries as short lines in each series' own colour and dash, so the legend tells the services apart as the plot does. */
+function lineLegendItems(chart: ChartInstance): LegendItem[] {
+  return Chart.defaults.plugins.legend.labels.generateLabels(chart).map((item) => {
+    const ds = chart.data.datasets[item.datasetIndex ?? 0] as { borderDash?: number[]; borderColor?: string };
+    return { ...item, pointStyle: 'line', lineDash: ds.borderDash ?? [], strokeStyle: ds.borderColor, lineWidth: 2 };
+  });
+}
 const axis = (text: string) => ({ display: true, text, color: CHART.text, font });
 
 /** Two overlays for a study comparing services: outage against dish size, and the exceedance curves. */
@@ -28,7 +37,7 @@ export function ServiceOverlayCharts({ series, targetMinutes, targetText, outage
   const xs = series.flatMap((s) => s.outage.map((p) => p.diameterCm));
   const minX = xs.length ? Math.min(...xs) : 0;
   const maxX = xs.length ? Math.max(...xs) : 100;
-  const legend = { position: 'bottom' as const, labels: { color: CHART.text, font, usePointStyle: true, pointStyle: 'line' as const } };
+  const legend = { position: 'bottom' as const, labels: { color: CHART.text, font, usePointStyle: true, pointStyleWidth: 28, generateLabels: lineLegendItems } };
   return (
     <div className="grid gap-6 lg:grid-cols-2 [&>*]:min-w-0">
       <figure>
