@@ -21,7 +21,7 @@ export function ServiceOverlay({ sections }: { sections: ServiceSection[] }) {
   const near = (s: ServiceSeries) => s.curve.reduce<ServiceSeries['curve'][number] | undefined>((best, c) => (!best || Math.abs(Math.log10(c.pPercent / 0.01)) < Math.abs(Math.log10(best.pPercent / 0.01)) ? c : best), undefined);
   const pointText = (s: ServiceSeries) => {
     const c = near(s);
-    return c ? `${c.attenuationDb.toFixed(1)} dB at ${c.pPercent} %` : 'no curve';
+    return c ? `${c.attenuationDb.toFixed(1)} dB at ${Number(c.pPercent.toPrecision(2))} %` : 'no curve';
   };
   const curveDescription = `Downlink attenuation exceeded for a percentage of an average year (ITU-R P.618-14), by service: ${series
     .map((s) => `${s.name} ${pointText(s)}`)
