@@ -1,3 +1,4 @@
+import { useId } from 'react';
 import type { StudyInputsSnapshot, StudyResultSnapshot } from '@/server/studies/snapshot';
 import { CLIMATE_KIND_LABELS } from '@/server/validation/climate';
 import { fixed } from './format';
@@ -13,11 +14,13 @@ const RAIN_HEIGHT_SOURCE: Record<string, string> = {
  * snapshot): kept exactly as those studies were shown, so an old study reads as it did.
  */
 export function LegacyClimateSummary({ inputs, result }: { inputs: StudyInputsSnapshot; result: StudyResultSnapshot }) {
+  // Unique per use: a study comparing services shows this once per service.
+  const uid = useId();
   const t = result.tradeoff;
   const approx = t.rainHeightSource === 'latitude-approximation';
   return (
-    <section aria-labelledby="climate-title" className="rounded-md border border-stone-200 bg-white px-4 py-3">
-      <h2 id="climate-title" className="text-sm font-semibold text-stone-900">
+    <section aria-labelledby={`climate-title-${uid}`} className="rounded-md border border-stone-200 bg-white px-4 py-3">
+      <h2 id={`climate-title-${uid}`} className="text-sm font-semibold text-stone-900">
         Rain climate
       </h2>
       <dl className="mt-2 grid gap-x-6 gap-y-2 text-sm sm:grid-cols-2">

@@ -1,3 +1,4 @@
+import { useId } from 'react';
 import type { ReactNode } from 'react';
 import type { StudyInputsSnapshot, StudyResultSnapshot } from '@/server/studies/snapshot';
 import { CLIMATE_KIND_LABELS } from '@/server/validation/climate';
@@ -38,6 +39,8 @@ function Figure({ term, value, method, from }: { term: string; value: ReactNode;
  * the site's own climate keep their old summary.
  */
 export function ClimateSummary({ inputs, result }: { inputs: StudyInputsSnapshot; result: StudyResultSnapshot }) {
+  // Unique per use: a study comparing services shows this once per service.
+  const uid = useId();
   const maps = inputs.siteMaps;
   if (!maps) return <LegacyClimateSummary inputs={inputs} result={result} />;
   const t = result.tradeoff;
@@ -50,8 +53,8 @@ export function ClimateSummary({ inputs, result }: { inputs: StudyInputsSnapshot
   const place = climatePlaceOf(inputs.site, c);
   const atm = t.atmosphere;
   return (
-    <section aria-labelledby="climate-title" className="rounded-md border border-stone-200 bg-white px-4 py-3">
-      <h2 id="climate-title" className="text-sm font-semibold text-stone-900">
+    <section aria-labelledby={`climate-title-${uid}`} className="rounded-md border border-stone-200 bg-white px-4 py-3">
+      <h2 id={`climate-title-${uid}`} className="text-sm font-semibold text-stone-900">
         Climate at the site
       </h2>
       <p className="mt-1 text-sm text-stone-800">

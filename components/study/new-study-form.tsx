@@ -1,8 +1,8 @@
 'use client';
 
 import { useMemo, useState } from 'react';
-import { createStudy } from '@/server/actions/studies';
-import { MAPS_CLIMATE_VALUE, newStudySchema, TARGET_AVAILABILITY_PERCENT } from '@/server/validation/study';
+import { createStudy, reviseStudy } from '@/server/actions/studies';
+import { MAPS_CLIMATE_VALUE, newStudySchema, reviseStudySchema, STUDY_SERVICES, TARGET_AVAILABILITY_PERCENT } from '@/server/validation/study';
 import { parseCoordinate, formatDms } from '@/server/validation/coordinates';
 import { ActionForm, ActionFormStatus } from '@/components/ui/action-form';
 import { Field, FormErrors, SelectField } from '@/components/ui/field';
@@ -11,6 +11,7 @@ import { NavigateOnSuccess } from '@/components/ui/navigate-on-success';
 import { allowedMinutesPerYear, diameterLabel, minutesText } from '@/server/study-option';
 import { formatMoney } from '@/server/money-format';
 import { greatCircleKm, PROFILE_FAR_FROM_SITE_KM } from '@/server/studies/climate-location';
+import { InputChangeList } from './input-change-list';
 
 export type NewStudyOptions = {
   customers: { id: number; name: string }[];
@@ -20,6 +21,28 @@ export type NewStudyOptions = {
   climates: { id: number; name: string; kindLabel: string; place: string; location: { latDeg: number; lonDeg: number } | null }[];
   mapsName: string;
   dishes: { id: number; name: string; diameterM: number; price: string }[];
+};
+
+/** The form opened on a stored study: its choices prefill the boxes, and saving makes its next revision. */
+export type StudyEdit = {
+  studyId: number;
+  /** The revision being edited. */
+  fromRevision: number;
+  /** The revision the save will make. */
+  nextRevision: number;
+  initial: {
+    customerId: number;
+    siteId: number;
+    serviceProfileId: number;
+    compareServiceProfileIds: number[];
+    /** null: the ITU-R maps at the site. */
+    climateProfileId: number | null;
+    dishIds: number[];
+    targetAvailabilityPercent: number;
+    title: string;
+  };
+  /** The stored choices in words (from the snapshot), for the list of changes. */
+  before: import('@/server/studies/input-changes').StudyChoiceView;
 };
 
 /** Live "= 47.123456° (47° 07′ 24.4″ N)" under a coordinate box, so a DMS typo shows before submitting. */
@@ -59,14 +82,16 @@ function Radio({ name, value, checked, onChange, children }: { name: string; val
  * service, rain climate, the dishes to compare and the target availability. Checked in the
  * browser with the same zod schema the server action uses; on success it opens the result.
  */
-export function NewStudyForm({ options, preset }: { options: NewStudyOptions; preset?: { customerId?: number; siteId?: number } }) {
+export function NewStudyForm({ options, preset, edit }: { options: NewStudyOptions; preset?: { customerId?: number; siteId?: number }; edit?: StudyEdit }) {
+  const initial = edit?.initial;
   const [customerMode, setCustomerMode] = useState<'existing' | 'new'>(options.customers.length ? 'existing' : 'new');
   const [siteMode, setSiteMode] = useState<'existing' | 'new'>(options.sites.length ? 'existing' : 'new');
-  const [customerId, setCustomerId] = useState(preset?.customerId ? String(preset.customerId) : '');
-  const [siteId, setSiteId] = useState(preset?.siteId ? String(preset.siteId) : '');
+  const [customerId, setCustomerId] = useState(initial?.customerId ? String(initial.customerId) : preset?.customerId ? String(preset.customerId) : '');
+  const [siteId, setSiteId] = useState(initial?.siteId ? String(initial.siteId) : preset?.siteId ? String(preset.siteId) : '');
   const [lat, setLat] = useState('');
   const [lon, setLon] = useState('');
-  const [climateId, setClimateId] = useState<string>(MAPS_CLIMATE_VALUE);
+  const [climateId, setClimateId] = useState<string>(initial?.climateProfileId ? String(initial.climateProfileId) : MAPS_CLIMATE_VALUE);
+  const [serviceId, setServiceId] = useState(initial?.serviceProfileId ? String(initial.serviceProfileId) : '');
 
   const sitesOfCustomer = useMemo(() => options.sites.filter((s) => String(s.customerId) === customerId), [options.sites, customerId]);
   const pickingCustomer = customerMode === 'existing' && customerId === '';
@@ -79,8 +104,15 @@ export function NewStudyForm({ options, preset }: { options: NewStudyOptions; pr
   const siteAt = newSite ? (typedLat.ok && typedLon.ok ? { latDeg: typedLat.value, lonDeg: typedLon.value } : null) : picked ? { latDeg: picked.latDeg, lonDeg: picked.lonDeg } : null;
 
   return (
-    <ActionForm action={createStudy} schema={newStudySchema} status="placed" className="space-y-8" aria-label="New study">
+    <ActionForm
+      action={edit ? reviseStudy : createStudy}
+      schema={edit ? reviseStudySchema : newStudySchema}
+      status="placed"
+      className="space-y-8"
+      aria-label={edit ? `Edit inputs of study ${edit.studyId}` : 'New study'}
+    >
       <NavigateOnSuccess base="/studies/" />
+      {edit && <input type="hidden" name="revisionOfStudyId" value={edit.studyId} />}
       <fieldset className="space-y-4">
         <legend className="text-base font-semibold text-stone-900">Customer and site</legend>
         <div className="flex flex-wrap gap-4" role="radiogroup" aria-label="Customer">
@@ -171,6 +203,8 @@ export function NewStudyForm({ options, preset }: { options: NewStudyOptions; pr
         <SelectField
           label="Satellite service"
           name="serviceProfileId"
+          value={serviceId}
+          onChange={(e) => setServiceId(e.target.value)}
           placeholder="Choose a service…"
           options={options.services.map((s) => ({ value: String(s.id), label: `${s.name} — ${s.satelliteName} at ${s.slot}, ${s.frequencyGHz} GHz` }))}
         />
@@ -187,6 +221,42 @@ export function NewStudyForm({ options, preset }: { options: NewStudyOptions; pr
         />
       </fieldset>
 
+      {options.services.length > 1 && (
+        <fieldset aria-describedby="compare-services-error">
+          <legend className="text-base font-semibold text-stone-900">Compare with other services (optional)</legend>
+          <p className="mt-1 text-sm text-stone-600">
+            Each service ticked here is computed for the same site, climate, dishes and target, with its own table; the study then names the smallest dish that
+            meets every service&rsquo;s target. Up to {STUDY_SERVICES.max - 1}.
+          </p>
+          <ul className="mt-3 grid gap-2 sm:grid-cols-2">
+            {options.services.map((s) => {
+              const main = String(s.id) === serviceId;
+              return (
+                <li key={s.id}>
+                  <label className="flex items-center gap-2 rounded border border-stone-200 bg-white px-3 py-2 text-sm has-[:checked]:border-ledger-500 has-[:checked]:bg-ledger-50 has-[:disabled]:opacity-60">
+                    <input
+                      type="checkbox"
+                      name="compareServiceProfileIds"
+                      value={s.id}
+                      disabled={main}
+                      defaultChecked={initial?.compareServiceProfileIds.includes(s.id)}
+                      className="accent-ledger-700"
+                    />
+                    <span className="min-w-0 flex-1">
+                      <span className="block font-medium text-stone-900">{s.name}</span>
+                      <span className="block text-xs text-stone-600">{main ? 'the main service above' : `${s.satelliteName} at ${s.slot}, ${s.frequencyGHz} GHz`}</span>
+                    </span>
+                  </label>
+                </li>
+              );
+            })}
+          </ul>
+          <div className="mt-2">
+            <FormErrors names={['compareServiceProfileIds']} id="compare-services-error" />
+          </div>
+        </fieldset>
+      )}
+
       <fieldset aria-describedby="dishes-error">
         <legend className="text-base font-semibold text-stone-900">Dishes to compare</legend>
         <p className="mt-1 text-sm text-stone-600">Active dishes of your catalogue; prices are copied into the study so it never changes afterwards.</p>
@@ -199,7 +269,7 @@ export function NewStudyForm({ options, preset }: { options: NewStudyOptions; pr
               return (
                 <li key={d.id}>
                   <label className="flex items-center gap-2 rounded border border-stone-200 bg-white px-3 py-2 text-sm has-[:checked]:border-ledger-500 has-[:checked]:bg-ledger-50">
-                    <input type="checkbox" name="dishIds" value={d.id} defaultChecked className="accent-ledger-700" />
+                    <input type="checkbox" name="dishIds" value={d.id} defaultChecked={initial ? initial.dishIds.includes(d.id) : true} className="accent-ledger-700" />
                     <span className="min-w-0 flex-1">
                       <span className="block font-medium text-stone-900">{d.name}</span>
                       <span className="num block text-left text-xs text-stone-600">
@@ -223,14 +293,15 @@ export function NewStudyForm({ options, preset }: { options: NewStudyOptions; pr
           label="Target availability (%)"
           name="targetAvailabilityPercent"
           inputMode="decimal"
-          defaultValue={String(TARGET_AVAILABILITY_PERCENT.default)}
+          defaultValue={String(initial?.targetAvailabilityPercent ?? TARGET_AVAILABILITY_PERCENT.default)}
           hint={`Between ${TARGET_AVAILABILITY_PERCENT.min} and ${TARGET_AVAILABILITY_PERCENT.max} %. 99.9 % allows ${minutesText(allowedMinutesPerYear(99.9) ?? 0, 'down')} of outage a year.`}
         />
-        <Field label="Title (optional)" name="title" placeholder="Customer · site · service" />
+        <Field label="Title (optional)" name="title" placeholder="Customer · site · service" defaultValue={initial?.title} />
       </fieldset>
 
+      {edit && <InputChangeList edit={edit} options={options} />}
       <div className="flex flex-wrap items-center gap-4">
-        <SubmitButton pendingLabel="Computing…">Compute study</SubmitButton>
+        <SubmitButton pendingLabel="Computing…">{edit ? `Save as revision ${edit.nextRevision}` : 'Compute study'}</SubmitButton>
         <ActionFormStatus />
       </div>
     </ActionForm>

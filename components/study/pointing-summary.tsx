@@ -1,3 +1,4 @@
+import { useId } from 'react';
 import type { StudyInputsSnapshot, StudyResultSnapshot } from '@/server/studies/snapshot';
 import { formatDms } from '@/server/validation/coordinates';
 import { degrees, fixed, orbitalSlot } from './format';
@@ -13,13 +14,15 @@ function Row({ term, children }: { term: string; children: React.ReactNode }) {
 
 /** Where to point the dish (geostationary look angles) and what it receives. */
 export function PointingSummary({ inputs, result }: { inputs: StudyInputsSnapshot; result: StudyResultSnapshot }) {
+  // Unique per use: a study comparing services shows this once per service.
+  const uid = useId();
   const t = result.tradeoff;
   const s = inputs.service;
   const linear = s.polarization !== 'circular';
   return (
     <div className="grid gap-4 md:grid-cols-3">
-      <section aria-labelledby="pointing-title" className="rounded-md border border-stone-200 bg-white px-4 py-3">
-        <h2 id="pointing-title" className="text-sm font-semibold text-stone-900">
+      <section aria-labelledby={`pointing-title-${uid}`} className="rounded-md border border-stone-200 bg-white px-4 py-3">
+        <h2 id={`pointing-title-${uid}`} className="text-sm font-semibold text-stone-900">
           Pointing
         </h2>
         <dl className="mt-1 divide-y divide-stone-100">
@@ -30,8 +33,8 @@ export function PointingSummary({ inputs, result }: { inputs: StudyInputsSnapsho
         </dl>
         {linear && <p className="mt-2 text-xs text-stone-600">Skew: turn the feed clockwise by a positive angle, seen from behind the dish looking at the satellite.</p>}
       </section>
-      <section aria-labelledby="site-title" className="rounded-md border border-stone-200 bg-white px-4 py-3">
-        <h2 id="site-title" className="text-sm font-semibold text-stone-900">
+      <section aria-labelledby={`site-title-${uid}`} className="rounded-md border border-stone-200 bg-white px-4 py-3">
+        <h2 id={`site-title-${uid}`} className="text-sm font-semibold text-stone-900">
           Site
         </h2>
         <dl className="mt-1 divide-y divide-stone-100">
@@ -47,8 +50,8 @@ export function PointingSummary({ inputs, result }: { inputs: StudyInputsSnapsho
           </Row>
         </dl>
       </section>
-      <section aria-labelledby="carrier-title" className="rounded-md border border-stone-200 bg-white px-4 py-3">
-        <h2 id="carrier-title" className="text-sm font-semibold text-stone-900">
+      <section aria-labelledby={`carrier-title-${uid}`} className="rounded-md border border-stone-200 bg-white px-4 py-3">
+        <h2 id={`carrier-title-${uid}`} className="text-sm font-semibold text-stone-900">
           Carrier
         </h2>
         <dl className="mt-1 divide-y divide-stone-100">

@@ -1,3 +1,4 @@
+import { useId } from 'react';
 import type { StudyInputsSnapshot, StudyResultSnapshot } from '@/server/studies/snapshot';
 import { LinkButton } from '@/components/ui/button';
 import { formatCostPerMinute, formatMoney } from '@/server/money-format';
@@ -7,16 +8,18 @@ import { quoteHref } from './options-table';
 
 /** The answer in three lines: the smallest dish meeting the target, the best value, and where more size stops paying. */
 export function Recommendation({ studyId, inputs, result, canQuote }: { studyId: number; inputs: StudyInputsSnapshot; result: StudyResultSnapshot; canQuote: boolean }) {
+  // Unique per use: a study comparing services shows this once per service.
+  const uid = useId();
   const t = result.tradeoff;
   const rec = t.recommendation;
   const name = (i: number) => `${inputs.dishes[i]?.name ?? ''} (${readStudyOption(t, i).diameter.cm})`.trim();
   const smallest = rec.smallestMeetingTargetIndex;
   const quoteIndex = smallest ?? rec.bestValueIndex ?? rec.diminishingReturnsIndex;
   return (
-    <section aria-labelledby="recommendation-title" className="rounded-md border border-ledger-200 bg-ledger-50/50 px-4 py-4">
+    <section aria-labelledby={`recommendation-title-${uid}`} className="rounded-md border border-ledger-200 bg-ledger-50/50 px-4 py-4">
       <div className="flex flex-wrap items-start justify-between gap-3">
         <div className="min-w-0 space-y-2 text-sm text-stone-800">
-          <h2 id="recommendation-title" className="text-base font-semibold text-stone-900">
+          <h2 id={`recommendation-title-${uid}`} className="text-base font-semibold text-stone-900">
             Recommendation
           </h2>
           <p>

@@ -1,3 +1,4 @@
+import { useId } from 'react';
 import type { StudyInputsSnapshot, StudyResultSnapshot } from '@/server/studies/snapshot';
 import { Card, CardBody, CardHeader } from '@/components/ui/card';
 import { OutageChart } from './outage-chart';
@@ -6,6 +7,8 @@ import { allowedMinutesPerYear, dishName, minutesText, readStudyOptions } from '
 
 /** The two charts of the study, fed from the stored snapshot (no computation in the browser). */
 export function StudyCharts({ inputs, result }: { inputs: StudyInputsSnapshot; result: StudyResultSnapshot }) {
+  // Unique per use: a study comparing services shows this once per service.
+  const uid = useId();
   const t = result.tradeoff;
   const rec = t.recommendation;
   const points = readStudyOptions(t)
@@ -33,13 +36,13 @@ export function StudyCharts({ inputs, result }: { inputs: StudyInputsSnapshot; r
   // min-w-0: a grid cell never shrinks below its canvas otherwise, so charts drawn wide would stay wide after a resize.
   return (
     <div className="grid gap-6 lg:grid-cols-2 [&>*]:min-w-0">
-      <Card aria-labelledby="outage-chart-title">
-        <CardHeader id="outage-chart-title" title="Outage against dish size" description={rec.basis === 'two-way' ? 'Two-way outage (upper bound), minutes per year.' : 'Downlink outage, minutes per year.'} />
+      <Card aria-labelledby={`outage-chart-title-${uid}`}>
+        <CardHeader id={`outage-chart-title-${uid}`} title="Outage against dish size" description={rec.basis === 'two-way' ? 'Two-way outage (upper bound), minutes per year.' : 'Downlink outage, minutes per year.'} />
         <CardBody>{points.length ? <OutageChart points={points} targetMinutes={target} targetText={target === null ? '' : minutesText(target, 'down')} description={outageDescription} /> : <p className="text-sm text-stone-600">{outageDescription}</p>}</CardBody>
       </Card>
-      <Card aria-labelledby="exceedance-chart-title">
+      <Card aria-labelledby={`exceedance-chart-title-${uid}`}>
         <CardHeader
-          id="exceedance-chart-title"
+          id={`exceedance-chart-title-${uid}`}
           title="Attenuation exceedance"
           description={
             curveDish === null

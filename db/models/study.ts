@@ -17,6 +17,8 @@ export class Study extends Model<InferAttributes<Study>, InferCreationAttributes
   declare climateProfileId: number | null;
   declare revisionOfStudyId: number | null;
   declare revision: CreationOptional<number>;
+  /** Set on every service of a comparison but the first: the id of the first service's (leading) row. */
+  declare comparisonOfStudyId: CreationOptional<number | null>;
   declare title: string;
   declare status: CreationOptional<StudyStatus>;
   declare customerName: string;
@@ -44,6 +46,7 @@ export function initStudy(sequelize: Sequelize): void {
       climateProfileId: { type: DataTypes.INTEGER, allowNull: true },
       revisionOfStudyId: { type: DataTypes.INTEGER, allowNull: true },
       revision: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 1 },
+      comparisonOfStudyId: { type: DataTypes.INTEGER, allowNull: true },
       title: { type: DataTypes.STRING(200), allowNull: false },
       status: { type: DataTypes.ENUM(...STUDY_STATUSES), allowNull: false, defaultValue: 'ready' },
       customerName: { type: DataTypes.STRING(160), allowNull: false },

@@ -290,7 +290,8 @@ async function countRows(sql: string, replacements: Record<string, unknown>, t?:
 }
 
 export async function countStudiesThisMonth(companyId: number, t?: Transaction, now = new Date()): Promise<number> {
-  return countRows('SELECT COUNT(*) AS n FROM studies WHERE company_id = :companyId AND created_at >= :since', { companyId, since: monthStartUtc(now) }, t);
+  // A study comparing several services for one site is one study (its further services are rows that name it).
+  return countRows('SELECT COUNT(*) AS n FROM studies WHERE company_id = :companyId AND comparison_of_study_id IS NULL AND created_at >= :since', { companyId, since: monthStartUtc(now) }, t);
 }
 
 export async function countUploadsThisMonth(companyId: number, t?: Transaction, now = new Date()): Promise<number> {

@@ -80,7 +80,8 @@ export type ArchivedFilter = 'hide' | 'include' | 'only';
  */
 export async function listStudies(companyId: number, query: ListQuery & { siteId?: number; archived?: ArchivedFilter }): Promise<Paged<StudyListItem>> {
   const { sequelize } = models();
-  const where = ['st.company_id = :companyId'];
+  // The further services of a comparison show on their leading study's page, not as studies of their own.
+  const where = ['st.company_id = :companyId', 'st.comparison_of_study_id IS NULL'];
   const replacements: Record<string, unknown> = { companyId, limit: query.pageSize, offset: (query.page - 1) * query.pageSize };
   const archived = query.archived ?? 'hide';
   if (archived !== 'include') {
@@ -110,6 +111,8 @@ export async function listStudies(companyId: number, query: ListQuery & { siteId
 }
 
 export interface StudyDetail extends StudyListItem {
+  /** The leading study of the comparison this row is one service of; null for a leading or single-service study. */
+  comparisonOfStudyId: number | null;
   serviceProfileId: number | null;
   climateProfileId: number | null;
   inputs: StudyInputsSnapshot;
@@ -123,20 +126,44 @@ function parseJson<T>(v: unknown): T {
 /** One study with its snapshots, or null when this company has none with that id. */
 export async function getStudy(companyId: number, id: number, t?: Transaction): Promise<StudyDetail | null> {
   const { sequelize } = models();
-  const [row] = await sequelize.query<StudyListRow & { service_profile_id: number | null; climate_profile_id: number | null; inputs: unknown; result: unknown }>(
-    `SELECT ${LIST_COLUMNS}, st.service_profile_id, st.climate_profile_id, st.inputs, st.result
-       FROM studies st LEFT JOIN users u ON u.id = st.created_by_user_id
-      WHERE st.company_id = :companyId AND st.id = :id`,
-    { replacements: { companyId, id }, type: QueryTypes.SELECT, transaction: t },
-  );
-  if (!row) return null;
+  const [row] = await sequelize.query<DetailRow>(`SELECT ${DETAIL_COLUMNS} FROM studies st LEFT JOIN users u ON u.id = st.created_by_user_id WHERE st.company_id = :companyId AND st.id = :id`, {
+    replacements: { companyId, id },
+    type: QueryTypes.SELECT,
+    transaction: t,
+  });
+  return row ? toDetail(row) : null;
+}
+
+type DetailRow = StudyListRow & { comparison_of_study_id: number | null; service_profile_id: number | null; climate_profile_id: number | null; inputs: unknown; result: unknown };
+const DETAIL_COLUMNS = `${LIST_COLUMNS}, st.comparison_of_study_id, st.service_profile_id, st.climate_profile_id, st.inputs, st.result`;
+
+function toDetail(row: DetailRow): StudyDetail {
   return {
     ...toListItem(row),
+    comparisonOfStudyId: row.comparison_of_study_id,
     serviceProfileId: row.service_profile_id,
     climateProfileId: row.climate_profile_id,
     inputs: parseJson<StudyInputsSnapshot>(row.inputs),
     result: parseJson<StudyResultSnapshot>(row.result),
   };
+}
+
+/**
+ * Every service of the study `id` belongs to, the leading study first, then the others in the
+ * order they were chosen (their ids). A single-service study answers itself alone; [] when this
+ * company has no study with that id.
+ */
+export async function getStudyServices(companyId: number, id: number, t?: Transaction): Promise<StudyDetail[]> {
+  const { sequelize } = models();
+  const rows = await sequelize.query<DetailRow>(
+    `SELECT ${DETAIL_COLUMNS} FROM studies st LEFT JOIN users u ON u.id = st.created_by_user_id
+      WHERE st.company_id = :companyId
+        AND (st.id = (SELECT COALESCE(s0.comparison_of_study_id, s0.id) FROM studies s0 WHERE s0.company_id = :companyId AND s0.id = :id)
+          OR st.comparison_of_study_id = (SELECT COALESCE(s0.comparison_of_study_id, s0.id) FROM studies s0 WHERE s0.company_id = :companyId AND s0.id = :id))
+      ORDER BY st.comparison_of_study_id IS NOT NULL, st.id`,
+    { replacements: { companyId, id }, type: QueryTypes.SELECT, transaction: t },
+  );
+  return rows.map(toDetail);
 }
 
 /**
@@ -156,6 +183,8 @@ export interface NewStudyRow {
   climateProfileId: number | null;
   revisionOfStudyId: number | null;
   revision: number;
+  /** The leading study when this row is a further service of a comparison. */
+  comparisonOfStudyId?: number | null;
   title: string;
   customerName: string;
   siteName: string;
@@ -178,6 +207,7 @@ export async function insertStudy(companyId: number, row: NewStudyRow, t: Transa
       climateProfileId: row.climateProfileId,
       revisionOfStudyId: row.revisionOfStudyId,
       revision: row.revision,
+      comparisonOfStudyId: row.comparisonOfStudyId ?? null,
       title: row.title,
       customerName: row.customerName,
       siteName: row.siteName,
@@ -230,7 +260,7 @@ export async function countStudiesThisMonth(companyId: number, t?: Transaction):
   const { sequelize } = models();
   const now = new Date();
   const start = new Date(Date.UTC(now.getUTCFullYear(), now.getUTCMonth(), 1));
-  const [{ n }] = await sequelize.query<{ n: number }>('SELECT COUNT(*) AS n FROM studies WHERE company_id = :companyId AND created_at >= :start', {
+  const [{ n }] = await sequelize.query<{ n: number }>('SELECT COUNT(*) AS n FROM studies WHERE company_id = :companyId AND comparison_of_study_id IS NULL AND created_at >= :start', {
     replacements: { companyId, start },
     type: QueryTypes.SELECT,
     transaction: t,
@@ -250,8 +280,8 @@ export async function getStudyDashboard(companyId: number, recentCount = 8): Pro
   const start = new Date(Date.UTC(now.getUTCFullYear(), now.getUTCMonth(), 1));
   const [counts] = await sequelize.query<Record<string, number>>(
     `SELECT
-       (SELECT COUNT(*) FROM studies WHERE company_id = :companyId) AS studies,
-       (SELECT COUNT(*) FROM studies WHERE company_id = :companyId AND created_at >= :start) AS studies_this_month,
+       (SELECT COUNT(*) FROM studies WHERE company_id = :companyId AND comparison_of_study_id IS NULL) AS studies,
+       (SELECT COUNT(*) FROM studies WHERE company_id = :companyId AND comparison_of_study_id IS NULL AND created_at >= :start) AS studies_this_month,
        (SELECT COUNT(*) FROM customers WHERE company_id = :companyId) AS customers,
        (SELECT COUNT(*) FROM sites WHERE company_id = :companyId) AS sites,
        (SELECT COUNT(*) FROM dishes WHERE company_id = :companyId AND active = 1) AS dishes,

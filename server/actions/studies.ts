@@ -2,9 +2,10 @@
 
 import { revalidatePath } from 'next/cache';
 import { safeAction } from './safe-action';
-import { newStudySchema, studyIdSchema } from '@/server/validation/study';
+import { newStudySchema, reviseStudySchema, studyIdSchema } from '@/server/validation/study';
 import * as studies from '@/server/studies/create-study';
 import { rerunStudy as rerun } from '@/server/studies/rerun-study';
+import { reviseStudy as revise } from '@/server/studies/revise-study';
 import { setStudyArchived } from '@/db/queries/studies';
 import { NotFoundError } from '@/server/errors';
 
@@ -13,6 +14,13 @@ export const createStudy = safeAction({ schema: newStudySchema, permission: 'stu
   const { id } = await studies.createStudy({ companyId: ctx.companyId, userId: ctx.user.id }, input);
   revalidatePath('/studies');
   return { data: { id }, message: 'Study computed.' };
+});
+
+/** Edited inputs saved as the next revision of the study (the form in edit mode); the old revision is not touched. */
+export const reviseStudy = safeAction({ schema: reviseStudySchema, permission: 'study.write' }, async (input, ctx) => {
+  const { id, revision } = await revise({ companyId: ctx.companyId, userId: ctx.user.id }, input.revisionOfStudyId as number, input);
+  revalidatePath('/studies');
+  return { data: { id, revision }, message: `Revision ${revision} computed.` };
 });
 
 /** A new revision with today's catalogue, profiles and engine; the old study is not touched. */

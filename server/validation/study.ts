@@ -8,6 +8,8 @@ import { listQuerySchema } from './paging';
 export const TARGET_AVAILABILITY_PERCENT = { min: 90, max: 99.999, default: 99.9 } as const;
 /** Dishes compared in one study (a table that still reads on a phone). */
 export const STUDY_DISHES = { min: 1, max: 12 } as const;
+/** Services compared for one site in one study: the main one plus up to three (one table each still reads). */
+export const STUDY_SERVICES = { max: 4 } as const;
 
 /**
  * A blank altitude is `undefined` (the server takes the ITU-R P.1511-1 ground height at the site);
@@ -52,6 +54,13 @@ export const newStudySchema = z
     lonDeg: z.union([z.string(), z.number()]).optional(),
     altitudeM: z.union([z.string(), z.number()]).optional(),
     serviceProfileId: idField('service profile'),
+    /** Further services to compare with the first for the same site and dishes (none: a single-service study). */
+    compareServiceProfileIds: z.preprocess(
+      (v) => (v === undefined || v === null || v === '' ? [] : v),
+      idListField('services to compare', 0, STUDY_SERVICES.max - 1, 'service'),
+    ),
+    /** Set when the form edits a study: the saved study becomes its next revision. */
+    revisionOfStudyId: optionalIdField('study'),
     climateProfileId: climateProfileField,
     dishIds: idListField('dishes', STUDY_DISHES.min, STUDY_DISHES.max, 'dish'),
     targetAvailabilityPercent: z.preprocess(
@@ -82,6 +91,9 @@ export const newStudySchema = z
       } else if (v.siteId === undefined) {
         ctx.addIssue({ code: 'custom', path: ['siteId'], message: 'Choose a site.' });
       }
+      if (v.serviceProfileId !== undefined && v.compareServiceProfileIds?.includes(v.serviceProfileId)) {
+        ctx.addIssue({ code: 'custom', path: ['compareServiceProfileIds'], message: 'The main service is already in the study: compare it with other services.' });
+      }
     },
     { when: () => true },
   )
@@ -101,12 +113,18 @@ export const newStudySchema = z
       customer,
       site,
       serviceProfileId: v.serviceProfileId,
+      /** The main service first: its study row leads the comparison. */
+      serviceProfileIds: [v.serviceProfileId, ...(v.compareServiceProfileIds ?? [])],
+      revisionOfStudyId: v.revisionOfStudyId ?? null,
       climateProfileId: v.climateProfileId ?? null,
       dishIds: v.dishIds,
       targetAvailabilityPercent: v.targetAvailabilityPercent,
     };
   });
 export type NewStudyInput = z.infer<typeof newStudySchema>;
+
+/** The form in edit mode: the same fields, and the study whose next revision it saves. */
+export const reviseStudySchema = newStudySchema.refine((v) => v.revisionOfStudyId !== null, { path: ['revisionOfStudyId'], message: 'Which study is edited is missing: open the form from the study page.' });
 
 export const studyIdSchema = z.object({ id: idField('study') });
 

@@ -45,6 +45,11 @@ export const studyListItemSchema = open({
 export const studyListSchema = paged(studyListItemSchema);
 export const studyDetailSchema = studyListItemSchema
   .extend({
+    comparisonOfStudyId: z
+      .number()
+      .int()
+      .nullable()
+      .meta({ description: 'Set when this study is a further service of a study comparing several services for one site: the id of that (leading) study. The list shows only leading studies.' }),
     serviceProfileId: z.number().int().nullable(),
     climateProfileId: z.number().int().nullable(),
     inputs: open({}).meta({ description: 'What the study was computed from (site, service, climate, dishes), as saved.' }),

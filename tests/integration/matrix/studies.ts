@@ -86,6 +86,11 @@ export const cases: MatrixCase<never>[] = [
   actionCase({ file: 'climate', exportName: 'deleteClimateProfile', action: climate.deleteClimateProfile, access: 'climate.write', allow: ADMIN, prepare: (w) => fresh(w), input: (_w, s: StudyWorld) => ({ id: s.climateId }) }),
   actionCase({ file: 'studies', exportName: 'createStudy', action: studies.createStudy, access: 'study.write', allow: MAKERS, prepare: (w) => worldOf(w.company.id), input: (_w, s: StudyWorld) => studyInput(s) }),
   actionCase({ file: 'studies', exportName: 'rerunStudy', action: studies.rerunStudy, access: 'study.write', allow: MAKERS, prepare: (w) => studyIn(w.company.id, w.users.admin.id), input: (_w, s: { id: number }) => ({ id: s.id }) }),
+  actionCase({
+    file: 'studies', exportName: 'reviseStudy', action: studies.reviseStudy, access: 'study.write', allow: MAKERS,
+    prepare: (w) => studyIn(w.company.id, w.users.admin.id),
+    input: (_w, s: { id: number; world: StudyWorld }) => ({ ...studyInput(s.world), revisionOfStudyId: s.id, targetAvailabilityPercent: '99.95' }),
+  }),
   actionCase({ file: 'studies', exportName: 'archiveStudy', action: studies.archiveStudy, access: 'study.write', allow: MAKERS, prepare: (w) => studyIn(w.company.id, w.users.admin.id), input: (_w, s: { id: number }) => ({ id: s.id }) }),
   actionCase({ file: 'studies', exportName: 'unarchiveStudy', action: studies.unarchiveStudy, access: 'study.write', allow: MAKERS, prepare: (w) => studyIn(w.company.id, w.users.admin.id), input: (_w, s: { id: number }) => ({ id: s.id }) }),
   actionCase({ file: 'uploads', exportName: 'previewCatalogueUpload', action: uploads.previewCatalogueUpload, access: 'catalogue.write', allow: ADMIN, input: () => ({ file: csv(DISH_CSV()) }) }),
@@ -129,6 +134,14 @@ export const crossCompany: CrossCompanyCase<never>[] = [
   { name: 'catalogue#deleteDish', prepare: theirs, run: (_w, s: StudyWorld) => callAction(catalogue.deleteDish, { id: s.dishIds[1] }), unchanged: (_w, s: StudyWorld) => unchangedRow('Dish', s.dishIds[1], 'hardwarePrice', undefined) },
   { name: 'climate#deleteClimateProfile', prepare: theirs, run: (_w, s: StudyWorld) => callAction(climate.deleteClimateProfile, { id: s.climateId }), unchanged: (_w, s: StudyWorld) => unchangedRow('ClimateProfile', s.climateId, 'kind', 'known-r001') },
   { name: 'studies#createStudy from their site, service, climate and dishes', prepare: theirs, run: (_w, s: StudyWorld) => callAction(studies.createStudy, studyInput(s)) },
+  {
+    name: 'studies#reviseStudy of their study',
+    prepare: async (w) => ({ theirs: await studyIn(w.otherCompany.id, w.otherAdmin.id), ours: await worldOf(w.company.id) }),
+    run: (_w, s: { theirs: { id: number }; ours: StudyWorld }) => callAction(studies.reviseStudy, { ...studyInput(s.ours), revisionOfStudyId: s.theirs.id }),
+    unchanged: async (_w, s: { theirs: { id: number } }) => {
+      if ((await models().Study.count({ where: { revisionOfStudyId: s.theirs.id } })) !== 0) throw new Error(`study ${s.theirs.id} got a revision`);
+    },
+  },
   { name: 'studies#rerunStudy of their study', prepare: (w) => studyIn(w.otherCompany.id, w.otherAdmin.id), run: (_w, s: { id: number }) => callAction(studies.rerunStudy, { id: s.id }) },
   {
     name: 'studies#archiveStudy of their study',
