@@ -37,6 +37,12 @@ export const envSchema = z.object({
 
   // Behind a load balancer, trust its X-Forwarded-For for throttling and the audit log.
   TRUST_PROXY: flag.default(false),
+
+  // Encrypts the signing secrets of outbound webhook endpoints at rest: 32 random bytes as 64 hex
+  // characters. Unset, webhooks cannot be registered (the rest of the app runs).
+  WEBHOOK_SECRET_KEY: z.string().regex(/^[0-9a-fA-F]{64}$/, 'must be 64 hex characters (32 random bytes)').optional(),
+  // Local testing only: lets webhooks go to http:// and to private, loopback and link-local addresses.
+  WEBHOOKS_ALLOW_PRIVATE_TARGETS: flag.default(false),
 });
 
 export type Env = z.infer<typeof envSchema>;

@@ -14,6 +14,8 @@ import { assertWithinPlan } from '@/server/plan-limit';
 import { computeStudyFromRows } from './snapshot-of';
 import { resolveSiteAltitude } from './site-altitude';
 import type { StudyInputsSnapshot, StudyResultSnapshot } from './snapshot';
+import { enqueueWebhookEvent } from '@/server/webhooks/outbox';
+import { studyEventData } from '@/server/webhooks/payloads';
 
 export interface StudyActor {
   companyId: number;
@@ -78,6 +80,8 @@ export async function createStudy(actor: StudyActor, input: NewStudyInput): Prom
     } catch (e) {
       toStudyInputError(e, { siteTypedIn: !('id' in input.site) });
     }
+    const title = input.title ?? defaultStudyTitle(computed.inputs);
+    const recommendedDiameterM = recommendedDiameterOf(computed.result);
     const id = await insertStudy(
       companyId,
       {
@@ -87,17 +91,19 @@ export async function createStudy(actor: StudyActor, input: NewStudyInput): Prom
         climateProfileId: climate?.id ?? null,
         revisionOfStudyId: null,
         revision: 1,
-        title: input.title ?? defaultStudyTitle(computed.inputs),
+        title,
         customerName: customer.name,
         siteName: site.name,
         serviceName: service.name,
-        recommendedDiameterM: recommendedDiameterOf(computed.result),
+        recommendedDiameterM,
         inputs: computed.inputs,
         result: computed.result,
         createdByUserId: actor.userId,
       },
       t,
     );
+    const study = { id, title, customerName: customer.name, siteName: site.name, serviceName: service.name, recommendedDiameterM, revision: 1, createdByUserId: actor.userId };
+    await enqueueWebhookEvent(companyId, 'study.created', studyEventData(study), t);
     return { id };
   });
 }

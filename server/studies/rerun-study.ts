@@ -12,6 +12,8 @@ import { toStudyInputError } from './engine-errors';
 import { lockCompanyRow } from '@/db/queries/company-lock';
 import { assertWithinPlan } from '@/server/plan-limit';
 import { computeStudyFromRows } from './snapshot-of';
+import { enqueueWebhookEvent } from '@/server/webhooks/outbox';
+import { studyEventData } from '@/server/webhooks/payloads';
 
 /**
  * Re-run a study with today's site, service, climate and catalogue rows, today's ITU-R maps at the
@@ -70,6 +72,9 @@ export async function rerunStudy(actor: StudyActor, studyId: number): Promise<{ 
       },
       t,
     );
+    // A re-run is a new study row (a revision): receivers get it as study.created with its revision.
+    const study = { id, title: old.title, customerName: customer.name, siteName: site.name, serviceName: service.name, recommendedDiameterM: recommendedDiameterOf(computed.result), revision, createdByUserId: actor.userId };
+    await enqueueWebhookEvent(companyId, 'study.created', studyEventData(study), t);
     return { id, revision };
   });
 }
