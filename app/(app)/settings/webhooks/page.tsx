@@ -63,7 +63,7 @@ export default async function WebhooksPage() {
         {endpoints.length === 0 && <p className="text-sm text-stone-600">No endpoints registered yet.</p>}
         {endpoints.map((e) => (
           <Card key={e.id} aria-labelledby={`endpoint-${e.id}`}>
-            <CardHeader id={`endpoint-${e.id}`} title={e.description} description={e.url} />
+            <CardHeader id={`endpoint-${e.id}`} title={e.description} description={<span className="break-all">{e.url}</span>} />
             <CardBody className="space-y-4">
               <div className="flex flex-wrap items-start justify-between gap-3 text-sm text-stone-700">
                 <dl className="grid grid-cols-[auto_1fr] gap-x-3 gap-y-1">
