@@ -24,7 +24,7 @@ export function NewEndpointForm({ disabled }: { disabled?: boolean }) {
             <label key={event} className="flex items-start gap-2 text-sm text-stone-700">
               <input type="checkbox" name="events" value={event} defaultChecked className="mt-0.5" />
               <span>
-                <code className="text-xs">{event}</code> — {WEBHOOK_EVENT_LABELS[event].split(' — ')[1] ?? WEBHOOK_EVENT_LABELS[event]}
+                <code className="text-xs">{event}</code> — {WEBHOOK_EVENT_LABELS[event]}
               </span>
             </label>
           ))}

@@ -7,10 +7,10 @@ export type WebhookEventType = (typeof WEBHOOK_EVENTS)[number];
 export type AnyWebhookEventType = WebhookEventType | 'webhook.test';
 
 export const WEBHOOK_EVENT_LABELS: Readonly<Record<WebhookEventType, string>> = {
-  'quote.viewed': 'Quote viewed — the customer first opened the comparison link',
-  'quote.accepted': 'Quote accepted by the customer',
-  'quote.declined': 'Quote declined by the customer',
-  'study.created': 'Study created',
+  'quote.viewed': 'the customer first opened the quote’s comparison link',
+  'quote.accepted': 'the customer accepted the quote',
+  'quote.declined': 'the customer declined the quote',
+  'study.created': 'a study was made (or re-run as a new revision)',
 };
 
 /** The JSON body every delivery carries; `data` depends on `type`. */
