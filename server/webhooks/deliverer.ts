@@ -70,16 +70,15 @@ async function attempt(d: ClaimedDelivery, key: string | undefined, allowPrivate
   );
 }
 
-const INTERVAL_MS = 5_000;
 const holder = globalThis as unknown as { __fadeledgerWebhookTimer?: NodeJS.Timeout };
 
 /**
- * Runs the deliverer every few seconds in this process (instrumentation.ts). Keeps only the timer:
+ * Runs the deliverer every WEBHOOK_DELIVERY_INTERVAL_MS (5 s) in this process (instrumentation.ts). Keeps only the timer:
  * which deliveries are due, claimed or done lives in MariaDB, so any number of app processes can
  * run it and a restart loses nothing. A failed pass (database down) is retried on the next tick.
  */
-export function startWebhookDeliverer(): void {
-  if (holder.__fadeledgerWebhookTimer) return;
+export function startWebhookDeliverer(intervalMs = getEnv().WEBHOOK_DELIVERY_INTERVAL_MS): void {
+  if (holder.__fadeledgerWebhookTimer || intervalMs <= 0) return;
   let running = false;
   holder.__fadeledgerWebhookTimer = setInterval(() => {
     if (running) return;
@@ -89,6 +88,6 @@ export function startWebhookDeliverer(): void {
       .finally(() => {
         running = false;
       });
-  }, INTERVAL_MS);
+  }, intervalMs);
   holder.__fadeledgerWebhookTimer.unref();
 }

@@ -23,7 +23,9 @@ import { sentQuote } from './quotes-fixtures';
 /**
  * Outbound webhooks end to end against real receivers (node http servers on 127.0.0.1; the test
  * profile sets WEBHOOKS_ALLOW_PRIVATE_TARGETS, the refusal tests pass allowPrivate: false). Every
- * delivery pass names its endpoint, so parallel test files never deliver each other's rows.
+ * delivery pass names its endpoint, so parallel test files never deliver each other's rows, and
+ * every endpoint has its own path on the receiver. The test profile's app runs no delivery timer
+ * (WEBHOOK_DELIVERY_INTERVAL_MS=0), which would otherwise claim these rows first.
  */
 type Received = { path: string; headers: http.IncomingHttpHeaders; body: string };
 
@@ -125,7 +127,7 @@ describe('the outbox and signed delivery', () => {
     const before = main.got.length;
     const run = await deliverDueWebhooks({ endpointId: id });
     expect(run).toMatchObject({ attempted: 1, delivered: 1 });
-    const got = main.got.slice(before);
+    const got = main.got.slice(before).filter((g) => g.path === '/studies');
     expect(got).toHaveLength(1);
     const sig = got[0].headers[SIGNATURE_HEADER.toLowerCase()] as string;
     expect(sig).toMatch(/^t=\d+,v1=[0-9a-f]{64}$/);
@@ -220,7 +222,7 @@ describe('retries and refusals', () => {
     expect(run).toMatchObject({ attempted: 1, failed: 1 });
     const [row] = await deliveriesOf(id);
     expect(row.last_error).toMatch(/https|private|loopback/);
-    expect(main.got.length).toBe(before);
+    expect(main.got.slice(before).filter((g) => g.path === '/private')).toEqual([]);
 
     const port = new URL(base).port;
     expect((await safePost(`https://127.0.0.1:${port}/x`, '{}', {}, { allowPrivate: false })).error).toMatch(/private, loopback or link-local/);
@@ -233,7 +235,7 @@ describe('retries and refusals', () => {
     expect(resolved.address).toMatch(/^127\.|^::1$/);
     const byName = await safePost(`https://${own}:${port}/x`, '{}', {}, { allowPrivate: false });
     expect(byName.error).toContain(`resolves to ${resolved.address}`);
-    expect(main.got.length).toBe(before);
+    expect(main.got.slice(before).filter((g) => g.path === '/x')).toEqual([]);
   });
 });
 
@@ -247,7 +249,7 @@ describe('many deliverers at once', () => {
     // Whatever was not claimed by the first wave is still due, never lost.
     const rest = await deliverDueWebhooks({ endpointId: id, limit: 10 });
     expect(delivered + rest.delivered).toBe(6);
-    const ids = main.got.slice(before).map((g) => g.headers['fadeledger-event-id']);
+    const ids = main.got.slice(before).filter((g) => g.path === '/parallel').map((g) => g.headers['fadeledger-event-id']);
     expect(ids).toHaveLength(6);
     expect(new Set(ids).size).toBe(6);
     expect((await deliveriesOf(id)).every((r) => r.status === 'delivered' && r.attempt_count === 1)).toBe(true);
@@ -275,7 +277,7 @@ describe('send test event', () => {
     const before = main.got.length;
     const res = await callAction(webhookActions.sendTestWebhook, { id: String(id) });
     expect(res.state).toMatchObject({ ok: true, message: expect.stringMatching(/delivered/) });
-    const got = main.got.slice(before);
+    const got = main.got.slice(before).filter((g) => g.path === '/test-button');
     expect(got).toHaveLength(1);
     expect(JSON.parse(got[0].body).type).toBe('webhook.test');
     expect(verifySignature(secret, got[0].headers['fadeledger-signature'] as string, got[0].body)).toBe(true);
