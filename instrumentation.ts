@@ -8,5 +8,8 @@ export async function register(): Promise<void> {
       console.error((error as Error).message);
       process.exit(1);
     }
+    // Outbound webhooks: every app process delivers (claims are SKIP LOCKED rows in MariaDB).
+    const { startWebhookDeliverer } = await import('./server/webhooks/deliverer');
+    startWebhookDeliverer();
   }
 }

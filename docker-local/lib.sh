@@ -60,6 +60,10 @@ ensure_secrets() {
     printf 'DATABASE_PASSWORD=%s\nSTRIPE_WEBHOOK_SECRET=whsec_%s\n' "$pw" "$wh" > "$LOCAL/secrets.env"
     chmod 600 "$LOCAL/secrets.env"
   fi
+  # Added later than the others: older checkouts get it on their next start.
+  if ! grep -q '^WEBHOOK_SECRET_KEY=' "$LOCAL/secrets.env"; then
+    printf 'WEBHOOK_SECRET_KEY=%s\n' "$(node -e "process.stdout.write(require('crypto').randomBytes(32).toString('hex'))")" >> "$LOCAL/secrets.env"
+  fi
 }
 
 ensure_node_modules() {

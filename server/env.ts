@@ -37,6 +37,15 @@ export const envSchema = z.object({
 
   // Behind a load balancer, trust its X-Forwarded-For for throttling and the audit log.
   TRUST_PROXY: flag.default(false),
+
+  // Encrypts the signing secrets of outbound webhook endpoints at rest: 32 random bytes as 64 hex
+  // characters. Unset, webhooks cannot be registered (the rest of the app runs).
+  WEBHOOK_SECRET_KEY: z.string().regex(/^[0-9a-fA-F]{64}$/, 'must be 64 hex characters (32 random bytes)').optional(),
+  // Local testing only: lets webhooks go to http:// and to private, loopback and link-local addresses.
+  WEBHOOKS_ALLOW_PRIVATE_TARGETS: flag.default(false),
+  // How often each app process looks for due webhook deliveries; 0 turns the timer off in this process
+  // (the test profile: integration tests deliver their own rows, "Send test event" still delivers at once).
+  WEBHOOK_DELIVERY_INTERVAL_MS: z.coerce.number().int().min(0).max(3_600_000).default(5_000),
 });
 
 export type Env = z.infer<typeof envSchema>;

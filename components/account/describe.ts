@@ -25,6 +25,8 @@ export const AUDIT_LABELS: Record<AuditAction, string> = {
   'password.changed': 'Changed their password',
   'api_key.created': 'Created the API key',
   'api_key.revoked': 'Revoked the API key',
+  'webhook.created': 'Registered the webhook endpoint',
+  'webhook.removed': 'Removed the webhook endpoint',
 };
 
 /** A short, human description of a browser from its User-Agent (no library: only the big names). */

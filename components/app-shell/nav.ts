@@ -25,6 +25,7 @@ export const SETTINGS_NAV: readonly { label: string; href: string; permission: P
   { label: 'Billing', href: '/settings/billing', permission: 'billing.manage' },
   { label: 'Branding', href: '/settings/branding', permission: 'branding.manage' },
   { label: 'API keys', href: '/settings/api-keys', permission: 'apikey.manage' },
+  { label: 'Webhooks', href: '/settings/webhooks', permission: 'webhook.manage' },
   { label: 'Audit log', href: '/settings/audit', permission: 'audit.read' },
   { label: 'Your security', href: '/settings/security', permission: 'signed-in' },
 ];

@@ -1,6 +1,7 @@
 import 'server-only';
 import { QueryTypes, type Transaction } from 'sequelize';
 import { models } from '@/db/models';
+import { PLAN_LIMIT_COLUMNS, PLAN_LIMITS_JOIN, type PlanLimitRow } from '@/server/billing/limits';
 
 /** An API key as the settings page lists it: never the hash. */
 export type ApiKeyRow = {
@@ -81,6 +82,10 @@ export type ApiKeyCandidate = {
   scopes: string;
   rateLimitPerMinute: number;
   revokedAt: Date | null;
+  lastUsedAt: Date | null;
+  lastUsedIp: string | null;
+  /** The company's plan row (PLAN_LIMIT_COLUMNS), read in the same query. */
+  plan: PlanLimitRow;
 };
 
 /** Keys whose visible prefix matches (normally one); the caller compares hashes in constant time. */
@@ -88,56 +93,60 @@ export async function findApiKeysByPrefix(prefix: string): Promise<ApiKeyCandida
   const { sequelize } = models();
   const rows = await sequelize.query<{
     id: number; company_id: number; company_name: string; plan_id: number; name: string; prefix: string; token_hash: string;
-    scopes: string; rate_limit_per_minute: number; revoked_at: Date | null;
-  }>(
-    `SELECT k.id, k.company_id, c.name AS company_name, c.plan_id, k.name, k.prefix, k.token_hash, k.scopes, k.rate_limit_per_minute, k.revoked_at
-       FROM api_keys k JOIN companies c ON c.id = k.company_id
+    scopes: string; rate_limit_per_minute: number; revoked_at: Date | null; last_used_at: Date | null; last_used_ip: string | null;
+  } & PlanLimitRow>(
+    `SELECT k.id, k.company_id, c.name AS company_name, c.plan_id, k.name, k.prefix, k.token_hash, k.scopes, k.rate_limit_per_minute, k.revoked_at,
+            k.last_used_at, k.last_used_ip, ${PLAN_LIMIT_COLUMNS}
+       FROM api_keys k JOIN companies c ON c.id = k.company_id ${PLAN_LIMITS_JOIN}
       WHERE k.prefix = :prefix LIMIT 10`,
     { replacements: { prefix }, type: QueryTypes.SELECT },
   );
   return rows.map((r) => ({
     id: r.id, companyId: r.company_id, companyName: r.company_name, planId: r.plan_id, name: r.name, prefix: r.prefix,
     tokenHash: r.token_hash, scopes: r.scopes, rateLimitPerMinute: r.rate_limit_per_minute, revokedAt: r.revoked_at,
+    lastUsedAt: r.last_used_at, lastUsedIp: r.last_used_ip, plan: r,
   }));
 }
 
 /**
- * Counts one request of the key in the fixed window starting at windowStart and records when and
- * from where it was used; returns the window's count including this request.
- *
- * One transaction, in this order on purpose: the UPDATE of the key row first takes its row lock,
- * so parallel requests of one key queue there and each then reads exactly its own count after the
- * upsert (the window row's foreign-key check needs a shared lock on the same key row, which this
- * transaction already holds — taking them the other way round could deadlock two requests).
+ * Counts one request of the key in the fixed window starting at windowStart; returns the window's
+ * count including this request. One statement, no transaction: the upsert is atomic on the window
+ * row (parallel requests of one key queue on its row lock), and LAST_INSERT_ID(expr) hands this
+ * connection the count it wrote — a new window reports no id (affectedRows 1), so its count is 1.
+ * The first request of a window clears the key's older windows (the table stays one row per key).
  */
-export async function countApiKeyRequest(keyId: number, windowStart: Date, used: { at: Date; ip: string | null }): Promise<number> {
+export async function countApiKeyRequest(keyId: number, windowStart: Date): Promise<number> {
   const { sequelize } = models();
-  return sequelize.transaction(async (t) => {
-    await sequelize.query('UPDATE api_keys SET last_used_at = :at, last_used_ip = :ip WHERE id = :keyId', {
-      replacements: { keyId, at: used.at, ip: used.ip },
-      type: QueryTypes.UPDATE,
-      transaction: t,
-    });
-    await sequelize.query(
-      `INSERT INTO api_key_rate_windows (api_key_id, window_start, request_count) VALUES (:keyId, :windowStart, 1)
-       ON DUPLICATE KEY UPDATE request_count = request_count + 1`,
-      { replacements: { keyId, windowStart }, type: QueryTypes.INSERT, transaction: t },
-    );
-    const [row] = await sequelize.query<{ n: number }>('SELECT request_count AS n FROM api_key_rate_windows WHERE api_key_id = :keyId AND window_start = :windowStart', {
+  const [insertId, affected] = (await sequelize.query(
+    `INSERT INTO api_key_rate_windows (api_key_id, window_start, request_count) VALUES (:keyId, :windowStart, 1)
+     ON DUPLICATE KEY UPDATE request_count = LAST_INSERT_ID(request_count + 1)`,
+    { replacements: { keyId, windowStart }, type: QueryTypes.INSERT },
+  )) as unknown as [number, number];
+  const count = Number(affected) === 1 ? 1 : Number(insertId);
+  if (count === 1) {
+    await sequelize.query('DELETE FROM api_key_rate_windows WHERE api_key_id = :keyId AND window_start < :windowStart', {
       replacements: { keyId, windowStart },
-      type: QueryTypes.SELECT,
-      transaction: t,
+      type: QueryTypes.DELETE,
     });
-    const count = Number(row?.n ?? 0);
-    // The first request of a window clears the key's older windows, so the table stays one row per key.
-    if (count === 1) {
-      await models().sequelize.query('DELETE FROM api_key_rate_windows WHERE api_key_id = :keyId AND window_start < :windowStart', {
-        replacements: { keyId, windowStart },
-        type: QueryTypes.DELETE,
-        transaction: t,
-      });
-    }
-    return count;
-  });
+  }
+  return count;
 }
 
+/** How stale last use may get before it is written again: an ordinary call writes nothing to the key row. */
+export const LAST_USED_PRECISION_MS = 60_000;
+
+/**
+ * Records when and from where the key was last used — only when the stored time is older than
+ * LAST_USED_PRECISION_MS or the address changed, so a busy key writes its row about once a minute.
+ * The WHERE repeats the check, so parallel requests that all saw a stale time write once.
+ */
+export async function recordApiKeyUse(key: { id: number; lastUsedAt: Date | null; lastUsedIp: string | null }, used: { at: Date; ip: string | null }): Promise<boolean> {
+  const stale = !key.lastUsedAt || used.at.getTime() - new Date(key.lastUsedAt).getTime() >= LAST_USED_PRECISION_MS;
+  if (!stale && key.lastUsedIp === used.ip) return false;
+  await models().sequelize.query(
+    `UPDATE api_keys SET last_used_at = :at, last_used_ip = :ip
+      WHERE id = :keyId AND (last_used_at IS NULL OR last_used_at <= :staleBefore OR NOT (last_used_ip <=> :ip))`,
+    { replacements: { keyId: key.id, at: used.at, ip: used.ip, staleBefore: new Date(used.at.getTime() - LAST_USED_PRECISION_MS) }, type: QueryTypes.UPDATE },
+  );
+  return true;
+}

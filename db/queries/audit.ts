@@ -25,7 +25,9 @@ export type AuditAction =
   | 'password.reset'
   | 'password.changed'
   | 'api_key.created'
-  | 'api_key.revoked';
+  | 'api_key.revoked'
+  | 'webhook.created'
+  | 'webhook.removed';
 
 export type AuditEventInput = {
   companyId: number | null;

@@ -1,12 +1,12 @@
 import 'server-only';
-import { countApiKeyRequest, findApiKeysByPrefix, type ApiKeyCandidate } from '@/db/queries/api-keys';
+import { countApiKeyRequest, findApiKeysByPrefix, recordApiKeyUse, type ApiKeyCandidate } from '@/db/queries/api-keys';
 import type { Access, ContextForAccess } from '@/server/auth/access';
 import { apiKeyPrefix, hashApiKey, looksLikeApiKey, sameDigest } from '@/server/auth/api-key-token';
 import { parseScopes, scopesAllow, SCOPE_PERMISSIONS, type ApiScope } from '@/server/auth/api-scopes';
 import type { CompanyAuthContext } from '@/server/auth/guards';
 import { can, type Permission } from '@/server/auth/permissions';
 import { requestMetaFrom } from '@/server/auth/request-meta';
-import { getPlanLimits, howToRaise } from '@/server/billing/limits';
+import { howToRaise, planLimitsFromRow } from '@/server/billing/limits';
 import { ForbiddenError, PlanLimitError, RateLimitedError, UnauthenticatedError } from '@/server/errors';
 
 export const RATE_WINDOW_MS = 60_000;
@@ -24,9 +24,12 @@ export const RATE_WINDOW_MS = 60_000;
  * role (an upload's kind) treat it as the admin who made it would be treated.
  */
 export async function resolveKeyAccess<A extends Access>(token: string, access: A, req: Request, keyScope?: ApiScope, now = new Date()): Promise<ContextForAccess<A>> {
+  // Two round trips on an ordinary call: the key with its company and plan, and the rate-window
+  // upsert; last use is written at most about once a minute (recordApiKeyUse).
   const key = await authenticate(token);
-  await countRequest(key, req, now);
-  const limits = await getPlanLimits(key.companyId);
+  await countRequest(key, now);
+  await recordApiKeyUse(key, { at: now, ip: requestMetaFrom(req.headers).ip });
+  const limits = await planLimitsFromRow(key.plan, { now });
   if (!limits.apiAccess) throw new PlanLimitError('apiAccess', `API access is not part of the ${limits.planName} plan, so its API keys are refused. ${howToRaise(limits)}`);
   const scopes = parseScopes(key.scopes);
   if (access !== 'signed-in' && access !== 'public') assertScope(scopes, access as Permission, keyScope);
@@ -38,6 +41,7 @@ export async function resolveKeyAccess<A extends Access>(token: string, access: 
     company: { id: key.companyId, name: key.companyName, planId: key.planId },
     role: 'admin',
     apiKey: { id: key.id, name: key.name, prefix: key.prefix, scopes },
+    plan: limits,
   };
   return ctx as unknown as ContextForAccess<A>;
 }
@@ -52,9 +56,9 @@ async function authenticate(token: string): Promise<ApiKeyCandidate> {
   return key;
 }
 
-async function countRequest(key: ApiKeyCandidate, req: Request, now: Date): Promise<void> {
+async function countRequest(key: ApiKeyCandidate, now: Date): Promise<void> {
   const windowStartMs = Math.floor(now.getTime() / RATE_WINDOW_MS) * RATE_WINDOW_MS;
-  const count = await countApiKeyRequest(key.id, new Date(windowStartMs), { at: now, ip: requestMetaFrom(req.headers).ip });
+  const count = await countApiKeyRequest(key.id, new Date(windowStartMs));
   if (count > key.rateLimitPerMinute) {
     const retryAfter = Math.max(1, Math.ceil((windowStartMs + RATE_WINDOW_MS - now.getTime()) / 1000));
     throw new RateLimitedError(retryAfter, `This API key allows ${key.rateLimitPerMinute} requests a minute. Try again in ${retryAfter} s.`);

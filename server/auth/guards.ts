@@ -7,6 +7,7 @@ import { setSessionActiveCompany } from '@/db/queries/sessions';
 import { can, PERMISSIONS, type Permission, type Role } from './permissions';
 import { validateRequest } from './session';
 import type { ApiScope } from './api-scopes';
+import { planLimitsFromRow, type PlanLimits } from '@/server/billing/limits';
 
 export type AuthUser = { id: string; email: string; name: string; isStaff: boolean };
 
@@ -20,6 +21,12 @@ export type AuthContext = {
   role: Role;
   /** Set when the caller is an API key rather than a person (server/api/key-access.ts). */
   apiKey?: { id: number; name: string; prefix: string; scopes: ApiScope[] };
+  /**
+   * The company's plan limits as read with the caller (same query as the session or the key), for
+   * checks that take no lock (API access of a read-only route). Limit checks before an insert still
+   * use assertWithinPlan under the company lock.
+   */
+  plan?: PlanLimits;
 };
 
 /** The context of a company member: company scoping is guaranteed. */
@@ -42,7 +49,14 @@ export const getAuthContext = cache(async (): Promise<AuthContext | null> => {
   if (user.isStaff) {
     return { user: authUser, sessionId: digest, companyId: null, company: null, role: 'staff' };
   }
-  let membership = session.activeCompanyId != null ? await findMembership(user.id, session.activeCompanyId) : null;
+  // Normally read with the session in one query (sequelize-adapter.ts); the look-ups below are
+  // for a session whose company no longer has the person, or one read without it.
+  const active = session.activeMembership;
+  if (active) {
+    const plan = await planLimitsFromRow(active.plan);
+    return { user: authUser, sessionId: digest, companyId: active.company.id, company: active.company, role: active.role, plan };
+  }
+  let membership = session.activeCompanyId != null && active === undefined ? await findMembership(user.id, session.activeCompanyId) : null;
   if (!membership) {
     membership = await firstMembership(user.id);
     if (!membership) return null;

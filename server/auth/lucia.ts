@@ -1,7 +1,7 @@
 import 'server-only';
 import { Lucia, TimeSpan } from 'lucia';
 import { getEnv } from '@/server/env';
-import { SequelizeSessionAdapter } from './sequelize-adapter';
+import { SequelizeSessionAdapter, type ActiveMembership } from './sequelize-adapter';
 
 export const SESSION_COOKIE_NAME = 'fl_session';
 /** Sessions slide: lucia extends one that is used in the second half of this span. */
@@ -16,7 +16,8 @@ function makeLucia() {
       // whenever the app is served over TLS (production behind a load balancer), so local http works.
       attributes: { sameSite: 'lax', secure: getEnv().APP_URL.startsWith('https:') },
     },
-    getSessionAttributes: (a) => ({ activeCompanyId: a.activeCompanyId }),
+    // activeMembership is only there when the session was just read (validateSession), never stored.
+    getSessionAttributes: (a) => ({ activeCompanyId: a.activeCompanyId, activeMembership: a.activeMembership }),
     getUserAttributes: (a) => ({ email: a.email, name: a.name, isStaff: a.isStaff }),
   });
 }
@@ -42,6 +43,8 @@ declare module 'lucia' {
       createdAt?: Date;
       /** sha256 digest of the token: the row's key, safe to show and to revoke by. */
       digest?: string;
+      /** Read with the session (sequelize-adapter.ts): the membership of the active company and its plan. */
+      activeMembership?: ActiveMembership | null;
     };
   }
 }

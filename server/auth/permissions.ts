@@ -36,6 +36,8 @@ export const PERMISSIONS = {
   'audit.read': ADMIN,
   // Create, scope and revoke the company's API keys (settings/api-keys).
   'apikey.manage': ADMIN,
+  // Register and remove the company's outbound webhook endpoints, send test events (settings/webhooks).
+  'webhook.manage': ADMIN,
   'plans.manage': STAFF,
   'accounts.read': STAFF,
 } as const satisfies Record<string, readonly Role[]>;

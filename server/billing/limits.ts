@@ -5,7 +5,7 @@ import type { SubscriptionStatus } from '@/db/models';
 import { countActiveLinks, countStudiesThisMonth, countUploadsThisMonth, findLiveSubscription, getFreeTierPlan } from '@/db/queries/billing';
 import { countMembers, countPendingInvitations } from '@/db/queries/team';
 import { NotFoundError } from '@/server/errors';
-import { OVERDUE_STATUSES } from './policy';
+import { LIVE_STATUSES, OVERDUE_STATUSES } from './policy';
 
 /**
  * A company's plan limits — the one place limits are read (first version by the accounts work:
@@ -73,22 +73,63 @@ const limitsOf = (p: { id: number; code: string; name: string; seatLimit: number
 });
 
 /**
+ * The columns planLimitsFromRow reads, for a query that has the company as `c` and LEFT JOINs
+ * PLAN_LIMITS_JOIN: session and API-key look-ups fetch the plan (and the live subscription's
+ * state, as two scalar sub-queries) in the same round trip as who is calling.
+ */
+export const PLAN_LIMIT_COLUMNS = `pl.id AS pl_id, pl.code AS pl_code, pl.name AS pl_name, pl.kind AS pl_kind, pl.seat_limit AS pl_seat_limit,
+  pl.studies_per_month AS pl_studies_per_month, pl.active_links_limit AS pl_active_links_limit, pl.uploads_per_month AS pl_uploads_per_month,
+  pl.api_access AS pl_api_access, pl.quote_branding AS pl_quote_branding, c.trial_ends_at AS pl_trial_ends_at,
+  (SELECT s.status FROM subscriptions s WHERE s.company_id = c.id AND s.status IN (${LIVE_STATUSES.map((x) => `'${x}'`).join(',')}) ORDER BY s.created_at DESC, s.id DESC LIMIT 1) AS pl_live_status,
+  (SELECT s.grace_ends_at FROM subscriptions s WHERE s.company_id = c.id AND s.status IN (${LIVE_STATUSES.map((x) => `'${x}'`).join(',')}) ORDER BY s.created_at DESC, s.id DESC LIMIT 1) AS pl_live_grace_ends_at`;
+export const PLAN_LIMITS_JOIN = 'LEFT JOIN plans pl ON pl.id = c.plan_id';
+
+/** The PLAN_LIMIT_COLUMNS of one row (null when the row had no company). */
+export type PlanLimitRow = {
+  pl_id: number | null; pl_code: string; pl_name: string; pl_kind: 'trial' | 'free' | 'paid'; pl_seat_limit: number; pl_studies_per_month: number;
+  pl_active_links_limit: number; pl_uploads_per_month: number; pl_api_access: number | boolean; pl_quote_branding: number | boolean; pl_trial_ends_at: Date | null;
+  pl_live_status: SubscriptionStatus | null; pl_live_grace_ends_at: Date | null;
+};
+
+/**
  * `lockedRead` (used by assertWithinPlan, which already holds the company row) makes the reads
  * locking reads, so a limit check sees the plan and subscription as last committed (a webhook's
- * plan change), not an older snapshot of the caller's transaction.
+ * plan change), not an older snapshot of the caller's transaction. Otherwise one query.
  */
 export async function getPlanLimits(companyId: number, t?: Transaction, opts: { now?: Date; lockedRead?: boolean } = {}): Promise<PlanLimits> {
   const locking = Boolean(t && opts.lockedRead);
   const { sequelize } = models();
   const now = opts.now ?? new Date();
+  if (!locking) {
+    const [row] = await sequelize.query<PlanLimitRow>(`SELECT ${PLAN_LIMIT_COLUMNS} FROM companies c ${PLAN_LIMITS_JOIN} WHERE c.id = :companyId`, {
+      replacements: { companyId }, type: QueryTypes.SELECT, transaction: t,
+    });
+    if (!row?.pl_id) throw new NotFoundError('That company');
+    return planLimitsFromRow(row, { now, t });
+  }
   const rows = await sequelize.query<PlanRow>(
     `SELECT p.id, p.code, p.name, p.kind, p.seat_limit, p.studies_per_month, p.active_links_limit, p.uploads_per_month, p.api_access, p.quote_branding, c.trial_ends_at
        FROM companies c JOIN plans p ON p.id = c.plan_id
-      WHERE c.id = :companyId${locking ? ' LOCK IN SHARE MODE' : ''}`,
+      WHERE c.id = :companyId LOCK IN SHARE MODE`,
     { replacements: { companyId }, type: QueryTypes.SELECT, transaction: t },
   );
   const p = rows[0];
   if (!p) throw new NotFoundError('That company');
+  const live = p.kind === 'paid' ? await findLiveSubscription(companyId, t, true) : null;
+  return limitsFor(p, live ? { status: live.status, graceEndsAt: live.graceEndsAt } : null, now, t);
+}
+
+/** Limits from a row that carried PLAN_LIMIT_COLUMNS (no query, unless the company fell back to the free tier). */
+export async function planLimitsFromRow(r: PlanLimitRow, opts: { now?: Date; t?: Transaction } = {}): Promise<PlanLimits> {
+  const p: PlanRow = {
+    id: r.pl_id!, code: r.pl_code, name: r.pl_name, kind: r.pl_kind, seat_limit: r.pl_seat_limit, studies_per_month: r.pl_studies_per_month, active_links_limit: r.pl_active_links_limit,
+    uploads_per_month: r.pl_uploads_per_month, api_access: r.pl_api_access, quote_branding: r.pl_quote_branding, trial_ends_at: r.pl_trial_ends_at === null ? null : new Date(r.pl_trial_ends_at),
+  };
+  const live = r.pl_live_status ? { status: r.pl_live_status, graceEndsAt: r.pl_live_grace_ends_at === null ? null : new Date(r.pl_live_grace_ends_at) } : null;
+  return limitsFor(p, live, opts.now ?? new Date(), opts.t);
+}
+
+async function limitsFor(p: PlanRow, live: { status: SubscriptionStatus; graceEndsAt: Date | null } | null, now: Date, t?: Transaction): Promise<PlanLimits> {
   const own = limitsOf({
     id: p.id,
     code: p.code,
@@ -114,7 +155,6 @@ export async function getPlanLimits(companyId: number, t?: Transaction, opts: { 
     return { ...own, companyPlan, basis: { kind: 'trial', endsAt: p.trial_ends_at } };
   }
   if (p.kind === 'paid') {
-    const live = await findLiveSubscription(companyId, t, locking);
     if (live && (OVERDUE_STATUSES as readonly string[]).includes(live.status)) {
       const graceEndsAt = live.graceEndsAt ?? now;
       if (graceEndsAt.getTime() > now.getTime()) return { ...own, companyPlan, basis: { kind: 'past_due_grace', graceEndsAt, status: live.status } };

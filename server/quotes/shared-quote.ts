@@ -13,6 +13,8 @@ import { expireOverdueQuotes } from './expire';
 import { decisionToTeamMail } from './mail';
 import { readQuotedOption } from '@/server/study-option';
 import { isDecided, isPastValidity, OPEN_STATUSES, quoteReference, type DecidedStatus } from './status';
+import { enqueueWebhookEvent } from '@/server/webhooks/outbox';
+import { quoteEventData } from '@/server/webhooks/payloads';
 
 const CUSTOMER_LABEL = 'Customer (comparison link)';
 
@@ -63,12 +65,13 @@ export async function sharedLogoCompany(token: string, now: Date = new Date()): 
  * One view of the customer's page: the link's count goes up (atomically), and the first view of
  * a sent quote moves it to viewed with an event for the team's timeline.
  */
-async function recordShareView(linkId: number, companyId: number, quoteId: number, meta: RequestMeta, now: Date = new Date()): Promise<void> {
+async function recordShareView(linkId: number, companyId: number, quote: QuoteDetail, meta: RequestMeta, now: Date = new Date()): Promise<void> {
   const { sequelize } = models();
   await sequelize.transaction(async (t) => {
     await recordLinkView(linkId, t);
-    if (await moveQuoteStatus(companyId, quoteId, ['sent'], 'viewed', { firstViewedAt: now }, t)) {
-      await insertQuoteEvent({ companyId, quoteId, kind: 'viewed', fromStatus: 'sent', toStatus: 'viewed', actorLabel: CUSTOMER_LABEL, detail: { linkId }, ip: meta.ip }, t);
+    if (await moveQuoteStatus(companyId, quote.id, ['sent'], 'viewed', { firstViewedAt: now }, t)) {
+      await insertQuoteEvent({ companyId, quoteId: quote.id, kind: 'viewed', fromStatus: 'sent', toStatus: 'viewed', actorLabel: CUSTOMER_LABEL, detail: { linkId }, ip: meta.ip }, t);
+      await enqueueWebhookEvent(companyId, 'quote.viewed', quoteEventData(quote, { status: 'viewed', at: now }), t, { now });
     }
   });
 }
@@ -114,6 +117,7 @@ export async function decideSharedQuote(input: CustomerDecision, meta: RequestMe
     );
     if (!moved) throw new ConflictError('This quote cannot be decided on any more.');
     await insertQuoteEvent({ companyId: link.companyId, quoteId: quote.id, kind: to, fromStatus: quote.status, toStatus: to, actorLabel: `${input.name} (customer)`, detail: { linkId: link.linkId, comment: input.comment }, ip: meta.ip }, t);
+    await enqueueWebhookEvent(link.companyId, to === 'accepted' ? 'quote.accepted' : 'quote.declined', quoteEventData(quote, { status: to, at: now, decidedByName: input.name, comment: input.comment }), t, { now });
     return quote;
   });
   await tellTheTeam(link.companyId, outcome, to, input).catch((error) => console.error('quote decision: team e-mail failed:', (error as Error).message));
@@ -162,7 +166,7 @@ export async function openSharedPage(token: string, h: Headers, meta: RequestMet
   const shared = await loadSharedQuote(token, now);
   if (!shared) return null;
   if (!countsAsView(h)) return shared;
-  await recordShareView(shared.linkId, shared.companyId, shared.quote.id, meta, now);
+  await recordShareView(shared.linkId, shared.companyId, shared.quote, meta, now);
   const status = shared.quote.status === 'sent' ? 'viewed' : shared.quote.status;
   return { ...shared, quote: { ...shared.quote, status } };
 }

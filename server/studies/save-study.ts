@@ -6,6 +6,8 @@ import { getServiceProfile } from '@/db/queries/service-profiles';
 import { getClimateProfile } from '@/db/queries/climate-profiles';
 import { getDishesByIds } from '@/db/queries/dishes';
 import { insertStudy, nextRevision, type StudyDetail } from '@/db/queries/studies';
+import { enqueueWebhookEvent } from '@/server/webhooks/outbox';
+import { studyEventData } from '@/server/webhooks/payloads';
 import { lockCompanyRow } from '@/db/queries/company-lock';
 import { assertWithinPlan } from '@/server/plan-limit';
 import { AppError, InvalidInputError, NotFoundError } from '@/server/errors';
@@ -148,5 +150,18 @@ export async function saveStudyIn(
     );
     serviceStudyIds.push(id);
   }
+  // One study.created per saved study (an edit or re-run is a new revision, so it is announced too);
+  // the lead row stands for every service of a comparison, its serviceName naming them all.
+  const lead = {
+    id: serviceStudyIds[0],
+    title,
+    customerName: customer.name,
+    siteName: site.name,
+    serviceName: serviceSummary(services.map((s) => s.name)),
+    recommendedDiameterM: recommendedDiameterOf(computed[0].result),
+    revision,
+    createdByUserId: actor.userId,
+  };
+  await enqueueWebhookEvent(companyId, 'study.created', studyEventData(lead), t);
   return { id: serviceStudyIds[0], revision, serviceStudyIds };
 }

@@ -1,12 +1,10 @@
 import 'server-only';
-import { models } from '@/db/models';
 import { dishTradeoff } from '@/server/engine';
 import { isEngineInputError } from '@/server/engine/errors';
 import type { TradeoffResult } from '@/server/engine/tradeoff-types';
-import { InvalidInputError } from '@/server/errors';
+import { InvalidInputError, PlanLimitError } from '@/server/errors';
 import type { TradeoffScenarioInput } from '@/server/validation/tradeoff-scenario';
-import { lockCompanyRow } from '@/db/queries/company-lock';
-import { assertWithinPlan } from '@/server/plan-limit';
+import { getPlanLimits, limitMessage, type PlanLimits } from '@/server/billing/limits';
 import { scenarioFromMaps, type MapInputs } from './tradeoff-scenario-from-maps';
 
 /** The engine's result, plus what the ITU-R maps supplied that the request left out. */
@@ -18,9 +16,11 @@ export type TradeoffApiResult = TradeoffResult & { mapInputs: MapInputs };
  * a 422 naming the scenario field (e.g. `site.latDeg` where the maps have no data,
  * `satellite.longitudeDeg` below the horizon, `dishes[2].diameterM`).
  */
-export async function runTradeoffForApi(companyId: number, input: TradeoffScenarioInput): Promise<TradeoffApiResult> {
-  const { sequelize } = models();
-  await sequelize.transaction(async (t) => assertWithinPlan(await lockCompanyRow(companyId, t), 'apiAccess'));
+export async function runTradeoffForApi(caller: { companyId: number; plan?: PlanLimits }, input: TradeoffScenarioInput): Promise<TradeoffApiResult> {
+  // Nothing is written, so no company lock: the plan as read with the caller (session or key) is
+  // enough, and parallel trade-offs of one company no longer queue behind each other.
+  const limits = caller.plan ?? (await getPlanLimits(caller.companyId));
+  if (!limits.apiAccess) throw new PlanLimitError('apiAccess', limitMessage('apiAccess', limits, 0));
   try {
     const { scenario, mapInputs } = scenarioFromMaps(input);
     return { ...dishTradeoff(scenario), mapInputs };

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { WEBHOOK_EVENTS } from '@/server/webhooks/events';
 import { API_SCOPES, SCOPE_LABELS, SCOPE_PERMISSIONS, type ApiScope } from '@/server/auth/api-scopes';
 import { PERMISSIONS, type Permission } from '@/server/auth/permissions';
 import { API_OPERATIONS, type ApiOperation } from './operations';
@@ -86,6 +87,21 @@ const INTRO = `The FadeLedger API: dish-size trade-offs, studies, quotes and cus
 **Scopes.** ${API_SCOPES.map((s) => `\`${s}\`: ${SCOPE_LABELS[s].replace(/^[^—]*— /, '')}`).join('; ')}.
 
 **Errors.** Every error answers \`{ "error": { "code", "message", "fieldErrors"? } }\`: 401 no or bad key (also a revoked key), 403 \`forbidden\` (outside the key's scopes or the role) or \`plan_limit\` (the plan has no API access), 404 missing or another company's, 422 invalid input with field messages, 429 over the key's requests a minute (see Retry-After).
+
+**Webhooks.** An admin registers https endpoints in *Settings → Webhooks* for ${WEBHOOK_EVENTS.map((e) => `\`${e}\``).join(', ')}; each delivery is a POST of \`{ id, type, createdAt, company, data }\` with the headers \`FadeLedger-Event\`, \`FadeLedger-Event-Id\` (de-duplicate on it), \`FadeLedger-Attempt\` and \`FadeLedger-Signature: t=<unix seconds>,v1=<hex>\`, where the hex is HMAC-SHA256 of \`\${t}.\${rawBody}\` under the endpoint's signing secret (shown once). Check it before trusting the body:
+
+\`\`\`js
+const { createHmac, timingSafeEqual } = require('node:crypto');
+function verify(secret, header, rawBody) {
+  const p = Object.fromEntries(header.split(',').map((kv) => kv.split('=')));
+  if (Math.abs(Date.now() / 1000 - Number(p.t)) > 300) return false; // a replay
+  const expected = createHmac('sha256', secret).update(\`\${p.t}.\${rawBody}\`).digest();
+  const given = Buffer.from(p.v1 ?? '', 'hex');
+  return given.length === expected.length && timingSafeEqual(given, expected);
+}
+\`\`\`
+
+Answer 2xx within 5 s; anything else, a redirect included, is retried with doubling waits (30 s up to 2 h, 10 attempts).
 
 **Examples** use \`FADELEDGER_URL\` (this server) and \`FADELEDGER_KEY\`: in the demo, sign in as the Quillfeather admin, make a key in Settings → API keys, then \`export FADELEDGER_KEY=fl_…\`.`;
 

@@ -13,4 +13,4 @@ import { runTradeoffForApi } from '@/server/studies/tradeoff-api';
  * total) is always read from the maps unless the request sends `atmosphere: null` (rain only).
  * A site without map data, or a satellite below its horizon, is a 422 naming the field.
  */
-export const POST = apiRoute({ permission: 'tradeoff.api', schema: tradeoffScenarioSchema }, async ({ ctx, input }) => runTradeoffForApi(ctx.companyId, input));
+export const POST = apiRoute({ permission: 'tradeoff.api', schema: tradeoffScenarioSchema }, async ({ ctx, input }) => runTradeoffForApi(ctx, input));
