@@ -57,7 +57,7 @@ export default async function StudyPage({ params }: { params: Promise<{ id: stri
           </Notice>
         )}
         <Recommendation studyId={study.id} inputs={inputs} result={result} canQuote={canQuote} />
-        <StudyWarnings warnings={result.tradeoff.warnings} />
+        <StudyWarnings warnings={result.tradeoff.warnings} elevationDeg={result.tradeoff.elevationDeg} />
         <ClimatePlaceWarning inputs={inputs} />
         <PointingSummary inputs={inputs} result={result} />
         <Card aria-labelledby="options-title">
