@@ -97,7 +97,7 @@ export function OptionsTable({ studyId, inputs, result, canQuote }: { studyId: n
   const rows = t.options.map((o, i) => ({ o, i, reading: readStudyOption(t, i), name: dishName(inputs.dishes[i]?.name, o.diameterM), highlighted: rec.smallestMeetingTargetIndex === i }));
   return (
     <>
-      <div className="hidden lg:block" data-testid="options-table">
+      <div className="hidden lg:block print:block print:[&_table]:text-xs" data-testid="options-table">
         <Table caption="Trade-off per dish" className="print:overflow-visible">
           <THead>
             <tr>
@@ -167,7 +167,7 @@ export function OptionsTable({ studyId, inputs, result, canQuote }: { studyId: n
           ))}
         </Table>
       </div>
-      <ul className="space-y-3 px-4 lg:hidden" aria-label="Trade-off per dish" data-testid="options-cards">
+      <ul className="space-y-3 px-4 lg:hidden print:hidden" aria-label="Trade-off per dish" data-testid="options-cards">
         {rows.map(({ o, i, reading, name, highlighted }) => (
           <li key={o.index} className={`rounded-md border px-3 py-3 ${highlighted ? 'border-ledger-300 bg-ledger-50' : 'border-stone-200 bg-white'}`}>
             <div className="flex items-start justify-between gap-3">

@@ -55,7 +55,7 @@ export function Recommendation({ studyId, inputs, result, canQuote }: { studyId:
           </p>
         </div>
         {canQuote && (
-          <LinkButton href={quoteHref(studyId, quoteIndex)} className="shrink-0">
+          <LinkButton href={quoteHref(studyId, quoteIndex)} className="shrink-0 print:hidden">
             Create quote
           </LinkButton>
         )}

@@ -3,7 +3,7 @@ import Link from 'next/link';
 import { notFound } from 'next/navigation';
 import { PageHeader } from '@/components/ui/page-header';
 import { Card, CardBody, CardHeader } from '@/components/ui/card';
-import { LinkButton } from '@/components/ui/button';
+import { buttonClasses, LinkButton } from '@/components/ui/button';
 import { PointingSummary } from '@/components/study/pointing-summary';
 import { ClimateSummary } from '@/components/study/climate-summary';
 import { OptionsTable } from '@/components/study/options-table';
@@ -42,11 +42,17 @@ export default async function StudyPage({ params }: { params: Promise<{ id: stri
         description={`${inputs.site.customerName} · ${inputs.site.name} · ${inputs.service.name} (${inputs.service.satelliteName}) · target ${inputs.targetAvailabilityPercent} %`}
         actions={
           <>
-            <LinkButton href="/studies" variant="quiet">
-              All studies
-            </LinkButton>
-            {canWrite && <RerunButton studyId={study.id} />}
-            {canWrite && <ArchiveButton key={study.status} studyId={study.id} archived={study.status === 'archived'} />}
+            <div className="flex flex-wrap items-center gap-2 print:hidden">
+              <LinkButton href="/studies" variant="quiet">
+                All studies
+              </LinkButton>
+              {/* A file, not a page: a plain link so the browser downloads it instead of routing. */}
+              <a href={`/studies/${study.id}/pdf`} download className={buttonClasses('secondary')}>
+                Download PDF
+              </a>
+              {canWrite && <RerunButton studyId={study.id} />}
+              {canWrite && <ArchiveButton key={study.status} studyId={study.id} archived={study.status === 'archived'} />}
+            </div>
           </>
         }
       />
