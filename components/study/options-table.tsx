@@ -62,7 +62,7 @@ function LinkBudgetLine({ o, reading, acm }: { o: TradeoffOption; reading: Optio
 /** What the extra price over the smallest dish buys, in a short cell. */
 function Saving({ t, i }: { t: TradeoffResult; i: number }) {
   const o = t.options[i];
-  if (i === t.recommendation.baselineIndex) return <span className="text-stone-600">smallest dish</span>;
+  if (i === t.recommendation.baselineIndex) return <span className="font-sans text-stone-600">smallest dish</span>;
   return (
     <>
       {savedMinutesNumber(o.minutesSavedPerYear)} min
@@ -187,30 +187,30 @@ export function OptionsTable({ studyId, inputs, result, canQuote }: { studyId: n
               <dl className="mt-2 grid grid-cols-2 gap-x-3 gap-y-1 text-sm">
                 <div data-testid="card-outage">
                   <dt className="text-xs text-stone-600">Outage / year</dt>
-                  <dd className="num font-semibold text-stone-900">
+                  <dd className="num text-left font-semibold text-stone-900">
                     {reading.outage.minutesText}
-                    {reading.outage.durationText !== reading.outage.minutesText && <span className="ml-1 text-xs font-normal text-stone-600">({reading.outage.durationText})</span>}
+                    {reading.outage.durationText !== reading.outage.minutesText && <span className="block text-xs font-normal text-stone-600">{reading.outage.durationText}</span>}
                   </dd>
                 </div>
                 <div data-testid="card-price">
                   <dt className="text-xs text-stone-600">Price</dt>
-                  <dd className="num font-semibold text-stone-900">{formatMoney(o.priceUsd)}</dd>
+                  <dd className="num text-left font-semibold text-stone-900">{formatMoney(o.priceUsd)}</dd>
                 </div>
                 <div>
                   <dt className="text-xs text-stone-600">Availability{twoWay ? ' (two-way)' : ''}</dt>
-                  <dd className="num">{reading.availability.text}</dd>
+                  <dd className="num text-left">{reading.availability.text}</dd>
                 </div>
                 <div>
                   <dt className="text-xs text-stone-600">Worst month</dt>
-                  <dd className="num">{reading.worstMonth.minutesText}</dd>
+                  <dd className="num text-left">{reading.worstMonth.minutesText}</dd>
                 </div>
                 <div>
                   <dt className="text-xs text-stone-600">Margin</dt>
-                  <dd className="num">{fixed(o.marginDb, 2)} dB</dd>
+                  <dd className="num text-left">{fixed(o.marginDb, 2)} dB</dd>
                 </div>
                 <div>
                   <dt className="text-xs text-stone-600">Outage saved / yr</dt>
-                  <dd className="num">
+                  <dd className="num text-left">
                     <Saving t={t} i={i} />
                   </dd>
                 </div>

@@ -36,7 +36,7 @@ export function PointingSummary({ inputs, result }: { inputs: StudyInputsSnapsho
         </dl>
         <p className="mt-2 text-xs text-stone-600">
           Magnetic declination {declinationWords(d.declinationDeg)} at the site on {dateFmt.format(d.evaluatedFor)}
-          {d.dateHeld ? ' (the nearest date the model covers)' : ''}, from the {d.modelName}, epoch {fixed(d.modelEpoch, 1)}. Compass readings also shift near steel, cars and power lines.
+          {d.dateHeld ? ' (the nearest date the model covers)' : ''}, from the {d.modelName}, epoch {d.modelEpoch.toFixed(1)}. Compass readings also shift near steel, cars and power lines.
         </p>
         {linear && <p className="mt-2 text-xs text-stone-600">Skew: turn the feed clockwise by a positive angle, seen from behind the dish looking at the satellite.</p>}
         <div className="mt-3">

@@ -15,7 +15,8 @@ export function SkyCompass({ trueAzimuthDeg, magneticAzimuthDeg, declinationDeg,
   };
   const look = at(trueAzimuthDeg, r - 4);
   const mag = at(declinationDeg, r + 2);
-  const magLabel = at(declinationDeg, r + 11);
+  // The "M" sits beside the magnetic mark, on the side away from N, so a small declination does not hide either letter.
+  const magLabel = at(declinationDeg + (declinationDeg >= 0 ? 9 : -9), r + 6);
   const ticks = Array.from({ length: 36 }, (_, i) => i * 10);
   const elev = Math.max(0, Math.min(90, elevationDeg));
   const e = (elev * Math.PI) / 180;
