@@ -1,10 +1,8 @@
 import { Circle, Line, Polyline, Svg, Text } from '@react-pdf/renderer';
 import type { StudyResultSnapshot } from '@/server/studies/snapshot';
 import { allowedMinutesPerYear, readStudyOption } from '@/server/study-option';
-import { winAnsi } from '@/server/quotes/pdf/win-ansi';
 
 const TEAL = '#1b5955';
-const INK = '#1c1917';
 const MUTED = '#57534e';
 const RULE = '#d6d3d1';
 const AMBER = '#b45309';
@@ -12,14 +10,15 @@ const AMBER = '#b45309';
 /**
  * Outage minutes per year against dish diameter, drawn in the PDF itself (no browser chart):
  * a log scale, because a small dish can miss thousands of minutes and a large one a handful.
- * Dishes that never close have no point; the target's allowed outage is a dashed line.
+ * Dishes that never close have no point; the target's allowed outage is a dashed line. The
+ * figures themselves are in the table above, so the points carry no labels that could collide.
  */
 export function PdfOutageChart({ result, targetPercent, width = 500, height = 170 }: { result: StudyResultSnapshot; targetPercent: number; width?: number; height?: number }) {
   const t = result.tradeoff;
   const pts = t.options
     .map((o, i) => ({ o, r: readStudyOption(t, i) }))
     .filter(({ r }) => r.closes)
-    .map(({ o, r }) => ({ dM: o.diameterM, min: Math.max(r.figures.outageMinutesPerYear, 0.1), cm: r.diameter.cm, text: winAnsi(r.outage.minutesText) }));
+    .map(({ o, r }) => ({ dM: o.diameterM, min: Math.max(r.figures.outageMinutesPerYear, 0.1), cm: r.diameter.cm }));
   const allowed = allowedMinutesPerYear(targetPercent);
   const left = 46;
   const right = 12;
@@ -62,6 +61,7 @@ export function PdfOutageChart({ result, targetPercent, width = 500, height = 17
       {allowed !== null && allowed > 0 && (
         <>
           <Line x1={left} x2={width - right} y1={y(allowed)} y2={y(allowed)} stroke={AMBER} strokeWidth={0.8} strokeDasharray="3 2" />
+          {/* Above the line at the large-dish end: the dishes there usually meet the target, so their points lie below it. */}
           <Text x={width - right} y={y(allowed) - 3} style={{ fontSize: 7, fill: AMBER }} textAnchor="end">
             {`target ${targetPercent} %: ${Math.round(allowed).toLocaleString('en-US')} min/yr allowed`}
           </Text>
@@ -70,11 +70,6 @@ export function PdfOutageChart({ result, targetPercent, width = 500, height = 17
       {pts.length > 1 && <Polyline points={pts.map((p) => `${x(p.dM)},${y(p.min)}`).join(' ')} fill="none" stroke={TEAL} strokeWidth={1.5} />}
       {pts.map((p) => (
         <Circle key={p.cm} cx={x(p.dM)} cy={y(p.min)} r={2.5} fill={TEAL} />
-      ))}
-      {pts.map((p) => (
-        <Text key={`v${p.cm}`} x={x(p.dM) + 4} y={y(p.min) - 4} style={{ fontSize: 7, fill: INK }}>
-          {p.text}
-        </Text>
       ))}
     </Svg>
   );
