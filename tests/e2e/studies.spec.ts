@@ -16,6 +16,8 @@ const stamp = () => `${Date.now().toString(36)}${Math.floor(Math.random() * 1e4)
 
 
 test('an installer builds a study from the form and reads the trade-off', async ({ page }) => {
+  // Two axe passes over the study page (table and phone cards both in the DOM) and the list: 60 s ran out under load.
+  test.setTimeout(150_000);
   const id = stamp();
   await signIn(page, installer.email);
   await page.goto('/studies/new');
