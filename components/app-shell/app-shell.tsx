@@ -20,7 +20,7 @@ export function AppShell({ user, children, homeHref = '/dashboard', navItems }: 
       <a href="#main" className="sr-only focus:not-sr-only focus:absolute focus:left-2 focus:top-2 focus:z-50 focus:rounded focus:bg-white focus:px-3 focus:py-2">
         Skip to content
       </a>
-      <header className="sticky top-0 z-20 border-b border-stone-200 bg-white">
+      <header className="sticky top-0 z-20 border-b border-stone-200 bg-white print:hidden">
         <div className="mx-auto flex max-w-7xl items-center gap-3 px-4 py-2 sm:px-6">
           <MobileNav items={items} />
           <Link href={homeHref} aria-label="FadeLedger home" className="shrink-0">
@@ -39,10 +39,10 @@ export function AppShell({ user, children, homeHref = '/dashboard', navItems }: 
           </div>
         </div>
       </header>
-      <main id="main" className="mx-auto w-full max-w-7xl flex-1 px-4 py-6 sm:px-6 sm:py-8">
+      <main id="main" className="mx-auto w-full max-w-7xl flex-1 px-4 py-6 sm:px-6 sm:py-8 print:max-w-none print:p-0">
         {children}
       </main>
-      <footer className="border-t border-stone-200 bg-white">
+      <footer className="border-t border-stone-200 bg-white print:hidden">
         <p className="mx-auto max-w-7xl px-4 py-4 text-xs text-stone-500 sm:px-6">
           Outage figures are long-term statistical averages from ITU-R methods, not a guarantee for any one year. Installation work at height, grounding and
           mounting follow the manufacturer&apos;s instructions and local codes.

@@ -8,6 +8,7 @@ import { ActionForm } from '@/components/ui/action-form';
 import { Field, SelectField, TextAreaField } from '@/components/ui/field';
 import { AfterSave } from './after-save';
 import { SaveRow } from './save-row';
+import { UseMyLocation } from './use-my-location';
 
 function Echo({ text, axis }: { text: string; axis: 'lat' | 'lon' }) {
   if (!text.trim()) return <>Decimal degrees or DMS, e.g. {axis === 'lat' ? `47°07'24"N` : `2°39'15"E`}</>;
@@ -38,6 +39,12 @@ export function SiteForm({ customers, site, onSaved, onCancel }: { customers: { 
         />
         <Field label="Site name" name="name" defaultValue={site?.name} />
         <Field label="Address (optional)" name="address" defaultValue={site?.address ?? ''} />
+        <UseMyLocation
+          onPosition={(la, lo) => {
+            setLat(la);
+            setLon(lo);
+          }}
+        />
         <Field label="Latitude" name="latDeg" value={lat} onChange={(e) => setLat(e.target.value)} autoComplete="off" hint={<Echo text={lat} axis="lat" />} />
         <Field label="Longitude" name="lonDeg" value={lon} onChange={(e) => setLon(e.target.value)} autoComplete="off" hint={<Echo text={lon} axis="lon" />} />
         {/* A map altitude stays blank when editing, so it follows the coordinates if they change. */}

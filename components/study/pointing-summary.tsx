@@ -1,7 +1,9 @@
 import { useId } from 'react';
 import type { StudyInputsSnapshot, StudyResultSnapshot } from '@/server/studies/snapshot';
 import { formatDms } from '@/server/validation/coordinates';
-import { degrees, fixed, orbitalSlot } from './format';
+import { declinationWords, studyPointing } from '@/server/pointing/magnetic-declination';
+import { dateFmt, degrees, fixed, orbitalSlot } from './format';
+import { SkyCompass } from './sky-compass';
 
 function Row({ term, children }: { term: string; children: React.ReactNode }) {
   return (
@@ -19,6 +21,9 @@ export function PointingSummary({ inputs, result }: { inputs: StudyInputsSnapsho
   const t = result.tradeoff;
   const s = inputs.service;
   const linear = s.polarization !== 'circular';
+  // Declination for the day the study was computed, so the record reads the same every time it is opened.
+  const pointing = studyPointing(inputs.site, t, new Date(result.computedAt));
+  const d = pointing.declination;
   return (
     <div className="grid gap-4 md:grid-cols-3">
       <section aria-labelledby={`pointing-title-${uid}`} className="rounded-md border border-stone-200 bg-white px-4 py-3">
@@ -27,11 +32,19 @@ export function PointingSummary({ inputs, result }: { inputs: StudyInputsSnapsho
         </h2>
         <dl className="mt-1 divide-y divide-stone-100">
           <Row term="Azimuth (true)">{degrees(t.azimuthDeg, 1)}</Row>
+          <Row term="Azimuth (magnetic, for a compass)">{degrees(pointing.magneticAzimuthDeg, 1)}</Row>
           <Row term="Elevation">{degrees(t.elevationDeg, 1)}</Row>
           <Row term="Polarization skew">{linear ? `${t.polarizationSkewDeg >= 0 ? '+' : '−'}${fixed(Math.abs(t.polarizationSkewDeg), 1)}°` : 'none (circular)'}</Row>
           <Row term="Slant range">{fixed(t.rangeKm, 0)} km</Row>
         </dl>
+        <p className="mt-2 text-xs text-stone-600">
+          Magnetic declination {declinationWords(d.declinationDeg)} at the site on {dateFmt.format(d.evaluatedFor)}
+          {d.dateHeld ? ' (the nearest date the model covers)' : ''}, from the {d.modelName}, epoch {d.modelEpoch.toFixed(1)}. Compass readings also shift near steel, cars and power lines.
+        </p>
         {linear && <p className="mt-2 text-xs text-stone-600">Skew: turn the feed clockwise by a positive angle, seen from behind the dish looking at the satellite.</p>}
+        <div className="mt-3">
+          <SkyCompass trueAzimuthDeg={t.azimuthDeg} magneticAzimuthDeg={pointing.magneticAzimuthDeg} declinationDeg={d.declinationDeg} elevationDeg={t.elevationDeg} />
+        </div>
       </section>
       <section aria-labelledby={`site-title-${uid}`} className="rounded-md border border-stone-200 bg-white px-4 py-3">
         <h2 id={`site-title-${uid}`} className="text-sm font-semibold text-stone-900">

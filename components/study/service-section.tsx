@@ -20,7 +20,7 @@ export function ServiceSection({ studyId, inputs, result, canQuote }: { studyId:
   return (
     <div className="space-y-6">
       <Recommendation studyId={studyId} inputs={inputs} result={result} canQuote={canQuote} />
-      <StudyWarnings warnings={result.tradeoff.warnings} />
+      <StudyWarnings warnings={result.tradeoff.warnings} elevationDeg={result.tradeoff.elevationDeg} />
       <ClimatePlaceWarning inputs={inputs} />
       <PointingSummary inputs={inputs} result={result} />
       <Card aria-labelledby={`options-title-${uid}`}>

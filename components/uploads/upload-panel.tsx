@@ -10,6 +10,7 @@ import { Table, TBody, THead, Td, Th } from '@/components/ui/table';
 import { FormStateProvider } from '@/components/ui/action-form';
 import { Field } from '@/components/ui/field';
 import { CsvFileInput } from './csv-file-input';
+import { previewColumnLabel } from './preview-columns';
 import { PlaceFields } from '@/components/climate/place-fields';
 
 type Act = (prev: ActionState<never> | null, input: FormData) => Promise<ActionState<unknown>>;
@@ -38,8 +39,8 @@ function ReportView({ report }: { report: ParseReport }) {
           <THead>
             <tr>
               {cols.map((c) => (
-                <Th key={c} numeric={typeof report.preview[0][c] === 'number'}>
-                  {c}
+                <Th key={c} numeric={typeof report.preview[0][c] === 'number'} className="normal-case">
+                  {previewColumnLabel(c)}
                 </Th>
               ))}
             </tr>
@@ -49,7 +50,7 @@ function ReportView({ report }: { report: ParseReport }) {
               <tr key={i}>
                 {cols.map((c) => (
                   <Td key={c} numeric={typeof row[c] === 'number'}>
-                    {row[c] === null ? '—' : String(row[c])}
+                    {row[c] === null ? '—' : typeof row[c] === 'boolean' ? (row[c] ? 'yes' : 'no') : String(row[c])}
                   </Td>
                 ))}
               </tr>

@@ -78,3 +78,28 @@ export async function deleteCustomer(companyId: number, id: number): Promise<'de
     return 'deleted';
   });
 }
+
+/** How names are compared for duplicates: case, accents aside, and runs of spaces do not count. */
+export function customerNameKey(name: string): string {
+  return name.normalize('NFKC').trim().replace(/\s+/g, ' ').toLocaleLowerCase('en');
+}
+
+/**
+ * The company's customer whose name is the same as `name` once case and spacing are set aside
+ * (customerNameKey), or null. Compared in code over this company's rows with a name of the same
+ * first letter, so the rule is the one above whatever the column's collation.
+ */
+export async function findCustomerByName(companyId: number, name: string, t?: Transaction): Promise<{ id: number; name: string; email: string | null; siteCount: number; createdAt: string } | null> {
+  const key = customerNameKey(name);
+  if (!key) return null;
+  const { sequelize } = models();
+  const rows = await sequelize.query<{ id: number; name: string; email: string | null; created_at: Date; site_count: number }>(
+    `SELECT c.id, c.name, c.email, c.created_at,
+            (SELECT COUNT(*) FROM sites s WHERE s.company_id = c.company_id AND s.customer_id = c.id) AS site_count
+       FROM customers c WHERE c.company_id = :companyId AND LOWER(TRIM(c.name)) LIKE :prefix
+      ORDER BY c.id`,
+    { replacements: { companyId, prefix: `${key.charAt(0).replace(/[\\%_]/g, '\\$&')}%` }, type: QueryTypes.SELECT, transaction: t },
+  );
+  const hit = rows.find((r) => customerNameKey(r.name) === key);
+  return hit ? { id: hit.id, name: hit.name, email: hit.email, siteCount: Number(hit.site_count), createdAt: new Date(hit.created_at).toISOString() } : null;
+}

@@ -1,4 +1,5 @@
 import type { QuoteOptionSnapshot, QuoteStudySnapshot } from './snapshot';
+import { declinationWords, studyPointing } from '@/server/pointing/magnetic-declination';
 import { diameterLabel, readQuotedOption, savingWords, type OptionReading } from '@/server/study-option';
 
 /**
@@ -51,6 +52,8 @@ export function siteAndServiceInWords(s: QuoteStudySnapshot): { site: string; se
   const site = `${s.site.name}, for ${s.site.customerName}.`;
   const service = `${s.service.name}, from the ${s.service.satelliteName} satellite at ${orbitalPosition(s.service.satelliteLongitudeDeg)}${s.service.transmits ? ', sending as well as receiving' : ''}.`;
   const p = s.pointing;
-  const pointing = `From this site the dish looks ${compassWord(p.azimuthDeg)} (${p.azimuthDeg.toFixed(1)}° from true north), ${p.elevationDeg.toFixed(1)}° above the horizon; the view in that direction must be clear of trees and buildings.`;
+  // The compass bearing for the day the study was computed (World Magnetic Model 2025), beside the true one.
+  const m = studyPointing(s.site, p, new Date(s.computedAt));
+  const pointing = `From this site the dish looks ${compassWord(p.azimuthDeg)} (${p.azimuthDeg.toFixed(1)}° from true north, ${m.magneticAzimuthDeg.toFixed(1)}° on a compass: magnetic declination ${declinationWords(m.declination.declinationDeg)}, WMM2025), ${p.elevationDeg.toFixed(1)}° above the horizon; the view in that direction must be clear of trees and buildings.`;
   return { site, service, pointing };
 }

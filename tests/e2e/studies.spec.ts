@@ -16,6 +16,8 @@ const stamp = () => `${Date.now().toString(36)}${Math.floor(Math.random() * 1e4)
 
 
 test('an installer builds a study from the form and reads the trade-off', async ({ page }) => {
+  // Two axe passes over the study page (table and phone cards both in the DOM) and the list: 60 s ran out under load.
+  test.setTimeout(150_000);
   const id = stamp();
   await signIn(page, installer.email);
   await page.goto('/studies/new');
@@ -49,7 +51,7 @@ test('an installer builds a study from the form and reads the trade-off', async 
   await page.waitForURL(/\/studies\/\d+$/);
   await expect(page.getByRole('heading', { level: 1 })).toContainText(`Wrenfold Tearoom ${id}`);
   const table = page.getByRole('table', { name: 'Trade-off per dish' });
-  await expect(table.getByRole('row')).toHaveCount(4);
+  await expect(table.getByRole('rowheader')).toHaveCount(3);
   await expect(table.getByRole('rowheader').first()).toContainText('60 cm (23.6 in)');
   await expect(table).toContainText('%');
   await expect(page.getByRole('heading', { name: 'Recommendation' })).toBeVisible();

@@ -41,8 +41,9 @@ beforeAll(async () => {
 /** The rows of the study's "Trade-off per dish" table, as text, in the study's order. */
 function studyTableRows(html: string): string[] {
   const table = html.slice(html.indexOf('Trade-off per dish'));
-  const body = table.slice(table.indexOf('<tbody'), table.indexOf('</tbody>'));
-  return body.split('<tr').slice(1).map(text);
+  // One <tbody> per dish: its figures row (the one with the row header), then its link-budget line.
+  const body = table.slice(table.indexOf('<tbody'), table.indexOf('</table>'));
+  return body.split('<tr').slice(1).filter((row) => row.includes('scope="row"')).map(text);
 }
 
 /** "99.951" from "99.951 %", "> 99.999 %", "at least 99.950 %". */

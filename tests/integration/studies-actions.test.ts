@@ -49,7 +49,7 @@ const newStudy = () => ({
 });
 
 const CASES: Case[] = [
-  { name: 'createCustomer', allowed: ['admin', 'installer'], run: () => callAction(customerActions.createCustomer, { name: 'Ashgrove Cottage' }) },
+  { name: 'createCustomer', allowed: ['admin', 'installer'], run: () => callAction(customerActions.createCustomer, { name: `Ashgrove Cottage ${Math.random()}` }) },
   { name: 'updateCustomer', allowed: ['admin', 'installer'], run: () => callAction(customerActions.updateCustomer, { id: String(world.customerId), name: 'Renamed customer' }) },
   { name: 'createSite', allowed: ['admin', 'installer'], run: () => callAction(siteActions.createSite, { customerId: String(world.customerId), name: 'Gable end', latDeg: `47°07'24.4"N`, lonDeg: '2 39 15.6 E', altitudeM: '150' }) },
   { name: 'updateSite', allowed: ['admin', 'installer'], run: () => callAction(siteActions.updateSite, { id: String(world.siteId), customerId: String(world.customerId), name: 'Long barn roof', latDeg: '47.123456', lonDeg: '2.654321', altitudeM: '140' }) },

@@ -2,7 +2,7 @@ import type { Metadata } from 'next';
 import Link from 'next/link';
 import { notFound, redirect } from 'next/navigation';
 import { PageHeader } from '@/components/ui/page-header';
-import { LinkButton } from '@/components/ui/button';
+import { buttonClasses, LinkButton } from '@/components/ui/button';
 import { StudyCautions } from '@/components/study/cautions';
 import { RerunButton } from '@/components/study/rerun-button';
 import { ArchiveButton } from '@/components/study/archive-button';
@@ -43,16 +43,22 @@ export default async function StudyPage({ params }: { params: Promise<{ id: stri
         description={`${inputs.site.customerName} · ${inputs.site.name} · ${serviceWords} · target ${inputs.targetAvailabilityPercent} %`}
         actions={
           <>
-            <LinkButton href="/studies" variant="quiet">
-              All studies
-            </LinkButton>
-            {canWrite && (
-              <LinkButton href={`/studies/${study.id}/edit`} variant="secondary">
-                Edit inputs
+            <div className="flex flex-wrap items-center gap-2 print:hidden">
+              <LinkButton href="/studies" variant="quiet">
+                All studies
               </LinkButton>
-            )}
-            {canWrite && <RerunButton studyId={study.id} nextRevision={nextRevision} />}
-            {canWrite && <ArchiveButton key={study.status} studyId={study.id} archived={study.status === 'archived'} />}
+              {/* A file, not a page: a plain link so the browser downloads it instead of routing. */}
+              <a href={`/studies/${study.id}/pdf`} download className={buttonClasses('secondary')}>
+                Download PDF
+              </a>
+              {canWrite && (
+                <LinkButton href={`/studies/${study.id}/edit`} variant="secondary">
+                  Edit inputs
+                </LinkButton>
+              )}
+              {canWrite && <RerunButton studyId={study.id} nextRevision={nextRevision} />}
+              {canWrite && <ArchiveButton key={study.status} studyId={study.id} archived={study.status === 'archived'} />}
+            </div>
           </>
         }
       />
