@@ -7,8 +7,11 @@ import { ensureProviderCustomer } from './customer';
 import { ensureSellablePrice } from './plan-sync';
 import { OVERDUE_STATUSES } from './policy';
 import { getStripe, providerMessage } from './stripe';
+import { recordAudit } from '@/server/audit/record';
 
-export type BillingActor = { companyId: number; userId: string; email: string };
+export type BillingActor = { companyId: number; userId: string; email: string; name?: string };
+
+const auditWho = (actor: BillingActor) => ({ companyId: actor.companyId, actor: { id: actor.userId, name: actor.name ?? actor.email, email: actor.email } });
 
 function appUrl(path: string): string {
   return new URL(path, getEnv().APP_URL).toString();
@@ -75,6 +78,7 @@ export async function startCheckout(actor: BillingActor, planId: number): Promis
         },
         t,
       );
+      await recordAudit(auditWho(actor), { action: 'billing.checkout_started', target: plan.name, detail: { planId: plan.id, checkoutSessionId: session.id } }, t);
       return { url: session.url, sessionId: session.id };
     });
   } catch (error) {
@@ -109,7 +113,11 @@ export async function changePlan(actor: BillingActor, planId: number): Promise<{
       proration_behavior: 'create_prorations',
       metadata: { fadeledger_company_id: String(actor.companyId), fadeledger_plan_id: String(plan.id) },
     });
-    await setPendingPlan(actor.companyId, live.id, plan.id);
+    // The provider has the change; the pending plan and its audit row are written together.
+    await models().sequelize.transaction(async (t) => {
+      await setPendingPlan(actor.companyId, live.id, plan.id, t);
+      await recordAudit(auditWho(actor), { action: 'billing.plan_change_requested', target: plan.name, detail: { planId: plan.id, fromPlanId: live.planId, subscriptionId: live.providerSubscriptionId } }, t);
+    });
     return { planName: plan.name };
   } catch (error) {
     providerFailure(error);

@@ -1,5 +1,5 @@
 import type { Metadata } from 'next';
-import { requirePermission } from '@/server/auth/guards';
+import { requireStaffPermission } from '@/server/auth/guards';
 import { listAccounts } from '@/db/queries/billing';
 import { StatusBadge } from '@/components/billing/status-badge';
 import { billingDate, count } from '@/components/billing/format';
@@ -17,7 +17,7 @@ async function loadAccounts(search: string, page: number) {
 
 /** Staff: every company with its plan and subscription state (read only). */
 export default async function AccountsPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
-  await requirePermission('accounts.read');
+  await requireStaffPermission('accounts.read');
   const sp = await searchParams;
   const q = typeof sp.q === 'string' ? sp.q.slice(0, 120) : '';
   const page = Math.max(1, Number(typeof sp.page === 'string' && /^\d{1,5}$/.test(sp.page) ? sp.page : 1));
