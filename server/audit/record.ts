@@ -8,7 +8,7 @@ import type { AuditAction } from '@/db/queries/audit';
 export type AuditWho = { companyId: number | null; actor: Actor; actorLabel?: string | null; actorUserId?: string | null };
 
 /** The person of an action's context, as the audit log labels them. */
-export function actorOf(ctx: { user: { id: string; name: string; email: string } }): Actor {
+export function actorOf(ctx: { user: { id: string; name: string; email: string } }): NonNullable<Actor> {
   return { id: ctx.user.id, name: ctx.user.name, email: ctx.user.email };
 }
 

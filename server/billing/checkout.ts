@@ -1,4 +1,5 @@
 import 'server-only';
+import type { Transaction } from 'sequelize';
 import { models } from '@/db/models';
 import { findLiveSubscription, findOpenCheckouts, getCompanyBilling, getPlanById, insertCheckout, markCheckout, setPendingPlan } from '@/db/queries/billing';
 import { getEnv } from '@/server/env';
@@ -102,6 +103,24 @@ export async function changePlan(actor: BillingActor, planId: number): Promise<{
     throw new ConflictError('A payment is overdue: pay the open invoice in the billing portal before changing plan.');
   }
   if (live.planId === plan.id) throw new ConflictError(`You are already on ${plan.name}.`);
+  await moveSubscriptionAtProvider(actor.companyId, live, plan, async (t) => {
+    await recordAudit(auditWho(actor), { action: 'billing.plan_change_requested', target: plan.name, detail: { planId: plan.id, fromPlanId: live.planId, subscriptionId: live.providerSubscriptionId } }, t);
+  });
+  return { planName: plan.name };
+}
+
+/**
+ * Moves a live subscription to a paid plan at the provider (prorated) and remembers it as pending;
+ * the company's plan follows when the provider's `customer.subscription.updated` arrives. `andThen`
+ * runs in the transaction that records the pending plan (its audit row). Used by admins (billing
+ * page) and by staff (account page), so both go the same way through the provider.
+ */
+export async function moveSubscriptionAtProvider(
+  companyId: number,
+  live: { id: number; providerSubscriptionId: string },
+  plan: { id: number; name: string; kind: string } & Parameters<typeof ensureSellablePrice>[0],
+  andThen: (t: Transaction) => Promise<void>,
+): Promise<void> {
   try {
     const price = await ensureSellablePrice(plan);
     const stripe = getStripe();
@@ -111,14 +130,13 @@ export async function changePlan(actor: BillingActor, planId: number): Promise<{
     await stripe.subscriptions.update(live.providerSubscriptionId, {
       items: [{ id: item.id, price }],
       proration_behavior: 'create_prorations',
-      metadata: { fadeledger_company_id: String(actor.companyId), fadeledger_plan_id: String(plan.id) },
+      metadata: { fadeledger_company_id: String(companyId), fadeledger_plan_id: String(plan.id) },
     });
     // The provider has the change; the pending plan and its audit row are written together.
     await models().sequelize.transaction(async (t) => {
-      await setPendingPlan(actor.companyId, live.id, plan.id, t);
-      await recordAudit(auditWho(actor), { action: 'billing.plan_change_requested', target: plan.name, detail: { planId: plan.id, fromPlanId: live.planId, subscriptionId: live.providerSubscriptionId } }, t);
+      await setPendingPlan(companyId, live.id, plan.id, t);
+      await andThen(t);
     });
-    return { planName: plan.name };
   } catch (error) {
     providerFailure(error);
   }

@@ -1,4 +1,5 @@
 import type { Metadata } from 'next';
+import Link from 'next/link';
 import { requireStaffPermission } from '@/server/auth/guards';
 import { listAccounts } from '@/db/queries/billing';
 import { StatusBadge } from '@/components/billing/status-badge';
@@ -15,7 +16,7 @@ async function loadAccounts(search: string, page: number) {
   return { rows, total, now: Date.now() };
 }
 
-/** Staff: every company with its plan and subscription state (read only). */
+/** Staff: every company with its plan and subscription state; each opens its account page. */
 export default async function AccountsPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
   await requireStaffPermission('accounts.read');
   const sp = await searchParams;
@@ -53,7 +54,9 @@ export default async function AccountsPage({ searchParams }: { searchParams: Pro
               const trialOver = r.planKind === 'trial' && r.trialEndsAt && r.trialEndsAt.getTime() <= now;
               return (
                 <tr key={r.companyId} className="border-b border-stone-200 last:border-0">
-                  <th scope="row" className="px-3 py-2 text-left font-medium text-stone-900">{r.companyName}</th>
+                  <th scope="row" className="px-3 py-2 text-left font-medium text-stone-900">
+                    <Link className="text-ledger-800 underline-offset-2 hover:underline" href={`/accounts/${r.companyId}`}>{r.companyName}</Link>
+                  </th>
                   <td className="px-3 py-2">{r.planName}</td>
                   <td className="px-3 py-2">
                     {r.subscriptionStatus ? (
