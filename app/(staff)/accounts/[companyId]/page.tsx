@@ -2,7 +2,7 @@ import type { Metadata } from 'next';
 import Link from 'next/link';
 import { notFound } from 'next/navigation';
 import { PageHeader } from '@/components/ui/page-header';
-import { Card } from '@/components/ui/card';
+import { Card, CardBody, CardHeader } from '@/components/ui/card';
 import { Table, THead, TBody, Th, Td, EmptyRow } from '@/components/ui/table';
 import { UsageTable } from '@/components/billing/usage-table';
 import { StatusBadge } from '@/components/billing/status-badge';
@@ -20,8 +20,6 @@ import { getCompanyBilling } from '@/db/queries/billing';
 
 export const metadata: Metadata = { title: 'Account' };
 export const dynamic = 'force-dynamic';
-
-const h2 = 'mb-3 text-lg font-semibold text-stone-900';
 
 /**
  * Staff: one company's account — members, plan, usage against limits, subscription and checkout
@@ -60,88 +58,98 @@ export default async function AccountPage({ params }: { params: Promise<{ compan
 
       <div className="grid gap-6 lg:grid-cols-2">
         <Card>
-          <h2 className={h2}>Usage against limits</h2>
-          {limits.planId !== limits.companyPlan.id && <p className="mb-2 text-sm text-amber-800">The limits of {limits.planName} apply now (basis: {limits.basis.kind.replace(/_/g, ' ')}).</p>}
-          <UsageTable limits={limits} usage={usage} />
+          <CardHeader title="Usage against limits" />
+          <CardBody>
+            {limits.planId !== limits.companyPlan.id && <p className="mb-2 text-sm text-amber-800">The limits of {limits.planName} apply now (basis: {limits.basis.kind.replace(/_/g, ' ')}).</p>}
+            <UsageTable limits={limits} usage={usage} />
+          </CardBody>
         </Card>
         <Card>
-          <h2 className={h2}>Members</h2>
-          <p className="mb-2 text-sm text-stone-600">{count(members.length)} {members.length === 1 ? 'member' : 'members'}, {count(pending)} pending {pending === 1 ? 'invitation' : 'invitations'}.</p>
-          <ul className="divide-y divide-stone-200 text-sm">
-            {members.map((m) => (
-              <li key={m.membershipId} className="flex flex-wrap justify-between gap-2 py-2">
-                <span className="break-all">
-                  <span className="font-medium text-stone-900">{m.name}</span> <span className="text-stone-600">{m.email}</span>
-                </span>
-                <span className="text-stone-700">{ROLE_LABELS[m.role]} · since {billingDate(m.joinedAt)}</span>
-              </li>
-            ))}
-          </ul>
+          <CardHeader title="Members" />
+          <CardBody>
+            <p className="mb-2 text-sm text-stone-600">{count(members.length)} {members.length === 1 ? 'member' : 'members'}, {count(pending)} pending {pending === 1 ? 'invitation' : 'invitations'}.</p>
+            <ul className="divide-y divide-stone-200 text-sm">
+              {members.map((m) => (
+                <li key={m.membershipId} className="flex flex-wrap justify-between gap-2 py-2">
+                  <span className="break-all">
+                    <span className="font-medium text-stone-900">{m.name}</span> <span className="text-stone-600">{m.email}</span>
+                  </span>
+                  <span className="text-stone-700">{ROLE_LABELS[m.role]} · since {billingDate(m.joinedAt)}</span>
+                </li>
+              ))}
+            </ul>
+          </CardBody>
         </Card>
       </div>
 
       <div className="grid gap-6 lg:grid-cols-2">
         <Card>
-          <h2 className={h2}>Extend the trial</h2>
-          {onTrial ? (
-            <ExtendTrialForm companyId={companyId} />
-          ) : (
-            <p className="text-sm text-stone-600">{company.name} is not on a trial plan. Change its plan instead.</p>
-          )}
+          <CardHeader title="Extend the trial" />
+          <CardBody>
+            {onTrial ? (
+              <ExtendTrialForm companyId={companyId} />
+            ) : (
+              <p className="text-sm text-stone-600">{company.name} is not on a trial plan. Change its plan instead.</p>
+            )}
+          </CardBody>
         </Card>
         <Card>
-          <h2 className={h2}>Change the plan</h2>
-          {subscription?.pendingPlan && <p className="mb-2 text-sm text-amber-800">Waiting for the provider to confirm the move to {subscription.pendingPlan.name}.</p>}
-          <ChangePlanForm companyId={companyId} plans={planOptions} paysThroughProvider={paysThroughProvider} />
+          <CardHeader title="Change the plan" />
+          <CardBody>
+            {subscription?.pendingPlan && <p className="mb-2 text-sm text-amber-800">Waiting for the provider to confirm the move to {subscription.pendingPlan.name}.</p>}
+            <ChangePlanForm companyId={companyId} plans={planOptions} paysThroughProvider={paysThroughProvider} />
+          </CardBody>
         </Card>
       </div>
 
       <Card>
-        <h2 className={h2}>Subscriptions at the payment provider</h2>
-        <div className="overflow-x-auto">
-          <Table caption="Subscriptions">
-            <THead>
-              <tr>
-                <Th>Started</Th>
-                <Th>Plan</Th>
-                <Th>Status</Th>
-                <Th>Period end</Th>
-                <Th className="hidden sm:table-cell">Provider id</Th>
-              </tr>
-            </THead>
-            <TBody>
-              {subscriptions.length === 0 && <EmptyRow colSpan={5}>No subscription yet.</EmptyRow>}
-              {subscriptions.map((s) => (
-                <tr key={s.id}>
-                  <Td className="font-mono text-xs">{billingDate(s.createdAt)}</Td>
-                  <Td>{s.planName ?? '—'}</Td>
-                  <Td>
-                    <StatusBadge status={s.status} label={s.cancelAtPeriodEnd && s.status === 'active' ? 'Active · cancels' : undefined} />
-                  </Td>
-                  <Td className="font-mono text-xs">{billingDate(s.endedAt ?? s.currentPeriodEnd)}</Td>
-                  <Td className="hidden break-all font-mono text-xs sm:table-cell">{s.providerSubscriptionId}</Td>
+        <CardHeader title="Subscriptions at the payment provider" />
+        <CardBody>
+          <div className="overflow-x-auto">
+            <Table caption="Subscriptions">
+              <THead>
+                <tr>
+                  <Th>Started</Th>
+                  <Th>Plan</Th>
+                  <Th>Status</Th>
+                  <Th>Period end</Th>
+                  <Th className="hidden sm:table-cell">Provider id</Th>
                 </tr>
+              </THead>
+              <TBody>
+                {subscriptions.length === 0 && <EmptyRow colSpan={5}>No subscription yet.</EmptyRow>}
+                {subscriptions.map((s) => (
+                  <tr key={s.id}>
+                    <Td className="font-mono text-xs">{billingDate(s.createdAt)}</Td>
+                    <Td>{s.planName ?? '—'}</Td>
+                    <Td>
+                      <StatusBadge status={s.status} label={s.cancelAtPeriodEnd && s.status === 'active' ? 'Active · cancels' : undefined} />
+                    </Td>
+                    <Td className="font-mono text-xs">{billingDate(s.endedAt ?? s.currentPeriodEnd)}</Td>
+                    <Td className="hidden break-all font-mono text-xs sm:table-cell">{s.providerSubscriptionId}</Td>
+                  </tr>
+                ))}
+              </TBody>
+            </Table>
+          </div>
+          <h3 className="mt-5 mb-2 text-sm font-semibold text-stone-900">Checkouts</h3>
+          {checkouts.length === 0 ? (
+            <p className="text-sm text-stone-600">No checkout opened.</p>
+          ) : (
+            <ul className="text-sm text-stone-700">
+              {checkouts.map((c) => (
+                <li key={c.id}>
+                  {billingDate(c.createdAt)} · {c.planName ?? 'a removed plan'} · {c.status}
+                  {c.completedAt ? ` on ${billingDate(c.completedAt)}` : ''}
+                </li>
               ))}
-            </TBody>
-          </Table>
-        </div>
-        <h3 className="mt-5 mb-2 text-sm font-semibold text-stone-900">Checkouts</h3>
-        {checkouts.length === 0 ? (
-          <p className="text-sm text-stone-600">No checkout opened.</p>
-        ) : (
-          <ul className="text-sm text-stone-700">
-            {checkouts.map((c) => (
-              <li key={c.id}>
-                {billingDate(c.createdAt)} · {c.planName ?? 'a removed plan'} · {c.status}
-                {c.completedAt ? ` on ${billingDate(c.completedAt)}` : ''}
-              </li>
-            ))}
-          </ul>
-        )}
+            </ul>
+          )}
+        </CardBody>
       </Card>
 
       <Card>
-        <h2 className={h2}>Plan and billing events</h2>
+        <CardHeader title="Plan and billing events" description="Operator actions and the payment provider’s changes; the company’s admins see the same rows in their audit log." />
         <AuditTable events={events} caption="Plan and billing events of this company" empty="No plan or billing events yet." />
       </Card>
     </div>
