@@ -30,6 +30,9 @@ const nextConfig = {
     ];
   },
   experimental: {
+    // forbidden() and app/forbidden.tsx: a signed-in person without the permission for a page gets
+    // a 403 that names their role (server/auth/guards.ts requirePermission), not a 404.
+    authInterrupts: true,
     // Keep equal to ACTION_BODY_LIMIT_BYTES in server/http/request-checks.ts (proxy.ts answers 413 above it).
     serverActions: { bodySizeLimit: '4mb' },
     // What Next copies of a request body for proxy.ts. Above the 4 MB action limit, so the proxy

@@ -27,6 +27,27 @@ export const AUDIT_LABELS: Record<AuditAction, string> = {
   'api_key.revoked': 'Revoked the API key',
   'webhook.created': 'Registered the webhook endpoint',
   'webhook.removed': 'Removed the webhook endpoint',
+  'billing.checkout_started': 'Opened a checkout for the plan',
+  'billing.plan_change_requested': 'Asked the payment provider to move the subscription to',
+  'billing.plan_changed': 'Plan changed to',
+  'billing.subscription_status': 'Subscription status changed',
+  'billing.payment_failed': 'A payment attempt failed',
+  'catalogue.dish_created': 'Added the dish',
+  'catalogue.dish_updated': 'Edited the dish',
+  'catalogue.dish_deleted': 'Removed the dish',
+  'service.created': 'Added the service profile',
+  'service.updated': 'Edited the service profile',
+  'service.deleted': 'Deleted the service profile',
+  'upload.confirmed': 'Saved the uploaded file',
+  'study.archived': 'Archived the study',
+  'study.restored': 'Restored the study',
+  'share_link.created': 'Created a customer link for',
+  'share_link.revoked': 'Revoked a customer link for',
+  'quote.accepted': 'Accepted',
+  'quote.declined': 'Declined',
+  'staff.trial_extended': 'FadeLedger staff extended the trial',
+  'staff.plan_changed': 'FadeLedger staff changed the plan to',
+  'staff.plan_change_requested': 'FadeLedger staff asked the payment provider to move the subscription to',
 };
 
 /** A short, human description of a browser from its User-Agent (no library: only the big names). */
@@ -47,6 +68,17 @@ export function describeDetail(action: AuditAction, detail: Record<string, unkno
   if (action === 'member.role_changed' && detail.fromLabel && detail.toLabel) return `${detail.fromLabel} → ${detail.toLabel}`;
   if ((action === 'member.invited' || action === 'invitation.accepted') && typeof detail.role === 'string') return `as ${detail.role}`;
   if (action === 'company.created' && typeof detail.plan === 'string') return `plan ${detail.plan}`;
+  if (typeof detail.reason === 'string' && action.startsWith('staff.')) {
+    const until = typeof detail.trialEndsAt === 'string' ? `until ${detail.trialEndsAt.slice(0, 10)}, ` : '';
+    return `${until}reason: ${detail.reason}`;
+  }
+  if (action === 'catalogue.dish_updated' && detail.hardwarePrice && typeof detail.hardwarePrice === 'object') {
+    const p = detail.hardwarePrice as { from?: string; to?: string };
+    return `hardware price ${p.from} → ${p.to}`;
+  }
+  if (action === 'billing.subscription_status' && typeof detail.to === 'string') return `${detail.from ?? 'new'} → ${detail.to}`;
+  if (action === 'upload.confirmed' && typeof detail.kind === 'string') return detail.kind;
+  if ((action === 'quote.accepted' || action === 'quote.declined') && typeof detail.via === 'string') return `through ${detail.via}`;
   if (action === 'session.signed_out_everywhere' && typeof detail.sessions === 'number') return `${detail.sessions} ${detail.sessions === 1 ? 'session' : 'sessions'}`;
   return '';
 }

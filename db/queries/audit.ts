@@ -27,7 +27,28 @@ export type AuditAction =
   | 'api_key.created'
   | 'api_key.revoked'
   | 'webhook.created'
-  | 'webhook.removed';
+  | 'webhook.removed'
+  | 'billing.checkout_started'
+  | 'billing.plan_change_requested'
+  | 'billing.plan_changed'
+  | 'billing.subscription_status'
+  | 'billing.payment_failed'
+  | 'catalogue.dish_created'
+  | 'catalogue.dish_updated'
+  | 'catalogue.dish_deleted'
+  | 'service.created'
+  | 'service.updated'
+  | 'service.deleted'
+  | 'upload.confirmed'
+  | 'study.archived'
+  | 'study.restored'
+  | 'share_link.created'
+  | 'share_link.revoked'
+  | 'quote.accepted'
+  | 'quote.declined'
+  | 'staff.trial_extended'
+  | 'staff.plan_changed'
+  | 'staff.plan_change_requested';
 
 export type AuditEventInput = {
   companyId: number | null;
@@ -70,22 +91,53 @@ export type AuditEntry = {
   userAgent: string | null;
 };
 
+export type AuditFilter = {
+  /** Action name prefixes ('billing.', 'session.'…); empty or absent: every action. */
+  prefixes?: readonly string[];
+  /** Part of the actor's name or address (case-insensitive). */
+  actor?: string;
+  /** Inclusive UTC bounds. */
+  from?: Date;
+  to?: Date;
+};
+
 /**
  * A company's log, newest first: its own events, plus the personal security events (sign-in
- * failures, password resets) of people who are members now.
+ * failures, password resets) of people who are members now. Paged by id (`beforeId`), so an
+ * export can walk the whole log without OFFSET scans.
  */
-export async function listAuditEventsForCompany(companyId: number, opts: { limit?: number; beforeId?: number } = {}): Promise<AuditEntry[]> {
+export async function listAuditEventsForCompany(companyId: number, opts: { limit?: number; beforeId?: number } & AuditFilter = {}): Promise<AuditEntry[]> {
   const { sequelize } = models();
-  const limit = Math.min(Math.max(opts.limit ?? 100, 1), 500);
+  const limit = Math.min(Math.max(opts.limit ?? 100, 1), 1000);
+  const replacements: Record<string, unknown> = { companyId, beforeId: opts.beforeId ?? null };
+  const where: string[] = [];
+  const prefixes = (opts.prefixes ?? []).filter((p) => /^[a-z_]+\.$/.test(p));
+  if (prefixes.length > 0) {
+    where.push(`(${prefixes.map((_, i) => `action LIKE :prefix${i}`).join(' OR ')})`);
+    prefixes.forEach((p, i) => (replacements[`prefix${i}`] = `${p}%`));
+  }
+  if (opts.actor) {
+    where.push("actor_label LIKE :actor ESCAPE '!'");
+    replacements.actor = `%${opts.actor.replace(/[!%_]/g, (c) => `!${c}`)}%`;
+  }
+  if (opts.from) {
+    where.push('created_at >= :from');
+    replacements.from = opts.from;
+  }
+  if (opts.to) {
+    where.push('created_at <= :to');
+    replacements.to = opts.to;
+  }
   const rows = await sequelize.query<Record<string, unknown>>(
     `SELECT id, created_at, action, actor_label, target_label, detail, ip, user_agent
        FROM audit_events
       WHERE (company_id = :companyId
              OR (company_id IS NULL AND subject_user_id IN (SELECT user_id FROM memberships WHERE company_id = :companyId)))
         AND (:beforeId IS NULL OR id < :beforeId)
+        ${where.map((w) => `AND ${w}`).join('\n        ')}
       ORDER BY id DESC
       LIMIT ${limit}`,
-    { replacements: { companyId, beforeId: opts.beforeId ?? null }, type: QueryTypes.SELECT },
+    { replacements, type: QueryTypes.SELECT },
   );
   return rows.map(toEntry);
 }

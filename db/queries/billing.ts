@@ -236,9 +236,9 @@ export async function updateSubscription(id: number, values: Partial<Subscriptio
 }
 
 /** Remembers the plan an admin asked to move to until the provider confirms it. */
-export async function setPendingPlan(companyId: number, subscriptionId: number, planId: number): Promise<void> {
+export async function setPendingPlan(companyId: number, subscriptionId: number, planId: number, t?: Transaction): Promise<void> {
   const { Subscription } = models();
-  await Subscription.update({ pendingPlanId: planId }, { where: { id: subscriptionId, companyId } });
+  await Subscription.update({ pendingPlanId: planId }, { where: { id: subscriptionId, companyId }, transaction: t });
 }
 
 // ---- checkouts -------------------------------------------------------------------------------

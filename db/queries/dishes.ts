@@ -78,7 +78,7 @@ export async function upsertDishesByName(companyId: number, rows: DishColumnsInp
   return { added, updated };
 }
 
-export async function deleteDish(companyId: number, id: number): Promise<boolean> {
+export async function deleteDish(companyId: number, id: number, t?: Transaction): Promise<boolean> {
   const { Dish } = models();
-  return (await Dish.destroy({ where: { id, companyId } })) > 0;
+  return (await Dish.destroy({ where: { id, companyId }, transaction: t })) > 0;
 }

@@ -4,6 +4,7 @@ import { QueryTypes, type Transaction } from 'sequelize';
 import { models } from '../models';
 import type { CompanyLock } from './company-lock';
 import type { QuoteEventKind } from '../models/quote-event';
+import { auditQuoteEvent } from '@/server/audit/quote-events';
 import type { Paged } from '@/server/validation/paging';
 import type { QuoteOptionSnapshot, QuoteStudySnapshot } from '@/server/quotes/snapshot';
 import { OPEN_STATUSES, QUOTE_STATUSES, type QuoteStatus } from '@/server/quotes/status';
@@ -345,6 +346,7 @@ export async function insertQuoteEvent(e: QuoteEventInput, t?: Transaction): Pro
     },
     { transaction: t },
   );
+  await auditQuoteEvent(e, t);
 }
 
 export interface QuoteEventItem {

@@ -40,16 +40,16 @@ export async function createServiceProfile(companyId: number, input: ServiceProf
   return ServiceProfile.create({ companyId, ...columnsOf(input) }, { transaction: t });
 }
 
-export async function updateServiceProfile(companyId: number, id: number, input: ServiceProfileInput): Promise<boolean> {
+export async function updateServiceProfile(companyId: number, id: number, input: ServiceProfileInput, t?: Transaction): Promise<boolean> {
   const { ServiceProfile } = models();
-  const row = await ServiceProfile.findOne({ where: { id, companyId } });
+  const row = await ServiceProfile.findOne({ where: { id, companyId }, transaction: t });
   if (!row) return false;
-  await row.update(columnsOf(input));
+  await row.update(columnsOf(input), { transaction: t });
   return true;
 }
 
 /** Studies keep their own copy of the profile, so deleting one only unlinks them. */
-export async function deleteServiceProfile(companyId: number, id: number): Promise<boolean> {
+export async function deleteServiceProfile(companyId: number, id: number, t?: Transaction): Promise<boolean> {
   const { ServiceProfile } = models();
-  return (await ServiceProfile.destroy({ where: { id, companyId } })) > 0;
+  return (await ServiceProfile.destroy({ where: { id, companyId }, transaction: t })) > 0;
 }

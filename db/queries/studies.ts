@@ -170,10 +170,10 @@ export async function getStudyServices(companyId: number, id: number, t?: Transa
  * Archives or restores a study: only its status changes; the input and result snapshots are
  * never written here. False when this company has no study with that id.
  */
-export async function setStudyArchived(companyId: number, id: number, archived: boolean): Promise<boolean> {
+export async function setStudyArchived(companyId: number, id: number, archived: boolean, t?: Transaction): Promise<boolean> {
   const { Study } = models();
-  const [n] = await Study.update({ status: archived ? 'archived' : 'ready' }, { where: { id, companyId }, fields: ['status'] });
-  return n > 0 || (await Study.count({ where: { id, companyId } })) > 0;
+  const [n] = await Study.update({ status: archived ? 'archived' : 'ready' }, { where: { id, companyId }, fields: ['status'], transaction: t });
+  return n > 0 || (await Study.count({ where: { id, companyId }, transaction: t })) > 0;
 }
 
 export interface NewStudyRow {

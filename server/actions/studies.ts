@@ -8,6 +8,24 @@ import { rerunStudy as rerun } from '@/server/studies/rerun-study';
 import { reviseStudy as revise } from '@/server/studies/revise-study';
 import { setStudyArchived } from '@/db/queries/studies';
 import { NotFoundError } from '@/server/errors';
+import { models } from '@/db/models';
+import { actorOf, recordAudit } from '@/server/audit/record';
+import type { CompanyAuthContext } from '@/server/auth/guards';
+
+/** Archive or restore with its audit row in one transaction; a study already in that state writes no row. */
+async function archiveAudited(ctx: CompanyAuthContext, id: number, archived: boolean): Promise<boolean> {
+  const { sequelize, Study } = models();
+  return sequelize.transaction(async (t) => {
+    const before = await Study.findOne({ where: { id, companyId: ctx.companyId }, attributes: ['id', 'title', 'status', 'revision'], transaction: t, lock: t.LOCK.UPDATE });
+    if (!before) return false;
+    const changed = (before.status === 'archived') !== archived;
+    await setStudyArchived(ctx.companyId, id, archived, t);
+    if (changed) {
+      await recordAudit({ companyId: ctx.companyId, actor: actorOf(ctx) }, { action: archived ? 'study.archived' : 'study.restored', target: before.title, detail: { studyId: id, revision: before.revision } }, t);
+    }
+    return true;
+  });
+}
 
 /** Returns the new study's id; the form navigates to it (no redirect, so tests and scripts can call it too). */
 export const createStudy = safeAction({ schema: newStudySchema, permission: 'study.write' }, async (input, ctx) => {
@@ -32,7 +50,7 @@ export const rerunStudy = safeAction({ schema: studyIdSchema, permission: 'study
 
 /** Takes a study out of the default list; its snapshots (and any quote made from it) stay as they were. */
 export const archiveStudy = safeAction({ schema: studyIdSchema, permission: 'study.write' }, async (input, ctx) => {
-  if (!(await setStudyArchived(ctx.companyId, input.id, true))) throw new NotFoundError('That study');
+  if (!(await archiveAudited(ctx, input.id, true))) throw new NotFoundError('That study');
   revalidatePath('/studies');
   revalidatePath(`/studies/${input.id}`);
   return { data: { id: input.id }, message: 'Study archived. It no longer shows in the studies list unless archived studies are shown.' };
@@ -40,7 +58,7 @@ export const archiveStudy = safeAction({ schema: studyIdSchema, permission: 'stu
 
 /** Puts an archived study back in the list. */
 export const unarchiveStudy = safeAction({ schema: studyIdSchema, permission: 'study.write' }, async (input, ctx) => {
-  if (!(await setStudyArchived(ctx.companyId, input.id, false))) throw new NotFoundError('That study');
+  if (!(await archiveAudited(ctx, input.id, false))) throw new NotFoundError('That study');
   revalidatePath('/studies');
   revalidatePath(`/studies/${input.id}`);
   return { data: { id: input.id }, message: 'Study restored to the list.' };

@@ -6,6 +6,7 @@ import { catalogueConfirmSchema, cataloguePreviewSchema, climateConfirmSchema, c
 import { confirmUpload, previewUpload } from '@/server/uploads/confirm-upload';
 import { can, type Role } from '@/server/auth/permissions';
 import { ForbiddenError } from '@/server/errors';
+import { actorOf } from '@/server/audit/record';
 
 /**
  * CSV uploads: the dish catalogue belongs to 'catalogue.write', climate files to 'climate.write';
@@ -25,7 +26,7 @@ export const previewCatalogueUpload = safeAction({ schema: cataloguePreviewSchem
 
 export const confirmCatalogueUpload = safeAction({ schema: catalogueConfirmSchema, permission: 'catalogue.write' }, async (input, ctx) => {
   requireUploads(ctx.role);
-  const outcome = await confirmUpload({ companyId: ctx.companyId, userId: ctx.user.id }, { ...input, name: null, sourceNote: null, zeroIsothermKm: undefined });
+  const outcome = await confirmUpload({ companyId: ctx.companyId, userId: ctx.user.id, person: actorOf(ctx) }, { ...input, name: null, sourceNote: null, zeroIsothermKm: undefined });
   revalidatePath('/dishes');
   const added = outcome.kind === 'dish-catalogue' ? outcome.added : 0;
   const updated = outcome.kind === 'dish-catalogue' ? outcome.updated : 0;
@@ -40,7 +41,7 @@ export const previewClimateUpload = safeAction({ schema: climatePreviewSchema, p
 
 export const confirmClimateUpload = safeAction({ schema: climateConfirmSchema, permission: 'climate.write' }, async (input, ctx) => {
   requireUploads(ctx.role);
-  const outcome = await confirmUpload({ companyId: ctx.companyId, userId: ctx.user.id }, input);
+  const outcome = await confirmUpload({ companyId: ctx.companyId, userId: ctx.user.id, person: actorOf(ctx) }, input);
   revalidatePath('/climate');
   return { data: outcome, message: `Climate profile ${input.name} saved from ${input.file.name}. The file is kept with its report.` };
 });

@@ -1,7 +1,7 @@
 import 'server-only';
 import type { Transaction } from 'sequelize';
 import { insertAuditEvent, type AuditAction } from '@/db/queries/audit';
-import type { RequestMeta } from './request-meta';
+import { currentRequestMeta, type RequestMeta } from './request-meta';
 
 export type Actor = { id: string; name: string; email: string } | null;
 
@@ -10,6 +10,9 @@ export async function audit(
   event: {
     companyId: number | null;
     actor: Actor;
+    /** For actors without an account (a customer through a link, the payment provider). */
+    actorLabel?: string | null;
+    actorUserId?: string | null;
     action: AuditAction;
     subjectUserId?: string | null;
     target?: string | null;
@@ -21,13 +24,15 @@ export async function audit(
   await insertAuditEvent(
     {
       companyId: event.companyId,
-      actorUserId: event.actor?.id ?? null,
-      actorLabel: event.actor ? `${event.actor.name} <${event.actor.email}>` : null,
+      actorUserId: event.actor?.id ?? event.actorUserId ?? null,
+      actorLabel: event.actor ? `${event.actor.name} <${event.actor.email}>` : (event.actorLabel ?? null),
       action: event.action,
       subjectUserId: event.subjectUserId ?? null,
       targetLabel: event.target ?? null,
       detail: event.detail ?? null,
-      ip: meta.ip,
+      // Callers pass the throttling meta, whose address is null without TRUST_PROXY; the log
+      // then takes the connection's address (auditAddressFrom), which is fine for a record.
+      ip: meta.ip ?? (await currentRequestMeta()).ip,
       userAgent: meta.userAgent,
     },
     t,

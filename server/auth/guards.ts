@@ -1,6 +1,6 @@
 import 'server-only';
 import { cache } from 'react';
-import { redirect, notFound } from 'next/navigation';
+import { redirect, notFound, forbidden } from 'next/navigation';
 import { ForbiddenError, UnauthenticatedError } from '@/server/errors';
 import { findMembership, firstMembership } from '@/db/queries/team';
 import { setSessionActiveCompany } from '@/db/queries/sessions';
@@ -81,11 +81,26 @@ export async function requireRole(...roles: Role[]): Promise<AuthContext> {
   return ctx;
 }
 
-/** Pages: the permission, else a 404. Company permissions yield a company-scoped context. */
+/**
+ * Pages: the permission, else a 403 page naming the role and who can grant access (forbidden()
+ * renders app/forbidden.tsx). The page itself is no secret — every member sees it in the menu
+ * of the roles that have it — so a 404 only confused people. Rows of another company still
+ * answer 404 in the pages that read them. Company permissions yield a company-scoped context.
+ */
 export async function requirePermission<P extends Permission>(permission: P): Promise<ContextFor<P>> {
   const ctx = await requireUser();
-  if (!can(ctx.role, permission)) notFound();
+  if (!can(ctx.role, permission)) forbidden();
   return ctx as ContextFor<P>;
+}
+
+/**
+ * Staff pages: the staff permission, else a 404 — the operator's area stays hidden from company
+ * members (unlike company pages, which answer 403 with the role message).
+ */
+export async function requireStaffPermission<P extends Permission>(permission: P): Promise<AuthContext> {
+  const ctx = await requireUser();
+  if (ctx.role !== 'staff' || !can(ctx.role, permission)) notFound();
+  return ctx;
 }
 
 /** Pages inside the company app: a company member (staff are sent to their own pages). */

@@ -40,6 +40,8 @@ export const PERMISSIONS = {
   'webhook.manage': ADMIN,
   'plans.manage': STAFF,
   'accounts.read': STAFF,
+  // Operator actions on a company's account: extend a trial, change its plan (each with a reason, audited).
+  'accounts.manage': STAFF,
 } as const satisfies Record<string, readonly Role[]>;
 
 export type Permission = keyof typeof PERMISSIONS;

@@ -3,6 +3,7 @@ import type { Transaction } from 'sequelize';
 import { findSubscriptionByProviderId, updateSubscription } from '@/db/queries/billing';
 import type { ApplyOutcome } from './apply-subscription';
 import type { ProviderInvoice } from './provider-objects';
+import { recordAudit } from '@/server/audit/record';
 
 /**
  * invoice.payment_failed / invoice.paid: remembered for the banner ("the last payment attempt
@@ -16,7 +17,10 @@ export async function applyInvoiceEvent(kind: 'paid' | 'payment_failed', invoice
   const at = new Date(observedAt * 1000);
   const last = row.lastPaymentFailedAt;
   if (kind === 'payment_failed') {
-    if (!last || last.getTime() < at.getTime()) await updateSubscription(row.id, { lastPaymentFailedAt: at }, t);
+    if (!last || last.getTime() < at.getTime()) {
+      await updateSubscription(row.id, { lastPaymentFailedAt: at }, t);
+      await recordAudit({ companyId: row.companyId, actor: null, actorLabel: 'Payment provider' }, { action: 'billing.payment_failed', detail: { subscriptionId: invoice.subscriptionId } }, t);
+    }
     return 'applied';
   }
   // A payment that succeeded after the last failure clears it; an older one is stale.

@@ -16,6 +16,10 @@ import { ENDED_STATUSES, LIVE_STATUSES, OVERDUE_STATUSES, graceEndFrom } from '.
 import { reshapeSubscription, type ProviderSubscription } from './provider-objects';
 import { resolveCompany } from './resolve-company';
 import { getStripe } from './stripe';
+import { recordAudit } from '@/server/audit/record';
+
+/** Changes the provider reports have no person behind them. */
+const PROVIDER = (companyId: number) => ({ companyId, actor: null, actorLabel: 'Payment provider' });
 
 export type ApplyOutcome = 'applied' | 'stale' | 'unmatched_company' | 'unknown_plan' | 'unmatched_subscription';
 
@@ -79,15 +83,22 @@ export async function applySubscription(
     lastEventCreated: Math.max(observedAt, row?.lastEventCreated ?? 0),
   };
   const saved = row ? (await updateSubscription(row.id, values, t), row.id) : (await insertSubscription(values, t)).id;
+  if (!row || row.status !== sub.status) {
+    await recordAudit(PROVIDER(company.id), { action: 'billing.subscription_status', target: null, detail: { subscriptionId: sub.id, from: row?.status ?? null, to: sub.status } }, t);
+  }
 
+  const planChanged = async (to: { id: number; name: string }) => {
+    await setCompanyPlan(company.id, to.id, t);
+    await recordAudit(PROVIDER(company.id), { action: 'billing.plan_changed', target: to.name, detail: { planId: to.id, fromPlanId: company.planId, subscriptionId: sub.id } }, t);
+  };
   if (isIn(LIVE_STATUSES, sub.status)) {
-    if (planId != null && company.planId !== planId) await setCompanyPlan(company.id, planId, t);
+    if (planId != null && company.planId !== planId) await planChanged(plan ?? (await getPlanById(planId, t))!);
   } else if (ended) {
     // Back to the free tier, unless another live subscription (a second checkout) still governs.
     const others = await countOtherLiveSubscriptions(company.id, saved, t);
     if (others === 0) {
       const free = await getFreeTierPlan(t);
-      if (free && company.planId !== free.id) await setCompanyPlan(company.id, free.id, t);
+      if (free && company.planId !== free.id) await planChanged(free);
     }
   }
   return plan || row?.planId ? 'applied' : 'unknown_plan';

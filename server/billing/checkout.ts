@@ -1,4 +1,5 @@
 import 'server-only';
+import type { Transaction } from 'sequelize';
 import { models } from '@/db/models';
 import { findLiveSubscription, findOpenCheckouts, getCompanyBilling, getPlanById, insertCheckout, markCheckout, setPendingPlan } from '@/db/queries/billing';
 import { getEnv } from '@/server/env';
@@ -7,8 +8,11 @@ import { ensureProviderCustomer } from './customer';
 import { ensureSellablePrice } from './plan-sync';
 import { OVERDUE_STATUSES } from './policy';
 import { getStripe, providerMessage } from './stripe';
+import { recordAudit } from '@/server/audit/record';
 
-export type BillingActor = { companyId: number; userId: string; email: string };
+export type BillingActor = { companyId: number; userId: string; email: string; name?: string };
+
+const auditWho = (actor: BillingActor) => ({ companyId: actor.companyId, actor: { id: actor.userId, name: actor.name ?? actor.email, email: actor.email } });
 
 function appUrl(path: string): string {
   return new URL(path, getEnv().APP_URL).toString();
@@ -75,6 +79,7 @@ export async function startCheckout(actor: BillingActor, planId: number): Promis
         },
         t,
       );
+      await recordAudit(auditWho(actor), { action: 'billing.checkout_started', target: plan.name, detail: { planId: plan.id, checkoutSessionId: session.id } }, t);
       return { url: session.url, sessionId: session.id };
     });
   } catch (error) {
@@ -98,6 +103,24 @@ export async function changePlan(actor: BillingActor, planId: number): Promise<{
     throw new ConflictError('A payment is overdue: pay the open invoice in the billing portal before changing plan.');
   }
   if (live.planId === plan.id) throw new ConflictError(`You are already on ${plan.name}.`);
+  await moveSubscriptionAtProvider(actor.companyId, live, plan, async (t) => {
+    await recordAudit(auditWho(actor), { action: 'billing.plan_change_requested', target: plan.name, detail: { planId: plan.id, fromPlanId: live.planId, subscriptionId: live.providerSubscriptionId } }, t);
+  });
+  return { planName: plan.name };
+}
+
+/**
+ * Moves a live subscription to a paid plan at the provider (prorated) and remembers it as pending;
+ * the company's plan follows when the provider's `customer.subscription.updated` arrives. `andThen`
+ * runs in the transaction that records the pending plan (its audit row). Used by admins (billing
+ * page) and by staff (account page), so both go the same way through the provider.
+ */
+export async function moveSubscriptionAtProvider(
+  companyId: number,
+  live: { id: number; providerSubscriptionId: string },
+  plan: { id: number; name: string; kind: string } & Parameters<typeof ensureSellablePrice>[0],
+  andThen: (t: Transaction) => Promise<void>,
+): Promise<void> {
   try {
     const price = await ensureSellablePrice(plan);
     const stripe = getStripe();
@@ -107,10 +130,13 @@ export async function changePlan(actor: BillingActor, planId: number): Promise<{
     await stripe.subscriptions.update(live.providerSubscriptionId, {
       items: [{ id: item.id, price }],
       proration_behavior: 'create_prorations',
-      metadata: { fadeledger_company_id: String(actor.companyId), fadeledger_plan_id: String(plan.id) },
+      metadata: { fadeledger_company_id: String(companyId), fadeledger_plan_id: String(plan.id) },
     });
-    await setPendingPlan(actor.companyId, live.id, plan.id);
-    return { planName: plan.name };
+    // The provider has the change; the pending plan and its audit row are written together.
+    await models().sequelize.transaction(async (t) => {
+      await setPendingPlan(companyId, live.id, plan.id, t);
+      await andThen(t);
+    });
   } catch (error) {
     providerFailure(error);
   }

@@ -84,8 +84,8 @@ test('sales reads studies but has no form, and the pages pass axe', async ({ pag
   await expect(page.getByRole('button', { name: /Re-run/ })).toHaveCount(0);
   expect(await seriousViolations(page)).toEqual([]);
   // The page itself refuses (the server check, not only the hidden button).
-  await page.goto('/studies/new');
-  await expect(page.getByRole('heading', { name: 'We could not find that page' })).toBeVisible();
+  expect((await page.goto('/studies/new'))?.status()).toBe(403);
+  await expect(page.getByRole('heading', { name: 'Not available to your role' })).toBeVisible();
   await expect(page.getByRole('form', { name: 'New study' })).toHaveCount(0);
 });
 

@@ -147,6 +147,13 @@ describe('checkout → webhooks → active plan → change → failed renewal �
     for (const e of await eventsAbout([subId], ['customer.subscription.deleted'])) await deliver(e);
     expect(await subscriptionRow(subId)).toMatchObject({ status: 'canceled' });
     expect(await companyPlanId(company.id)).toBe(benchId);
+    // The audit log tells the same story: the admin's checkout and plan change, the provider's
+    // status moves, plan changes and the failed payment (the webhook's rows in its transaction).
+    const logged = (await models().AuditEvent.findAll({ where: { companyId: company.id }, order: [['id', 'ASC']] })).map((e) => e.action);
+    expect(logged).toEqual(expect.arrayContaining(['billing.checkout_started', 'billing.plan_change_requested', 'billing.payment_failed', 'billing.subscription_status', 'billing.plan_changed']));
+    const planRows = await models().AuditEvent.findAll({ where: { companyId: company.id, action: 'billing.plan_changed' }, order: [['id', 'ASC']] });
+    expect(planRows.map((r) => r.targetLabel)).toEqual([crewLike.name, fleetLike.name, (await models().Plan.findByPk(benchId))!.name]);
+    expect(planRows.every((r) => r.actorLabel === 'Payment provider' && r.actorUserId === null)).toBe(true);
     // Every event of this subscription was stored once, however often it was delivered.
     const { WebhookEvent } = models();
     const ids = (await eventsAbout([sessionId, subId])).filter((e) => isHandledEventType(e.type)).map((e) => e.id);

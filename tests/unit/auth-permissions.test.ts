@@ -10,7 +10,7 @@ const EXPECTED: Record<Role, Permission[]> = {
   admin: ['study.read', 'study.write', 'quote.read', 'quote.write', 'quote.share', 'customer.read', 'customer.write', 'service.write', 'catalogue.write', 'climate.write', 'upload.create', 'tradeoff.api', 'team.read', 'team.manage', 'billing.manage', 'branding.manage', 'audit.read', 'apikey.manage', 'webhook.manage'],
   installer: ['study.read', 'study.write', 'quote.read', 'quote.write', 'quote.share', 'customer.read', 'customer.write', 'service.write', 'upload.create', 'tradeoff.api'],
   sales: ['study.read', 'quote.read', 'quote.share', 'customer.read'],
-  staff: ['plans.manage', 'accounts.read'],
+  staff: ['plans.manage', 'accounts.read', 'accounts.manage'],
 };
 
 describe('permission map', () => {

@@ -1,5 +1,6 @@
 import type { Metadata } from 'next';
-import { requirePermission } from '@/server/auth/guards';
+import Link from 'next/link';
+import { requireStaffPermission } from '@/server/auth/guards';
 import { listAccounts } from '@/db/queries/billing';
 import { StatusBadge } from '@/components/billing/status-badge';
 import { billingDate, count } from '@/components/billing/format';
@@ -15,9 +16,9 @@ async function loadAccounts(search: string, page: number) {
   return { rows, total, now: Date.now() };
 }
 
-/** Staff: every company with its plan and subscription state (read only). */
+/** Staff: every company with its plan and subscription state; each opens its account page. */
 export default async function AccountsPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
-  await requirePermission('accounts.read');
+  await requireStaffPermission('accounts.read');
   const sp = await searchParams;
   const q = typeof sp.q === 'string' ? sp.q.slice(0, 120) : '';
   const page = Math.max(1, Number(typeof sp.page === 'string' && /^\d{1,5}$/.test(sp.page) ? sp.page : 1));
@@ -53,7 +54,9 @@ export default async function AccountsPage({ searchParams }: { searchParams: Pro
               const trialOver = r.planKind === 'trial' && r.trialEndsAt && r.trialEndsAt.getTime() <= now;
               return (
                 <tr key={r.companyId} className="border-b border-stone-200 last:border-0">
-                  <th scope="row" className="px-3 py-2 text-left font-medium text-stone-900">{r.companyName}</th>
+                  <th scope="row" className="px-3 py-2 text-left font-medium text-stone-900">
+                    <Link className="text-ledger-800 underline-offset-2 hover:underline" href={`/accounts/${r.companyId}`}>{r.companyName}</Link>
+                  </th>
                   <td className="px-3 py-2">{r.planName}</td>
                   <td className="px-3 py-2">
                     {r.subscriptionStatus ? (

@@ -1,6 +1,6 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
-import { requirePermission } from '@/server/auth/guards';
+import { requireStaffPermission } from '@/server/auth/guards';
 import { countCompaniesOnPlan, getPlanProviderSync, listAllPlans } from '@/db/queries/billing';
 import { SyncPlanButton } from '@/components/billing/sync-plan-button';
 import { billingDate, count } from '@/components/billing/format';
@@ -11,7 +11,7 @@ export const dynamic = 'force-dynamic';
 
 /** Staff: every plan with its limits and its state at the payment provider. */
 export default async function PlansPage() {
-  await requirePermission('plans.manage');
+  await requireStaffPermission('plans.manage');
   const plans = await listAllPlans();
   const [sync, companies] = await Promise.all([getPlanProviderSync(plans.map((p) => p.id)), Promise.all(plans.map((p) => countCompaniesOnPlan(p.id)))]);
   return (

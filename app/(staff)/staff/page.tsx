@@ -3,7 +3,7 @@ import Link from 'next/link';
 import { PageHeader } from '@/components/ui/page-header';
 import { Card } from '@/components/ui/card';
 import { Table, THead, TBody, Th, Td, EmptyRow } from '@/components/ui/table';
-import { requirePermission } from '@/server/auth/guards';
+import { requireStaffPermission } from '@/server/auth/guards';
 import { listCompanyAccounts } from '@/db/queries/staff-accounts';
 
 export const metadata: Metadata = { title: 'Staff' };
@@ -12,7 +12,7 @@ const dateFmt = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short
 
 /** Staff home: where to go, and the newest company accounts with their head-count. Read-only. */
 export default async function StaffHomePage() {
-  await requirePermission('accounts.read');
+  await requireStaffPermission('accounts.read');
   const accounts = await listCompanyAccounts(10);
   return (
     <>

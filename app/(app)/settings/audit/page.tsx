@@ -1,79 +1,60 @@
 import type { Metadata } from 'next';
 import { PageHeader } from '@/components/ui/page-header';
 import { Card } from '@/components/ui/card';
-import { Table, THead, TBody, Th, Td, EmptyRow } from '@/components/ui/table';
-import { AUDIT_LABELS, describeDetail, describeDevice, formatWhen } from '@/components/account/describe';
+import { Notice } from '@/components/ui/notice';
+import { AuditTable } from '@/components/account/audit-table';
+import { AuditFilterForm } from '@/components/account/audit-filter-form';
 import { requirePermission } from '@/server/auth/guards';
 import { listAuditEventsForCompany } from '@/db/queries/audit';
+import { auditFilterSchema, auditQueryOf } from '@/server/validation/audit';
+import { getEnv } from '@/server/env';
 
 export const metadata: Metadata = { title: 'Audit log' };
 
 const PAGE = 100;
 
-/** Team and security events of this company, newest first, 100 at a time. */
-export default async function AuditPage({ searchParams }: { searchParams: Promise<{ before?: string }> }) {
+type Search = Record<string, string | string[] | undefined>;
+const one = (v: string | string[] | undefined) => (typeof v === 'string' ? v : undefined);
+
+/** Team, security, billing, catalogue and quote events of this company, newest first, 100 at a time, filtered. */
+export default async function AuditPage({ searchParams }: { searchParams: Promise<Search> }) {
   const ctx = await requirePermission('audit.read');
-  const { before } = await searchParams;
-  const beforeId = before && /^\d{1,15}$/.test(before) ? Number(before) : undefined;
-  const events = await listAuditEventsForCompany(ctx.companyId, { limit: PAGE, beforeId });
+  const sp = await searchParams;
+  const raw = { kind: one(sp.kind), actor: one(sp.actor), from: one(sp.from), to: one(sp.to), before: one(sp.before) };
+  const parsed = auditFilterSchema.safeParse(raw);
+  const filter = parsed.success ? parsed.data : {};
+  const events = parsed.success ? await listAuditEventsForCompany(ctx.companyId, { ...auditQueryOf(filter), limit: PAGE, beforeId: filter.before }) : [];
   const last = events.at(-1);
+  const query = new URLSearchParams(Object.entries({ kind: filter.kind, actor: filter.actor, from: filter.from, to: filter.to }).filter((e): e is [string, string] => Boolean(e[1])));
+  const filtered = query.size > 0;
+  const problems = parsed.success ? [] : parsed.error.issues.map((i) => i.message);
   return (
     <>
-      <PageHeader title="Audit log" description="Who did what, when and from where: team changes, invitations, sign-ins and password events of your members. Times are UTC." />
+      <PageHeader
+        title="Audit log"
+        description="Who did what, when and from where: team and sign-in events, plan and billing changes, catalogue and price edits, uploads, archived studies, customer links and quote decisions. Times are UTC."
+      />
+      <AuditFilterForm values={raw} csvHref={`/settings/audit/export${query.size ? `?${query}` : ''}`} />
+      {problems.length > 0 && (
+        <Notice tone="problem" className="mb-4">
+          {problems.join(' ')}
+        </Notice>
+      )}
       <Card>
-        <Table caption="Audit log">
-          <THead>
-            <tr>
-              <Th className="whitespace-nowrap">When</Th>
-              <Th>Who</Th>
-              <Th>What</Th>
-              <Th className="hidden lg:table-cell">From</Th>
-            </tr>
-          </THead>
-          <TBody>
-            {events.length === 0 && <EmptyRow colSpan={4}>No events yet.</EmptyRow>}
-            {events.map((e) => {
-              const extra = describeDetail(e.action, e.detail);
-              return (
-                <tr key={e.id}>
-                  <Td className="whitespace-nowrap font-mono text-xs text-stone-600">{formatWhen(e.createdAt)}</Td>
-                  <Td className="max-w-[16rem] break-words text-stone-800">
-                    {e.actorLabel ? <Actor label={e.actorLabel} /> : <span className="text-stone-500">Not signed in</span>}
-                  </Td>
-                  <Td className="text-stone-800">
-                    {AUDIT_LABELS[e.action] ?? e.action}
-                    {e.targetLabel && <span className="font-medium"> {e.targetLabel}</span>}
-                    {extra && <span className="text-stone-500"> ({extra})</span>}
-                  </Td>
-                  <Td className="hidden lg:table-cell text-xs text-stone-600">
-                    {describeDevice(e.userAgent)}
-                    <span className="block font-mono">{e.ip ?? 'address not recorded'}</span>
-                  </Td>
-                </tr>
-              );
-            })}
-          </TBody>
-        </Table>
+        <AuditTable events={events} caption={filtered ? 'Audit log, filtered' : 'Audit log'} empty={filtered ? 'No events match this filter.' : 'No events yet.'} />
       </Card>
+      {!getEnv().TRUST_PROXY && (
+        <p className="mt-3 text-xs text-stone-600">
+          Addresses are those of the connection that reached FadeLedger. Without a trusted proxy in front (TRUST_PROXY), a client can name another address, so treat them as indications.
+        </p>
+      )}
       {events.length === PAGE && last && (
         <p className="mt-4 text-sm">
-          <a className="text-ledger-700 underline" href={`/settings/audit?before=${last.id}`}>
+          <a className="text-ledger-700 underline" href={`/settings/audit?${new URLSearchParams([...query, ['before', String(last.id)]])}`}>
             Older events
           </a>
         </p>
       )}
-    </>
-  );
-}
-
-/** "Name <address>" as the name with the address beneath it. */
-function Actor({ label }: { label: string }) {
-  const m = /^(.*) <([^>]*)>$/.exec(label);
-  if (!m) return <>{label}</>;
-  return (
-    <>
-      {m[1]}
-      <span className="block text-xs text-stone-500">{m[2]}</span>
     </>
   );
 }

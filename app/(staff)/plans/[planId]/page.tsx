@@ -1,7 +1,7 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { notFound } from 'next/navigation';
-import { requirePermission } from '@/server/auth/guards';
+import { requireStaffPermission } from '@/server/auth/guards';
 import { countCompaniesOnPlan, getPlanById } from '@/db/queries/billing';
 import Decimal from 'decimal.js';
 import { PlanForm } from '@/components/billing/plan-form';
@@ -10,7 +10,7 @@ export const metadata: Metadata = { title: 'Edit plan' };
 export const dynamic = 'force-dynamic';
 
 export default async function EditPlanPage({ params }: { params: Promise<{ planId: string }> }) {
-  await requirePermission('plans.manage');
+  await requireStaffPermission('plans.manage');
   const { planId } = await params;
   if (!/^\d{1,10}$/.test(planId)) notFound();
   const plan = await getPlanById(Number(planId));

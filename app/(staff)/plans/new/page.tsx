@@ -1,12 +1,12 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
-import { requirePermission } from '@/server/auth/guards';
+import { requireStaffPermission } from '@/server/auth/guards';
 import { PlanForm } from '@/components/billing/plan-form';
 
 export const metadata: Metadata = { title: 'New plan' };
 
 export default async function NewPlanPage() {
-  await requirePermission('plans.manage');
+  await requireStaffPermission('plans.manage');
   return (
     <div className="max-w-4xl space-y-5">
       <p className="text-sm"><Link href="/plans" className="text-ledger-700 hover:underline">← Plan catalogue</Link></p>
