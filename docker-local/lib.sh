@@ -60,6 +60,10 @@ ensure_secrets() {
     printf 'DATABASE_PASSWORD=%s\nSTRIPE_WEBHOOK_SECRET=whsec_%s\n' "$pw" "$wh" > "$LOCAL/secrets.env"
     chmod 600 "$LOCAL/secrets.env"
   fi
+  # Checkouts whose secrets predate the link key get one added (existing values are kept).
+  if ! grep -q '^SHARE_LINK_KEY=' "$LOCAL/secrets.env"; then
+    printf 'SHARE_LINK_KEY=%s\n' "$(node -e "process.stdout.write(require('crypto').randomBytes(32).toString('base64'))")" >> "$LOCAL/secrets.env"
+  fi
 }
 
 ensure_node_modules() {

@@ -1,5 +1,6 @@
 import type { QuoteOptionSnapshot, QuoteStudySnapshot } from './snapshot';
 import { diameterLabel, readQuotedOption, savingWords, type OptionReading } from '@/server/study-option';
+import { endSentence } from './sentence';
 
 /**
  * Turns a quote's snapshots into what the customer's page and the PDF print: one place for the
@@ -48,8 +49,8 @@ export function presentOptions(options: QuoteOptionSnapshot[], chosenIndex: numb
 
 /** Two or three sentences about the site and the service, without jargon. */
 export function siteAndServiceInWords(s: QuoteStudySnapshot): { site: string; service: string; pointing: string } {
-  const site = `${s.site.name}, for ${s.site.customerName}.`;
-  const service = `${s.service.name}, from the ${s.service.satelliteName} satellite at ${orbitalPosition(s.service.satelliteLongitudeDeg)}${s.service.transmits ? ', sending as well as receiving' : ''}.`;
+  const site = endSentence(`${s.site.name}, for ${s.site.customerName}`);
+  const service = endSentence(`${s.service.name}, from the ${s.service.satelliteName} satellite at ${orbitalPosition(s.service.satelliteLongitudeDeg)}${s.service.transmits ? ', sending as well as receiving' : ''}`);
   const p = s.pointing;
   const pointing = `From this site the dish looks ${compassWord(p.azimuthDeg)} (${p.azimuthDeg.toFixed(1)}° from true north), ${p.elevationDeg.toFixed(1)}° above the horizon; the view in that direction must be clear of trees and buildings.`;
   return { site, service, pointing };
