@@ -2,7 +2,7 @@ import 'server-only';
 import { models } from '@/db/models';
 import { getQuote, insertQuoteEvent, moveQuoteStatus, quotePeople, type QuoteDetail } from '@/db/queries/quotes';
 import { findLinkByTokenHash, linkMaker, recordLinkView, type LinkByToken } from '@/db/queries/share-links';
-import { getCompanyContact, getCompanyLogoInfo, type CompanyContact } from '@/db/queries/branding';
+import { getCompanyContact, getCompanyLogoInfo } from '@/db/queries/branding';
 import { findMembership } from '@/db/queries/team';
 import { getPlanLimits } from '@/server/billing/limits';
 import { hashToken, looksLikeToken } from '@/server/auth/tokens';

@@ -28,7 +28,7 @@ const meta = { ip: '203.0.113.14', userAgent: 'vitest customer' };
 const person = new Headers({ 'user-agent': 'Mozilla/5.0 (X11; Linux x86_64) vitest' });
 const sha256 = (s: string) => createHash('sha256').update(s, 'utf8').digest('hex');
 const stamp = () => `${Date.now().toString(36)}${Math.floor(Math.random() * 1e4)}`;
-const urlOf = (out: { state: unknown }) => (out.state as { data: { url: string } }).data.url;
+const urlOf = (out: { state?: unknown }) => (out.state as { data: { url: string } }).data.url;
 
 type MaildevMail = CaughtMail & { attachments?: { contentType: string; filename?: string }[] };
 
