@@ -107,15 +107,19 @@ export async function recordLinkView(linkId: number, t?: Transaction): Promise<v
   });
 }
 
-/** Who made the link (while still in the company): told when a customer decides through it. */
-export async function linkMaker(companyId: number, linkId: number, t?: Transaction): Promise<{ name: string; email: string } | null> {
+/**
+ * Everyone (still in the company) who shared the quote, by link or by e-mail: all are told when
+ * the customer decides. The maker of the link the customer used comes first.
+ */
+export async function quoteSharers(companyId: number, quoteId: number, usedLinkId: number, t?: Transaction): Promise<{ name: string; email: string }[]> {
   const { sequelize } = models();
-  const [row] = await sequelize.query<{ name: string; email: string }>(
+  return sequelize.query<{ name: string; email: string }>(
     `SELECT u.name, u.email FROM share_links l
        JOIN memberships m ON m.user_id = l.created_by_user_id AND m.company_id = l.company_id
        JOIN users u ON u.id = m.user_id
-      WHERE l.company_id = :companyId AND l.id = :linkId`,
-    { replacements: { companyId, linkId }, type: QueryTypes.SELECT, transaction: t },
+      WHERE l.company_id = :companyId AND l.quote_id = :quoteId
+      GROUP BY u.id, u.name, u.email
+      ORDER BY MAX(l.id = :usedLinkId) DESC, MIN(l.id) ASC`,
+    { replacements: { companyId, quoteId, usedLinkId }, type: QueryTypes.SELECT, transaction: t },
   );
-  return row ? { name: row.name, email: row.email } : null;
 }

@@ -1,7 +1,7 @@
 import 'server-only';
 import { models } from '@/db/models';
 import { getQuote, insertQuoteEvent, moveQuoteStatus, quotePeople, type QuoteDetail } from '@/db/queries/quotes';
-import { findLinkByTokenHash, linkMaker, recordLinkView, type LinkByToken } from '@/db/queries/share-links';
+import { findLinkByTokenHash, quoteSharers, recordLinkView, type LinkByToken } from '@/db/queries/share-links';
 import { getCompanyContact, getCompanyLogoInfo } from '@/db/queries/branding';
 import { findMembership } from '@/db/queries/team';
 import { getPlanLimits } from '@/server/billing/limits';
@@ -186,10 +186,10 @@ async function sendReceipt(companyId: number, quoteId: number, to: string, now: 
 }
 
 async function tellTheTeam(companyId: number, linkId: number, quote: QuoteDetail, decision: DecidedStatus, input: CustomerDecision): Promise<void> {
-  const [people, maker, company] = await Promise.all([quotePeople(companyId, quote.id), linkMaker(companyId, linkId), getCompanyContact(companyId)]);
+  const [people, sharers, company] = await Promise.all([quotePeople(companyId, quote.id), quoteSharers(companyId, quote.id, linkId), getCompanyContact(companyId)]);
   const recipients = decisionRecipients({
     author: people.creator,
-    linkMaker: maker,
+    sharers,
     sender: people.sender,
     salesContact: company ? { companyName: company.name, email: company.email } : null,
   });

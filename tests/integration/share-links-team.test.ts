@@ -147,6 +147,17 @@ describe('who hears of a decision, and the customer’s receipt', () => {
     await setCompanyContact(company.id, { email: null, phone: null });
   });
 
+  it('tells the salesperson who e-mailed the quote even when the customer used the installer’s link', async () => {
+    const to = `buyer-${stamp()}@fenwold.example`;
+    const { quoteId, token } = await sentQuote(installer, { customerEmail: to });
+    asUser(await signInAs(sales));
+    expect((await callAction(emailQuote, { quoteId })).state?.ok).toBe(true);
+    const before = (await mailsTo(sales.email)).length;
+    expect((await inRequest(null, () => callAction(decideQuote, { token, decision: 'accept', name: 'Ottoline Marsh', confirm: 'on' }))).state?.ok).toBe(true);
+    const told = (await waitForMails(sales.email, before + 1)).slice(before);
+    expect(told.filter((m) => m.subject.includes('accepted by Ottoline Marsh'))).toHaveLength(1);
+  });
+
   it('one message per address when the sales contact is the author', async () => {
     await setCompanyContact(company.id, { email: installer.email.toUpperCase(), phone: null });
     const { token } = await sentQuote(installer);

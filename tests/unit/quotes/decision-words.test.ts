@@ -16,14 +16,14 @@ describe('sentences that end in a typed name', () => {
 describe('who hears of a decision', () => {
   const author = { name: 'Ina Installer', email: 'ina@fenwold.example' };
   const seller = { name: 'Sam Sales', email: 'sam@fenwold.example' };
-  it('author, link maker, sender and sales contact, one message per address (case-insensitive)', () => {
-    expect(decisionRecipients({ author, linkMaker: seller, sender: seller, salesContact: { companyName: 'Fenwold Aerials', email: 'desk@fenwold.example' } })).toEqual([
+  it('author, everyone who shared it, sender and sales contact, one message per address (case-insensitive)', () => {
+    expect(decisionRecipients({ author, sharers: [seller, { ...seller, email: 'SAM@fenwold.example' }], sender: seller, salesContact: { companyName: 'Fenwold Aerials', email: 'desk@fenwold.example' } })).toEqual([
       author,
       seller,
       { email: 'desk@fenwold.example', name: 'Fenwold Aerials sales' },
     ]);
-    expect(decisionRecipients({ author, linkMaker: null, sender: null, salesContact: { companyName: 'Fenwold Aerials', email: 'INA@fenwold.example' } })).toEqual([author]);
-    expect(decisionRecipients({ author: null, linkMaker: null, sender: null, salesContact: { companyName: 'X', email: null } })).toEqual([]);
+    expect(decisionRecipients({ author, sharers: [], sender: null, salesContact: { companyName: 'Fenwold Aerials', email: 'INA@fenwold.example' } })).toEqual([author]);
+    expect(decisionRecipients({ author: null, sharers: [], sender: null, salesContact: { companyName: 'X', email: null } })).toEqual([]);
   });
 });
 
