@@ -5,7 +5,8 @@ import { closedLinkSeller } from '@/server/quotes/shared-quote';
 import { SHARE_TOKEN_HEADER } from '@/server/http/share-token-header';
 import { NeutralNotFound } from '@/components/ui/neutral-not-found';
 
-export const metadata: Metadata = { title: 'Link not available', robots: { index: false, follow: false } };
+// An absolute title: the customer's browser tab names no product they have never heard of.
+export const metadata: Metadata = { title: { absolute: 'Link not available' }, robots: { index: false, follow: false } };
 
 /**
  * A customer's link that does not open (still a 404). A link that existed but was revoked or ran

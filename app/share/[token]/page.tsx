@@ -22,7 +22,7 @@ export const dynamic = 'force-dynamic';
 
 // Personal pages: never in a search index, and the token never leaves in a Referer header.
 export const metadata: Metadata = {
-  title: 'Your quote',
+  title: { absolute: 'Your quote' },
   robots: { index: false, follow: false, nocache: true, googleBot: { index: false, follow: false } },
   referrer: 'no-referrer',
 };
