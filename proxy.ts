@@ -5,6 +5,7 @@ import { badPercentEncoding, checkActionBody, foreignOrigin, looksLikeAction, ty
 import { plainPage, unavailablePage } from '@/server/http/plain-pages';
 import { checkDatabase } from '@/db/queries/health';
 import { DB_RETRY_AFTER_SECONDS } from '@/db/unavailable';
+import { SHARE_TOKEN_HEADER } from '@/server/http/share-token-header';
 
 /**
  * Runs before every page, server action and /api request (see `config.matcher` for the paths it
@@ -73,6 +74,11 @@ export async function proxy(req: NextRequest): Promise<NextResponse> {
   const requestHeaders = new Headers(req.headers);
   requestHeaders.set('x-nonce', nonce);
   requestHeaders.set('Content-Security-Policy', csp);
+  // The customer's link page: its not-found.tsx gets no params, so the token rides along in a
+  // header only we set (a client's own value is dropped first).
+  requestHeaders.delete(SHARE_TOKEN_HEADER);
+  const shareToken = /^\/share\/([A-Za-z0-9_-]{20,128})\/?$/.exec(pathname)?.[1];
+  if (shareToken) requestHeaders.set(SHARE_TOKEN_HEADER, shareToken);
   return finish(NextResponse.next({ request: { headers: requestHeaders } }));
 }
 

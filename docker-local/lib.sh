@@ -64,6 +64,10 @@ ensure_secrets() {
   if ! grep -q '^WEBHOOK_SECRET_KEY=' "$LOCAL/secrets.env"; then
     printf 'WEBHOOK_SECRET_KEY=%s\n' "$(node -e "process.stdout.write(require('crypto').randomBytes(32).toString('hex'))")" >> "$LOCAL/secrets.env"
   fi
+  # Checkouts whose secrets predate the link key get one added (existing values are kept).
+  if ! grep -q '^SHARE_LINK_KEY=' "$LOCAL/secrets.env"; then
+    printf 'SHARE_LINK_KEY=%s\n' "$(node -e "process.stdout.write(require('crypto').randomBytes(32).toString('base64'))")" >> "$LOCAL/secrets.env"
+  fi
 }
 
 ensure_node_modules() {

@@ -7,7 +7,7 @@ case "${1:-test}" in
   test)
     PROFILE=test; load_env test
     ensure_node_modules; start_mariadb; ensure_database; migrate_and_seed
-    env | grep -E '^(APP_|DATABASE_|SMTP_|MAIL_|STRIPE_|TRUST_PROXY|WEBHOOK)' | sed 's/^\([^=]*\)=\(.*\)$/\1='"'"'\2'"'"'/' > "$LOCAL/test.env"
+    env | grep -E '^(APP_|DATABASE_|SMTP_|MAIL_|STRIPE_|SHARE_LINK_KEY|TRUST_PROXY|WEBHOOK)' | sed 's/^\([^=]*\)=\(.*\)$/\1='"'"'\2'"'"'/' > "$LOCAL/test.env"
     start_mail; start_payments
     say "services left running; stop them with: bash docker-local/services.sh stop" ;;
   stop)

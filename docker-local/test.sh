@@ -14,7 +14,7 @@ start_mariadb
 ensure_database fresh
 migrate_and_seed
 # Integration tests and single-file runs read the test environment from here.
-env | grep -E '^(APP_|DATABASE_|SMTP_|MAIL_|STRIPE_|TRUST_PROXY)' | sed 's/^\([^=]*\)=\(.*\)$/\1='"'"'\2'"'"'/' > "$LOCAL/test.env"
+env | grep -E '^(APP_|DATABASE_|SMTP_|MAIL_|STRIPE_|SHARE_LINK_KEY|TRUST_PROXY)' | sed 's/^\([^=]*\)=\(.*\)$/\1='"'"'\2'"'"'/' > "$LOCAL/test.env"
 start_mail
 start_payments
 

@@ -35,6 +35,12 @@ export const envSchema = z.object({
   STRIPE_API_PORT: port.optional(),
   STRIPE_API_PROTOCOL: z.enum(['http', 'https']).optional(),
 
+  // 32 random bytes, base64 (e.g. `openssl rand -base64 32`): seals comparison-link tokens at rest
+  // (AES-256-GCM) so a team member can copy a link again; look-ups still go by the token's sha256.
+  SHARE_LINK_KEY: z
+    .string()
+    .refine((v) => /^[A-Za-z0-9+/_-]{43}=?$/.test(v) && Buffer.from(v, v.includes('-') || v.includes('_') ? 'base64url' : 'base64').length === 32, 'must be 32 random bytes in base64 (openssl rand -base64 32)'),
+
   // Behind a load balancer, trust its X-Forwarded-For for throttling and the audit log.
   TRUST_PROXY: flag.default(false),
 

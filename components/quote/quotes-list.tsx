@@ -31,8 +31,20 @@ function countFor(counts: Counts | undefined, value: (typeof FILTERS)[number]['v
   return counts[value];
 }
 
+/** What an empty list says: a company with no quotes at all is told how to make its first one. */
+function emptyWords(total: number | null, canCreate: boolean) {
+  if (total !== 0) return 'No quotes match.';
+  return canCreate ? (
+    <>
+      No quotes yet. Open a <Link href="/studies" className="font-medium text-ledger-700 underline underline-offset-2">study</Link> and choose “Create quote” on the dish you recommend.
+    </>
+  ) : (
+    'No quotes yet. An installer or admin makes them from a study; they appear here for you to share.'
+  );
+}
+
 /** The quotes list: status filter, search (customer, site, number), newest first, paged. */
-export function QuotesList() {
+export function QuotesList({ canCreate = false }: { canCreate?: boolean }) {
   const [status, setStatus] = useState<(typeof FILTERS)[number]['value']>('all');
   // The counts come with every list answer; a tiny request keeps the chips current.
   const { data } = useSWR<{ counts: Counts }>('/api/v1/quotes?pageSize=1', fetchJson);
@@ -74,7 +86,7 @@ export function QuotesList() {
               </tr>
             </THead>
             <TBody>
-              {items.length === 0 && <EmptyRow colSpan={7}>{loading ? 'Loading quotes…' : 'No quotes match.'}</EmptyRow>}
+              {items.length === 0 && <EmptyRow colSpan={7}>{loading ? 'Loading quotes…' : emptyWords(countFor(data?.counts, 'all'), canCreate)}</EmptyRow>}
               {items.map((q) => (
                 <tr key={q.id} className="hover:bg-stone-50">
                   <Td className="whitespace-nowrap">

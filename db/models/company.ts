@@ -6,6 +6,8 @@ export class Company extends Model<InferAttributes<Company>, InferCreationAttrib
   declare name: string;
   declare planId: number;
   declare trialEndsAt: Date | null;
+  declare contactEmail: CreationOptional<string | null>;
+  declare contactPhone: CreationOptional<string | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 }
@@ -17,6 +19,8 @@ export function initCompany(sequelize: Sequelize): void {
       name: { type: DataTypes.STRING(120), allowNull: false },
       planId: { type: DataTypes.INTEGER, allowNull: false },
       trialEndsAt: { type: DataTypes.DATE, allowNull: true },
+      contactEmail: { type: DataTypes.STRING(254), allowNull: true },
+      contactPhone: { type: DataTypes.STRING(40), allowNull: true },
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,
     },

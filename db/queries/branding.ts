@@ -62,3 +62,28 @@ export async function getCompanyName(companyId: number): Promise<string | null> 
   const c = await Company.findByPk(companyId, { attributes: ['id', 'name'] });
   return c?.name ?? null;
 }
+
+/** How customers reach the company (set on the branding page; migration 20261202005010). */
+export interface CompanyContact {
+  name: string;
+  email: string | null;
+  phone: string | null;
+}
+
+export async function getCompanyContact(companyId: number, t?: Transaction): Promise<CompanyContact | null> {
+  const { sequelize } = models();
+  const [row] = await sequelize.query<{ name: string; contact_email: string | null; contact_phone: string | null }>(
+    'SELECT name, contact_email, contact_phone FROM companies WHERE id = :companyId',
+    { replacements: { companyId }, type: QueryTypes.SELECT, transaction: t },
+  );
+  return row ? { name: row.name, email: row.contact_email, phone: row.contact_phone } : null;
+}
+
+export async function setCompanyContact(companyId: number, contact: { email: string | null; phone: string | null }, t?: Transaction): Promise<void> {
+  const { sequelize } = models();
+  await sequelize.query('UPDATE companies SET contact_email = :email, contact_phone = :phone, updated_at = :now WHERE id = :companyId', {
+    replacements: { companyId, ...contact, now: new Date() },
+    type: QueryTypes.UPDATE,
+    transaction: t,
+  });
+}

@@ -14,15 +14,18 @@ export interface ShareLinkItem {
   createdAt: string;
   /** Not revoked and not past its expiry: a customer can open it now. */
   active: boolean;
+  /** Its token is kept sealed, so the team can copy it (links made before that was kept cannot). */
+  copyable: boolean;
 }
 
 const iso = (d: Date | null) => (d ? new Date(d).toISOString() : null);
 
-/** The quote's links, newest first (never their tokens: only digests are stored). */
+/** The quote's links, newest first (never their tokens: those are opened one at a time, on request). */
 export async function listShareLinks(companyId: number, quoteId: number, now = new Date()): Promise<ShareLinkItem[]> {
   const { sequelize } = models();
-  const rows = await sequelize.query<{ id: number; quote_id: number; expires_at: Date; revoked_at: Date | null; view_count: number; last_viewed_at: Date | null; created_by_name: string | null; created_at: Date }>(
-    `SELECT l.id, l.quote_id, l.expires_at, l.revoked_at, l.view_count, l.last_viewed_at, u.name AS created_by_name, l.created_at
+  const rows = await sequelize.query<{ id: number; quote_id: number; expires_at: Date; revoked_at: Date | null; view_count: number; last_viewed_at: Date | null; created_by_name: string | null; created_at: Date; copyable: number }>(
+    `SELECT l.id, l.quote_id, l.expires_at, l.revoked_at, l.view_count, l.last_viewed_at, u.name AS created_by_name, l.created_at,
+            l.token_sealed IS NOT NULL AS copyable
        FROM share_links l LEFT JOIN users u ON u.id = l.created_by_user_id
       WHERE l.company_id = :companyId AND l.quote_id = :quoteId ORDER BY l.id DESC`,
     { replacements: { companyId, quoteId }, type: QueryTypes.SELECT },
@@ -37,10 +40,18 @@ export async function listShareLinks(companyId: number, quoteId: number, now = n
     createdByName: r.created_by_name,
     createdAt: new Date(r.created_at).toISOString(),
     active: r.revoked_at === null && new Date(r.expires_at).getTime() > now.getTime(),
+    copyable: Number(r.copyable) === 1,
   }));
 }
 
-export async function insertShareLink(row: { companyId: number; quoteId: number; tokenHash: string; expiresAt: Date; createdByUserId: string }, t: Transaction): Promise<number> {
+/** One of the quote's links with its sealed token, for copying it again; null outside this company. */
+export async function findSealedLink(companyId: number, quoteId: number, linkId: number): Promise<{ tokenHash: string; tokenSealed: string | null; expiresAt: Date; revokedAt: Date | null } | null> {
+  const { ShareLink } = models();
+  const row = await ShareLink.findOne({ where: { companyId, quoteId, id: linkId }, attributes: ['tokenHash', 'tokenSealed', 'expiresAt', 'revokedAt'] });
+  return row ? { tokenHash: row.tokenHash, tokenSealed: row.tokenSealed, expiresAt: row.expiresAt, revokedAt: row.revokedAt } : null;
+}
+
+export async function insertShareLink(row: { companyId: number; quoteId: number; tokenHash: string; tokenSealed: string; expiresAt: Date; createdByUserId: string }, t: Transaction): Promise<number> {
   const { ShareLink } = models();
   const created = await ShareLink.create({ ...row, revokedAt: null, revokedByUserId: null, lastViewedAt: null }, { transaction: t });
   return created.id;
@@ -94,4 +105,21 @@ export async function recordLinkView(linkId: number, t?: Transaction): Promise<v
     type: QueryTypes.UPDATE,
     transaction: t,
   });
+}
+
+/**
+ * Everyone (still in the company) who shared the quote, by link or by e-mail: all are told when
+ * the customer decides. The maker of the link the customer used comes first.
+ */
+export async function quoteSharers(companyId: number, quoteId: number, usedLinkId: number, t?: Transaction): Promise<{ name: string; email: string }[]> {
+  const { sequelize } = models();
+  return sequelize.query<{ name: string; email: string }>(
+    `SELECT u.name, u.email FROM share_links l
+       JOIN memberships m ON m.user_id = l.created_by_user_id AND m.company_id = l.company_id
+       JOIN users u ON u.id = m.user_id
+      WHERE l.company_id = :companyId AND l.quote_id = :quoteId
+      GROUP BY u.id, u.name, u.email
+      ORDER BY MAX(l.id = :usedLinkId) DESC, MIN(l.id) ASC`,
+    { replacements: { companyId, quoteId, usedLinkId }, type: QueryTypes.SELECT, transaction: t },
+  );
 }

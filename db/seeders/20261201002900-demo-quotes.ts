@@ -6,6 +6,7 @@ import { DEMO_CUSTOMERS } from '../demo/studies';
 import { DEMO_QUOTES } from '../demo/quotes';
 import { demoLogoPng } from '../demo/quote-logo';
 import { hashToken } from '../../server/auth/tokens';
+import { linkKeyFrom, sealLinkToken } from '../../server/quotes/link-token-seal';
 import { quoteOptionsOf, quoteStudySnapshotOf } from '../../server/quotes/options-of-study';
 import { quoteTotals } from '../../server/quotes/totals';
 import { addDays, utcDay } from '../../server/quotes/status';
@@ -125,6 +126,8 @@ export async function up({ context: qi }: Ctx): Promise<void> {
           companyId: company.id,
           quoteId: quote.id,
           tokenHash: hashToken(token),
+          // Sealed like the app's own links so the demo team can copy them (no key: not copyable).
+          tokenSealed: process.env.SHARE_LINK_KEY ? sealLinkToken(token, hashToken(token), linkKeyFrom(process.env.SHARE_LINK_KEY)) : null,
           expiresAt,
           revokedAt: null,
           revokedByUserId: null,

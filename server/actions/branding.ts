@@ -5,6 +5,8 @@ import { revalidatePath } from 'next/cache';
 import { safeAction } from './safe-action';
 import { removeLogo as remove, uploadLogo as upload } from '@/server/quotes/branding';
 import { LOGO_MAX_BYTES } from '@/server/quotes/logo-image';
+import { companyContactSchema } from '@/server/validation/branding';
+import { setCompanyContact } from '@/db/queries/branding';
 
 const BRANDING_PAGE = '/settings/branding';
 
@@ -27,4 +29,11 @@ export const removeLogo = safeAction({ schema: z.object({}), permission: 'brandi
   await remove(ctx.companyId);
   revalidatePath(BRANDING_PAGE);
   return { message: 'Logo removed.' };
+});
+
+/** How customers reach the company: on the customer's page and PDF, Reply-To of quote e-mails, told of decisions. */
+export const saveCompanyContact = safeAction({ schema: companyContactSchema, permission: 'branding.manage' }, async (input, ctx) => {
+  await setCompanyContact(ctx.companyId, { email: input.contactEmail, phone: input.contactPhone });
+  revalidatePath(BRANDING_PAGE);
+  return { message: input.contactEmail || input.contactPhone ? 'Contact saved. Customers see it on their quote.' : 'Contact cleared: customers see the sender of each quote instead.' };
 });

@@ -2,14 +2,20 @@
 
 import { revalidatePath } from 'next/cache';
 import { safeAction } from './safe-action';
-import { createShareLinkSchema, emailQuoteSchema, revokeShareLinkSchema } from '@/server/validation/quote';
+import { copyShareLinkSchema, createShareLinkSchema, emailQuoteSchema, revokeShareLinkSchema } from '@/server/validation/quote';
 import * as share from '@/server/quotes/share';
 
-/** The URL carries the raw token and is returned this once; only its digest is stored. */
+/** The URL carries the raw token; the database keeps its digest (look-up) and a sealed copy (copy again). */
 export const createShareLink = safeAction({ schema: createShareLinkSchema, permission: 'quote.share' }, async (input, ctx) => {
   const link = await share.createShareLink({ companyId: ctx.companyId, user: ctx.user }, input.quoteId, input.expiresInDays);
   revalidatePath(`/quotes/${input.quoteId}`);
-  return { data: { linkId: link.linkId, url: link.url, expiresAt: link.expiresAt.toISOString() }, message: 'Link created. Copy it now: for safety it is shown only once.' };
+  return { data: { linkId: link.linkId, url: link.url, expiresAt: link.expiresAt.toISOString() }, message: 'Link created.' };
+});
+
+/** An active link's URL again, for whoever in the team may share (not only the person who made it). */
+export const copyShareLink = safeAction({ schema: copyShareLinkSchema, permission: 'quote.share' }, async (input, ctx) => {
+  const link = await share.linkUrlForTeam({ companyId: ctx.companyId, user: ctx.user }, input.quoteId, input.linkId);
+  return { data: { linkId: input.linkId, url: link.url, expiresAt: link.expiresAt.toISOString() }, message: `Link ${input.linkId} is ready to copy.` };
 });
 
 export const revokeShareLink = safeAction({ schema: revokeShareLinkSchema, permission: 'quote.share' }, async (input, ctx) => {

@@ -1,4 +1,5 @@
 import type { QuoteStudySnapshot } from './snapshot';
+import { endSentence } from './sentence';
 
 /**
  * Where a quote's figures come from, in the words the customer page, the PDF and the team's quote
@@ -44,7 +45,7 @@ function profileWords(kind: QuoteStudySnapshot['climate']['kind'], companyName: 
  * // => "Rain climate read from the ITU-R maps at your site's coordinates (ITU-R P.837-7, P.839-4)."
  */
 export function figuresSourceInWords(s: Pick<QuoteStudySnapshot, 'climate' | 'attenuationModel'>, companyName: string): FiguresSourceInWords {
-  const rainClimate = s.climate.kind === 'itu-r-maps' ? MAPS_RAIN_CLIMATE : `Rain climate from “${s.climate.name}”, ${profileWords(s.climate.kind, companyName)}.`;
+  const rainClimate = s.climate.kind === 'itu-r-maps' ? MAPS_RAIN_CLIMATE : endSentence(`Rain climate from “${s.climate.name}”, ${profileWords(s.climate.kind, companyName)}`);
   const attenuation =
     s.attenuationModel === 'total'
       ? 'The outage figures count rain, clouds, the gases of the air and scintillation together (ITU-R P.618 total attenuation, with P.676 for gases and P.840 for clouds), read for your site.'

@@ -1,6 +1,7 @@
 import type { QuoteOptionSnapshot, QuoteStudySnapshot } from './snapshot';
 import { declinationWords, studyPointing } from '@/server/pointing/magnetic-declination';
 import { diameterLabel, readQuotedOption, savingWords, type OptionReading } from '@/server/study-option';
+import { endSentence } from './sentence';
 
 /**
  * Turns a quote's snapshots into what the customer's page and the PDF print: one place for the
@@ -49,8 +50,8 @@ export function presentOptions(options: QuoteOptionSnapshot[], chosenIndex: numb
 
 /** Two or three sentences about the site and the service, without jargon. */
 export function siteAndServiceInWords(s: QuoteStudySnapshot): { site: string; service: string; pointing: string } {
-  const site = `${s.site.name}, for ${s.site.customerName}.`;
-  const service = `${s.service.name}, from the ${s.service.satelliteName} satellite at ${orbitalPosition(s.service.satelliteLongitudeDeg)}${s.service.transmits ? ', sending as well as receiving' : ''}.`;
+  const site = endSentence(`${s.site.name}, for ${s.site.customerName}`);
+  const service = endSentence(`${s.service.name}, from the ${s.service.satelliteName} satellite at ${orbitalPosition(s.service.satelliteLongitudeDeg)}${s.service.transmits ? ', sending as well as receiving' : ''}`);
   const p = s.pointing;
   // The compass bearing for the day the study was computed (World Magnetic Model 2025), beside the true one.
   const m = studyPointing(s.site, p, new Date(s.computedAt));

@@ -2,16 +2,20 @@ import 'server-only';
 import type { Transaction } from 'sequelize';
 import { models } from '@/db/models';
 import { getQuote, insertQuoteEvent, moveQuoteStatus, type QuoteDetail } from '@/db/queries/quotes';
-import { insertShareLink, revokeShareLink } from '@/db/queries/share-links';
+import { findSealedLink, insertShareLink, revokeShareLink } from '@/db/queries/share-links';
 import { lockCompanyRow } from '@/db/queries/company-lock';
 import { assertWithinPlan } from '@/server/plan-limit';
 import { hashToken, newToken } from '@/server/auth/tokens';
 import { getEnv } from '@/server/env';
 import { ConflictError, InvalidInputError, NotFoundError } from '@/server/errors';
 import { sendMail } from '@/server/mail/send';
+import { getCompanyContact } from '@/db/queries/branding';
+import { pdfFileName, renderQuotePdf } from './pdf/render';
+import { replyToFor, sellerContact } from './seller-contact';
 import { actorLabel, type QuoteActor } from './actor';
 import { expireOverdueQuotes } from './expire';
 import { quoteToCustomerMail } from './mail';
+import { linkKeyFrom, openLinkToken, sealLinkToken } from './link-token-seal';
 import { readQuotedOption } from '@/server/study-option';
 import { isPastValidity, isShareable, quoteReference } from './status';
 
@@ -19,9 +23,11 @@ function shareUrl(token: string): string {
   return `${getEnv().APP_URL.replace(/\/$/, '')}/share/${token}`;
 }
 
+const linkKey = () => linkKeyFrom(getEnv().SHARE_LINK_KEY);
+
 export interface NewShareLink {
   linkId: number;
-  /** The raw token: shown once, in this URL, and never stored. */
+  /** The raw token, in this URL; stored only as its digest and sealed under SHARE_LINK_KEY. */
   url: string;
   expiresAt: Date;
 }
@@ -48,7 +54,8 @@ async function addLink(actor: QuoteActor, quoteId: number, days: number, now: Da
   assertCanShare(quote, now);
   const token = newToken();
   const expiresAt = new Date(now.getTime() + days * 86_400_000);
-  const linkId = await insertShareLink({ companyId: actor.companyId, quoteId: quote.id, tokenHash: hashToken(token), expiresAt, createdByUserId: actor.user.id }, t);
+  const tokenHash = hashToken(token);
+  const linkId = await insertShareLink({ companyId: actor.companyId, quoteId: quote.id, tokenHash, tokenSealed: sealLinkToken(token, tokenHash, linkKey()), expiresAt, createdByUserId: actor.user.id }, t);
   const label = actorLabel(actor);
   await insertQuoteEvent({ companyId: actor.companyId, quoteId: quote.id, kind: 'link_created', actorUserId: actor.user.id, actorLabel: label, detail: { linkId, expiresAt: expiresAt.toISOString(), via } }, t);
   if (quote.status === 'draft') {
@@ -58,12 +65,26 @@ async function addLink(actor: QuoteActor, quoteId: number, days: number, now: Da
   return { linkId, url: shareUrl(token), expiresAt, quote };
 }
 
-/** A comparison link for the customer; the URL (with the raw token) is returned once. */
+/** A comparison link for the customer, with its URL (the raw token). */
 export async function createShareLink(actor: QuoteActor, quoteId: number, days: number, now: Date = new Date()): Promise<NewShareLink> {
   await expireOverdueQuotes(actor.companyId, now);
   const { sequelize } = models();
   const { linkId, url, expiresAt } = await sequelize.transaction((t) => addLink(actor, quoteId, days, now, t, 'link'));
   return { linkId, url, expiresAt };
+}
+
+/**
+ * An active link's URL for anyone in the team who may share, so a colleague can send it again
+ * instead of making a new one. Another company's link, or one that is revoked or expired, is
+ * "not found"; a link made before tokens were kept sealed (or under another key) cannot be copied.
+ */
+export async function linkUrlForTeam(actor: QuoteActor, quoteId: number, linkId: number, now: Date = new Date()): Promise<{ url: string; expiresAt: Date }> {
+  const link = await findSealedLink(actor.companyId, quoteId, linkId);
+  if (!link || link.revokedAt || link.expiresAt.getTime() <= now.getTime()) throw new NotFoundError('That link');
+  const token = link.tokenSealed ? openLinkToken(link.tokenSealed, link.tokenHash, linkKey()) : null;
+  // The digest check makes sure the opened token is this row's own.
+  if (!token || hashToken(token) !== link.tokenHash) throw new ConflictError('This link was made before links could be copied again. Make a new link instead.');
+  return { url: shareUrl(token), expiresAt: link.expiresAt };
 }
 
 export async function revokeLink(actor: QuoteActor, quoteId: number, linkId: number): Promise<void> {
@@ -75,9 +96,11 @@ export async function revokeLink(actor: QuoteActor, quoteId: number, linkId: num
 }
 
 /**
- * E-mails the quote to the customer with a fresh link. The message goes out inside the
- * transaction: if the mail server refuses it, the link, the status change and the event are
- * rolled back together, so the team never sees "sent" for a message nobody got.
+ * E-mails the quote to the customer with a fresh link and the PDF attached, from the company's
+ * name (our sending address) with Reply-To the sender and the company's contact address. The
+ * message goes out inside the transaction: if the mail server refuses it, the link, the status
+ * change and the event are rolled back together, so the team never sees "sent" for a message
+ * nobody got.
  */
 export async function emailQuote(
   actor: QuoteActor & { companyName: string },
@@ -91,11 +114,16 @@ export async function emailQuote(
     const to = input.to ?? link.quote.customerEmail;
     if (!to) throw new InvalidInputError('This quote has no customer e-mail address.', { to: ['Type the address to send the quote to.'] });
     const q = link.quote;
+    const company = await getCompanyContact(actor.companyId, t);
+    // The person sending is the seller the customer replies to (the quote's sender from now on).
+    const contact = sellerContact(company ?? { name: actor.companyName, email: null, phone: null }, { name: actor.user.name, email: actor.user.email });
+    const ref = quoteReference(q.number);
+    const pdf = await renderQuotePdf(actor.companyId, actor.companyName, { ...q, status: q.status === 'draft' ? 'sent' : q.status, sentAt: q.sentAt ?? now.toISOString() }, now, contact);
     const mail = quoteToCustomerMail({
       companyName: actor.companyName,
       senderName: actor.user.name,
       customerName: q.customerName,
-      reference: quoteReference(q.number),
+      reference: ref,
       siteName: q.siteName,
       option: readQuotedOption(q.chosenOption),
       total: q.total,
@@ -104,9 +132,18 @@ export async function emailQuote(
       linkUrl: link.url,
       linkExpiresAt: link.expiresAt,
       message: input.message,
+      contact,
     });
     await insertQuoteEvent({ companyId: actor.companyId, quoteId: q.id, kind: 'emailed', actorUserId: actor.user.id, actorLabel: actorLabel(actor), detail: { to, linkId: link.linkId } }, t);
-    await sendMail({ to, subject: mail.subject, text: mail.text, html: mail.html, replyTo: actor.user.email });
+    await sendMail({
+      to,
+      subject: mail.subject,
+      text: mail.text,
+      html: mail.html,
+      fromName: actor.companyName,
+      replyTo: replyToFor(contact, actor.user.email),
+      attachments: [{ filename: pdfFileName(ref, q.siteName), content: pdf, contentType: 'application/pdf' }],
+    });
     return { to, expiresAt: link.expiresAt };
   });
 }

@@ -1,8 +1,9 @@
 import 'server-only';
 import { models } from '@/db/models';
 import { getQuote, insertQuoteEvent, moveQuoteStatus, quotePeople, type QuoteDetail } from '@/db/queries/quotes';
-import { findLinkByTokenHash, recordLinkView, type LinkByToken } from '@/db/queries/share-links';
-import { getCompanyLogoInfo, getCompanyName } from '@/db/queries/branding';
+import { findLinkByTokenHash, quoteSharers, recordLinkView, type LinkByToken } from '@/db/queries/share-links';
+import { getCompanyContact, getCompanyLogoInfo } from '@/db/queries/branding';
+import { findMembership } from '@/db/queries/team';
 import { getPlanLimits } from '@/server/billing/limits';
 import { hashToken, looksLikeToken } from '@/server/auth/tokens';
 import type { RequestMeta } from '@/server/auth/request-meta';
@@ -10,7 +11,10 @@ import { getEnv } from '@/server/env';
 import { ConflictError, NotFoundError } from '@/server/errors';
 import { sendMail } from '@/server/mail/send';
 import { expireOverdueQuotes } from './expire';
-import { decisionToTeamMail } from './mail';
+import { decisionReceiptMail, decisionToTeamMail } from './mail';
+import { decisionRecipients } from './decision-recipients';
+import { pdfFileName, renderQuotePdf } from './pdf/render';
+import { replyToFor, sellerContact, type SellerContact } from './seller-contact';
 import { readQuotedOption } from '@/server/study-option';
 import { isDecided, isPastValidity, OPEN_STATUSES, quoteReference, type DecidedStatus } from './status';
 import { enqueueWebhookEvent } from '@/server/webhooks/outbox';
@@ -18,7 +22,7 @@ import { quoteEventData } from '@/server/webhooks/payloads';
 
 const CUSTOMER_LABEL = 'Customer (comparison link)';
 
-/** The link if it can be opened now; null for unknown, revoked and expired alike (one 404 for all). */
+/** The link if it can be opened now; null for unknown, revoked and expired alike (all answer 404). */
 async function openLink(token: string, now: Date): Promise<LinkByToken | null> {
   if (!looksLikeToken(token)) return null;
   const link = await findLinkByTokenHash(hashToken(token));
@@ -30,6 +34,10 @@ export interface SharedQuote {
   linkId: number;
   companyId: number;
   companyName: string;
+  /** How the customer reaches the seller: the company's contact from branding, else the sender. */
+  contact: SellerContact;
+  /** Opened by a signed-in member of the company (or staff): shown as such, not counted as a customer view. */
+  teamView: boolean;
   /** True when the plan includes quote branding and a logo is on file. */
   showLogo: boolean;
   quote: QuoteDetail;
@@ -43,14 +51,36 @@ export async function loadSharedQuote(token: string, now: Date = new Date()): Pr
   const link = await openLink(token, now);
   if (!link) return null;
   await expireOverdueQuotes(link.companyId, now);
-  const [quote, companyName, limits, logo] = await Promise.all([
+  const [quote, company, limits, logo] = await Promise.all([
     getQuote(link.companyId, link.quoteId),
-    getCompanyName(link.companyId),
+    getCompanyContact(link.companyId),
     getPlanLimits(link.companyId),
     getCompanyLogoInfo(link.companyId),
   ]);
-  if (!quote || !companyName) return null;
-  return { linkId: link.linkId, companyId: link.companyId, companyName, showLogo: limits.quoteBranding && logo !== null, quote };
+  if (!quote || !company) return null;
+  const people = await quotePeople(link.companyId, quote.id);
+  return {
+    linkId: link.linkId,
+    companyId: link.companyId,
+    companyName: company.name,
+    contact: sellerContact(company, people.sender ?? people.creator),
+    teamView: false,
+    showLogo: limits.quoteBranding && logo !== null,
+    quote,
+  };
+}
+
+/**
+ * A link that exists but can no longer be opened (revoked, or past its expiry): the company
+ * behind it and how to reach it, so the customer can ask for a new one. A token that never
+ * existed is null: a guesser learns nothing about any company.
+ */
+export async function closedLinkSeller(token: string, now: Date = new Date()): Promise<SellerContact | null> {
+  if (!looksLikeToken(token)) return null;
+  const link = await findLinkByTokenHash(hashToken(token));
+  if (!link || (!link.revokedAt && link.expiresAt.getTime() > now.getTime())) return null;
+  const [company, people] = await Promise.all([getCompanyContact(link.companyId), quotePeople(link.companyId, link.quoteId)]);
+  return company ? sellerContact(company, people.sender ?? people.creator) : null;
 }
 
 /** The logo for a customer's link (only when the plan includes branding), or null. */
@@ -81,14 +111,17 @@ export interface CustomerDecision {
   decision: 'accept' | 'decline';
   name: string;
   comment: string | null;
+  /** Where the customer asked for a receipt; null sends none. */
+  receiptEmail?: string | null;
 }
 
 /**
  * The customer accepts or declines, once. Under the link and quote row locks: the link must
  * still open, the quote must be sent or viewed and within its validity. A quote found past its
  * validity is recorded as expired (that write is kept) and the decision refused.
- * After commit the sender and the maker of the quote are told by e-mail; a mail failure does not
- * undo the customer's decision (the team sees it in the app either way).
+ * After commit the team is told by e-mail (decisionRecipients) and the customer gets a receipt
+ * when they left an address; a mail failure does not undo the decision (the team sees it in the
+ * app either way, and the customer on the page).
  */
 export async function decideSharedQuote(input: CustomerDecision, meta: RequestMeta, now: Date = new Date()): Promise<{ status: DecidedStatus; quoteId: number }> {
   const link = await openLink(input.token, now);
@@ -116,20 +149,56 @@ export async function decideSharedQuote(input: CustomerDecision, meta: RequestMe
       t,
     );
     if (!moved) throw new ConflictError('This quote cannot be decided on any more.');
-    await insertQuoteEvent({ companyId: link.companyId, quoteId: quote.id, kind: to, fromStatus: quote.status, toStatus: to, actorLabel: `${input.name} (customer)`, detail: { linkId: link.linkId, comment: input.comment }, ip: meta.ip }, t);
+    await insertQuoteEvent({ companyId: link.companyId, quoteId: quote.id, kind: to, fromStatus: quote.status, toStatus: to, actorLabel: `${input.name} (customer)`, detail: { linkId: link.linkId, comment: input.comment, receipt: input.receiptEmail ? true : false }, ip: meta.ip }, t);
     await enqueueWebhookEvent(link.companyId, to === 'accepted' ? 'quote.accepted' : 'quote.declined', quoteEventData(quote, { status: to, at: now, decidedByName: input.name, comment: input.comment }), t, { now });
     return quote;
   });
-  await tellTheTeam(link.companyId, outcome, to, input).catch((error) => console.error('quote decision: team e-mail failed:', (error as Error).message));
+  await tellTheTeam(link.companyId, link.linkId, outcome, to, input).catch((error) => console.error('quote decision: team e-mail failed:', (error as Error).message));
+  if (input.receiptEmail) {
+    await sendReceipt(link.companyId, outcome.id, input.receiptEmail, now).catch((error) => console.error('quote decision: receipt e-mail failed:', (error as Error).message));
+  }
   return { status: to, quoteId: outcome.id };
 }
 
-async function tellTheTeam(companyId: number, quote: QuoteDetail, decision: DecidedStatus, input: CustomerDecision): Promise<void> {
-  const people = await quotePeople(companyId, quote.id);
-  const recipients = new Map<string, string>();
-  for (const p of [people.sender, people.creator]) if (p) recipients.set(p.email, p.name);
+/** The customer's receipt: what they decided, the quote's PDF as it now stands, and who to talk to. */
+async function sendReceipt(companyId: number, quoteId: number, to: string, now: Date): Promise<void> {
+  const [quote, company, people] = await Promise.all([getQuote(companyId, quoteId), getCompanyContact(companyId), quotePeople(companyId, quoteId)]);
+  if (!quote || !company || !isDecided(quote.status)) return;
+  const contact = sellerContact(company, people.sender ?? people.creator);
+  const ref = quoteReference(quote.number);
+  const mail = decisionReceiptMail({
+    companyName: company.name,
+    contact,
+    decision: quote.status,
+    decidedByName: quote.decidedByName ?? '',
+    decidedAt: quote.decidedAt ?? now.toISOString(),
+    reference: ref,
+    siteName: quote.siteName,
+    option: readQuotedOption(quote.chosenOption),
+    total: quote.total,
+    currency: quote.currency,
+    comment: quote.decisionComment,
+  });
+  const pdf = await renderQuotePdf(companyId, company.name, quote, now, contact);
+  await sendMail({
+    to,
+    ...mail,
+    fromName: company.name,
+    replyTo: replyToFor(contact, people.sender?.email ?? null),
+    attachments: [{ filename: pdfFileName(ref, quote.siteName), content: pdf, contentType: 'application/pdf' }],
+  });
+}
+
+async function tellTheTeam(companyId: number, linkId: number, quote: QuoteDetail, decision: DecidedStatus, input: CustomerDecision): Promise<void> {
+  const [people, sharers, company] = await Promise.all([quotePeople(companyId, quote.id), quoteSharers(companyId, quote.id, linkId), getCompanyContact(companyId)]);
+  const recipients = decisionRecipients({
+    author: people.creator,
+    sharers,
+    sender: people.sender,
+    salesContact: company ? { companyName: company.name, email: company.email } : null,
+  });
   const quoteUrl = `${getEnv().APP_URL.replace(/\/$/, '')}/quotes/${quote.id}`;
-  for (const [email, name] of recipients) {
+  for (const { email, name } of recipients) {
     const mail = decisionToTeamMail({
       recipientName: name,
       decision,
@@ -161,11 +230,25 @@ function countsAsView(h: Headers): boolean {
   return !PREVIEW_AGENTS.test(h.get('user-agent') ?? '');
 }
 
-/** The customer's page: the quote for the token (null → 404), counting the view when a person opened it. */
-export async function openSharedPage(token: string, h: Headers, meta: RequestMeta, now: Date = new Date()): Promise<SharedQuote | null> {
-  const shared = await loadSharedQuote(token, now);
-  if (!shared) return null;
-  if (!countsAsView(h)) return shared;
+/** Someone signed in, as the page's caller found them (server/auth/session.ts). */
+export type SignedInViewer = { userId: string; isStaff: boolean } | null;
+
+/** A member of the quote's company, or FadeLedger staff: looking at the customer's view, not a customer. */
+async function isTeamViewer(viewer: SignedInViewer, companyId: number): Promise<boolean> {
+  if (!viewer) return false;
+  if (viewer.isStaff) return true;
+  return (await findMembership(viewer.userId, companyId)) !== null;
+}
+
+/**
+ * The customer's page: the quote for the token (null → 404), counting the view when a person
+ * opened it who is not one of the company's own team (their checks would turn Sent into Viewed).
+ */
+export async function openSharedPage(token: string, h: Headers, meta: RequestMeta, viewer: SignedInViewer = null, now: Date = new Date()): Promise<SharedQuote | null> {
+  const loaded = await loadSharedQuote(token, now);
+  if (!loaded) return null;
+  const shared = { ...loaded, teamView: await isTeamViewer(viewer, loaded.companyId) };
+  if (shared.teamView || !countsAsView(h)) return shared;
   await recordShareView(shared.linkId, shared.companyId, shared.quote, meta, now);
   const status = shared.quote.status === 'sent' ? 'viewed' : shared.quote.status;
   return { ...shared, quote: { ...shared.quote, status } };

@@ -88,6 +88,7 @@ export const createShareLinkSchema = z.object({
 });
 
 export const revokeShareLinkSchema = z.object({ quoteId: idField('quote'), linkId: idField('link') });
+export const copyShareLinkSchema = z.object({ quoteId: idField('quote'), linkId: idField('link') });
 
 export const emailQuoteSchema = z.object({
   quoteId: idField('quote'),
@@ -110,6 +111,8 @@ export const customerDecisionSchema = z
         .max(160, 'Your name must be at most 160 characters.'),
     ),
     comment: optionalText('Comment', 1000),
+    // Where the receipt goes; optional, the customer's choice (nothing is sent without it).
+    receiptEmail: optionalEmail('E-mail for a receipt'),
     confirm: checkboxField(),
   })
   .refine((v) => v.decision !== 'accept' || v.confirm, { path: ['confirm'], message: 'Tick the box to confirm you accept this quote.' });

@@ -5,11 +5,14 @@ import { OptionCards } from '@/components/quote/option-cards';
 import { PriceTable } from '@/components/quote/price-table';
 import { CustomerCautions } from '@/components/quote/customer-cautions';
 import { CustomerDecisionForm } from '@/components/quote/customer-decision-form';
+import { DecisionConfirmation } from '@/components/quote/decision-confirmation';
+import { SellerContactCard } from '@/components/quote/seller-contact-card';
 import { day, dayTime } from '@/components/quote/format';
 import { formatMoney } from '@/server/money-format';
 import { Notice } from '@/components/ui/notice';
 import { openSharedPage } from '@/server/quotes/shared-quote';
 import { requestMetaFrom } from '@/server/auth/request-meta';
+import { validateRequest } from '@/server/auth/session';
 import { siteAndServiceInWords } from '@/server/quotes/present';
 import { figuresSourceInWords } from '@/server/quotes/climate-words';
 import { diameterLabel } from '@/server/study-option';
@@ -19,21 +22,24 @@ export const dynamic = 'force-dynamic';
 
 // Personal pages: never in a search index, and the token never leaves in a Referer header.
 export const metadata: Metadata = {
-  title: 'Your quote',
+  title: { absolute: 'Your quote' },
   robots: { index: false, follow: false, nocache: true, googleBot: { index: false, follow: false } },
   referrer: 'no-referrer',
 };
 
 /**
  * The customer's comparison page (no account). The token is the only key: looked up by its
- * sha256; unknown, expired and revoked links are one and the same 404.
+ * sha256; unknown, expired and revoked links all answer 404 (not-found.tsx beside this page names
+ * the company of an expired or revoked link, and nothing for an unknown one).
  */
 export default async function SharedQuotePage({ params }: { params: Promise<{ token: string }> }) {
   const { token } = await params;
   const h = await headers();
-  const shared = await openSharedPage(token, h, requestMetaFrom(h));
+  const session = await validateRequest();
+  const viewer = session ? { userId: session.user.id, isStaff: session.user.isStaff } : null;
+  const shared = await openSharedPage(token, h, requestMetaFrom(h), viewer);
   if (!shared) notFound();
-  const { quote, companyName, showLogo } = shared;
+  const { quote, companyName, showLogo, contact, teamView } = shared;
   const ref = quoteReference(quote.number);
   const words = siteAndServiceInWords(quote.studySnapshot);
   const sources = figuresSourceInWords(quote.studySnapshot, companyName);
@@ -59,6 +65,11 @@ export default async function SharedQuotePage({ params }: { params: Promise<{ to
       </header>
 
       <main className="mx-auto max-w-5xl space-y-8 px-5 py-8">
+        {teamView && (
+          <Notice tone="caution" title="You are viewing as your team">
+            You are signed in to {companyName}: this visit is not counted as a customer view, and the quote&apos;s status stays as it is. This is what the customer sees.
+          </Notice>
+        )}
         <section aria-labelledby="intro-title">
           <h1 id="intro-title" className="text-2xl font-semibold tracking-tight text-stone-900">
             Hello {quote.customerName}, here is your quote
@@ -80,16 +91,6 @@ export default async function SharedQuotePage({ params }: { params: Promise<{ to
           </dl>
         </section>
 
-        {quote.status === 'accepted' && (
-          <Notice tone="success" title={`You accepted this quote${quote.decidedByName ? `, ${quote.decidedByName}` : ''}`}>
-            Recorded {quote.decidedAt ? dayTime(quote.decidedAt) : ''}. {companyName} has been told and will be in touch to book the installation.
-          </Notice>
-        )}
-        {quote.status === 'declined' && (
-          <Notice title="You declined this quote">
-            Recorded {quote.decidedAt ? dayTime(quote.decidedAt) : ''}{quote.decidedByName ? ` by ${quote.decidedByName}` : ''}. If you change your mind, ask {companyName} for a new quote.
-          </Notice>
-        )}
         {expired && (
           <Notice tone="caution" title="This quote has expired">
             It was valid until {day(quote.validUntil)} and can no longer be accepted. Please ask {companyName} for a new one.
@@ -118,15 +119,35 @@ export default async function SharedQuotePage({ params }: { params: Promise<{ to
           </p>
         </section>
 
-        {!decided && !expired && (
-          <section aria-labelledby="decide-title" className="rounded-md border border-ledger-200 bg-white px-4 py-4 sm:px-5">
-            <h2 id="decide-title" className="text-lg font-semibold text-stone-900">Your decision</h2>
-            <p className="mb-4 mt-1 text-sm text-stone-700">
-              Accept to go ahead with the {chosen.dishName} for {total}, or decline. Your answer goes to {companyName} straight away and can be given once.
-            </p>
-            <CustomerDecisionForm token={token} total={total} companyName={companyName} />
+        {decided ? (
+          // The answer's confirmation sits where the form was, so a customer on a phone sees it where they tapped.
+          <section aria-labelledby="decision-title" className="rounded-md border border-ledger-200 bg-white px-4 py-4 sm:px-5">
+            <DecisionConfirmation labelledBy="decision-title">
+              {quote.status === 'accepted' ? (
+                <Notice tone="success" title={<span id="decision-title">{`You accepted this quote${quote.decidedByName ? `, ${quote.decidedByName}` : ''}`}</span>}>
+                  Recorded {quote.decidedAt ? dayTime(quote.decidedAt) : ''}. {companyName} has been told and will be in touch to book the installation.
+                </Notice>
+              ) : (
+                <Notice title={<span id="decision-title">You declined this quote</span>}>
+                  Recorded {quote.decidedAt ? dayTime(quote.decidedAt) : ''}{quote.decidedByName ? ` by ${quote.decidedByName}` : ''}. If you change your mind, ask {companyName} for a new quote.
+                </Notice>
+              )}
+            </DecisionConfirmation>
+            <SellerContactCard contact={contact} className="mt-4" />
           </section>
+        ) : (
+          !expired && (
+            <section aria-labelledby="decide-title" className="rounded-md border border-ledger-200 bg-white px-4 py-4 sm:px-5">
+              <h2 id="decide-title" className="text-lg font-semibold text-stone-900">Your decision</h2>
+              <p className="mb-4 mt-1 text-sm text-stone-700">
+                Accept to go ahead with the {chosen.dishName} for {total}, or decline. Your answer goes to {companyName} straight away and can be given once.
+              </p>
+              <CustomerDecisionForm token={token} total={total} companyName={companyName} />
+            </section>
+          )
         )}
+
+        {!decided && <SellerContactCard contact={contact} />}
 
         <CustomerCautions transmits={quote.studySnapshot.service.transmits} />
       </main>

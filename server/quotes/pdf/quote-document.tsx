@@ -7,9 +7,12 @@ import { effectiveStatus, isDecided, QUOTE_STATUS_LABELS, quoteReference } from 
 import { formatMoney } from '@/server/money-format';
 import { diameterLabel } from '@/server/study-option';
 import { winAnsi as w } from './win-ansi';
+import { contactSentence, type SellerContact } from '../seller-contact';
 
 export interface QuotePdfData {
   companyName: string;
+  /** How the customer reaches the seller; printed under the company name and at the end. */
+  contact?: SellerContact | null;
   logo: { data: Buffer; mime: 'image/png' | 'image/jpeg'; width: number; height: number } | null;
   quote: QuoteDetail;
   generatedAt: Date;
@@ -57,7 +60,21 @@ function logoBox(logo: NonNullable<QuotePdfData['logo']>): { width: number; heig
 }
 
 /** The quote as a printable document: the same words and figures as the customer's page. */
-export function QuoteDocument({ companyName, logo, quote, generatedAt }: QuotePdfData) {
+/**
+ * A section heading kept with what follows: react-pdf moves it to the next page when less than
+ * `minPresenceAhead` points of content would follow it on this one, so no heading sits alone at a
+ * page foot (tests/unit/quotes/pdf-layout.test.ts checks every page's last line).
+ */
+function Heading({ children, ahead = 90 }: { children: string; ahead?: number }) {
+  return (
+    <Text style={s.h2} minPresenceAhead={ahead}>
+      {w(children)}
+    </Text>
+  );
+}
+
+export function QuoteDocument({ companyName, logo, quote, generatedAt, contact = null }: QuotePdfData) {
+  const reach = contact ? contactSentence(contact) : null;
   const ref = quoteReference(quote.number);
   const money = (a: string) => w(formatMoney(a, quote.currency));
   const words = siteAndServiceInWords(quote.studySnapshot);
@@ -74,6 +91,9 @@ export function QuoteDocument({ companyName, logo, quote, generatedAt }: QuotePd
           <View>
             {logo ? <Image src={{ data: logo.data, format: logo.mime === 'image/png' ? 'png' : 'jpg' }} style={{ ...logoBox(logo), marginBottom: 4 }} /> : null}
             <Text style={s.company}>{w(companyName)}</Text>
+            {contact && (contact.email || contact.phone) ? (
+              <Text style={s.small}>{w([contact.email, contact.phone].filter(Boolean).join(' · '))}</Text>
+            ) : null}
           </View>
           <View style={s.refBlock}>
             <Text style={s.ref}>Quote {ref}</Text>
@@ -111,7 +131,7 @@ export function QuoteDocument({ companyName, logo, quote, generatedAt }: QuotePd
           </View>
         ) : null}
 
-        <Text style={s.h2}>The options we compared</Text>
+        <Heading>The options we compared</Heading>
         <View style={s.table}>
           <View style={s.tr}>
             <Text style={[s.th, s.cDish]}>Dish</Text>
@@ -136,8 +156,9 @@ export function QuoteDocument({ companyName, logo, quote, generatedAt }: QuotePd
         </View>
         <Text style={[s.small, { marginTop: 3 }]}>Dish and fitting: catalogue hardware and labour, before extras, discount and tax. Availability is the share of an average year with signal.</Text>
 
-        <Text style={s.h2}>Price of the quoted option</Text>
+        {/* Heading and price lines move together: the price block never starts a page without its title. */}
         <View wrap={false}>
+          <Text style={s.h2}>Price of the quoted option</Text>
           <View style={s.priceRow}>
             <Text>{w(`Hardware: ${chosen ? chosen.label : diameterLabel(quote.chosenOption.diameterM).words}`)}</Text>
             <Text>{money(quote.hardwarePrice)}</Text>
@@ -174,7 +195,7 @@ export function QuoteDocument({ companyName, logo, quote, generatedAt }: QuotePd
 
         {quote.notes ? (
           <>
-            <Text style={s.h2}>Notes</Text>
+            <Heading ahead={40}>Notes</Heading>
             <Text>{w(quote.notes)}</Text>
           </>
         ) : null}
@@ -185,7 +206,14 @@ export function QuoteDocument({ companyName, logo, quote, generatedAt }: QuotePd
           </View>
         ) : null}
 
-        <Text style={s.h2}>Please read</Text>
+        {reach ? (
+          <View wrap={false}>
+            <Text style={s.h2}>Your contact</Text>
+            <Text>{w(reach)}</Text>
+          </View>
+        ) : null}
+
+        <Heading>Please read</Heading>
         {cautions.map((c) => (
           <Text key={c.title} style={s.caution} wrap={false}>
             <Text style={s.bold}>{w(c.title)}. </Text>

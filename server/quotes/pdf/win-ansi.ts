@@ -4,7 +4,9 @@
  * the rest becomes "?" rather than a blank box or a crash.
  */
 const EXTRA = new Set('€‚ƒ„…†‡ˆ‰Š‹ŒŽ‘’“”•–—˜™š›œžŸ');
-const MAP: Record<string, string> = { '−': '-', '≤': '<=', '≥': '>=', '≈': '~', '→': '->', '←': '<-', '\u2009': ' ', '\u202f': ' ', '\u00a0': ' ' };
+// The apostrophe becomes the ASCII one: as WinAnsi 0x92 it prints, but some viewers' copy, search and
+// read-aloud text drop it ("manufacturer’s" came back as "manufacturers"); 0x27 survives all of them.
+const MAP: Record<string, string> = { '‘': "'", '’': "'", '−': '-', '≤': '<=', '≥': '>=', '≈': '~', '→': '->', '←': '<-', '\u2009': ' ', '\u202f': ' ', '\u00a0': ' ' };
 
 export function winAnsi(text: string): string {
   let out = '';

@@ -49,6 +49,8 @@ export const cases: MatrixCase<never>[] = [
     prepare: async (w) => { await noActiveLinks(w.company.id); return draftIn(w); },
     input: (_w, q: Q) => ({ quoteId: q.quoteId, expiresInDays: '7' }),
   }),
+  // Any role that may share copies a colleague's active link (the installer made this one).
+  actionCase({ file: 'share-links', exportName: 'copyShareLink', action: shareLinks.copyShareLink, access: 'quote.share', allow: COMPANY, prepare: sentIn, input: (_w, s: S) => ({ quoteId: s.quoteId, linkId: s.linkId }) }),
   actionCase({ file: 'share-links', exportName: 'revokeShareLink', action: shareLinks.revokeShareLink, access: 'quote.share', allow: COMPANY, prepare: sentIn, input: (_w, s: S) => ({ quoteId: s.quoteId, linkId: s.linkId }) }),
   actionCase({
     file: 'share-links', exportName: 'emailQuote', action: shareLinks.emailQuote, access: 'quote.share', allow: COMPANY,
@@ -58,6 +60,7 @@ export const cases: MatrixCase<never>[] = [
   // The customer has no account: everyone passes the guard; the link token is the credential.
   actionCase({ file: 'customer-decision', exportName: 'decideQuote', action: decision.decideQuote, access: 'public', allow: EVERYONE, prepare: sentIn, input: (_w, s: S) => ({ token: s.token, decision: 'decline', name: 'Matrix Customer' }) }),
   actionCase({ file: 'branding', exportName: 'uploadLogo', action: branding.uploadLogo, access: 'branding.manage', allow: ADMIN, input: () => ({ logo: png() }) }),
+  actionCase({ file: 'branding', exportName: 'saveCompanyContact', action: branding.saveCompanyContact, access: 'branding.manage', allow: ADMIN, input: () => ({ contactEmail: 'desk@matrix.example', contactPhone: '+44 1632 960 100' }) }),
   actionCase({ file: 'branding', exportName: 'removeLogo', action: branding.removeLogo, access: 'branding.manage', allow: ADMIN, input: () => ({}) }),
 
   routeCase({ method: 'GET', path: '/api/v1/quotes', handler: listQuotesRoute as never, access: 'quote.read', allow: COMPANY, request: () => ({ url: '/api/v1/quotes?status=open&page=1&pageSize=10' }) }),
@@ -80,6 +83,15 @@ export const crossCompany: CrossCompanyCase<never>[] = [
   { name: 'quotes#deleteQuote', prepare: theirDraft, run: (_w, q: Q) => callAction(quotes.deleteQuote, { quoteId: q.quoteId }), unchanged: (_w, q: Q) => unchangedQuote(q.quoteId, 'draft', FIXTURE_NOTES) },
   { name: 'share-links#createShareLink', as: 'sales', prepare: theirDraft, run: (_w, q: Q) => callAction(shareLinks.createShareLink, { quoteId: q.quoteId }), unchanged: (_w, q: Q) => unchangedQuote(q.quoteId, 'draft', FIXTURE_NOTES) },
   { name: 'share-links#emailQuote', as: 'sales', prepare: theirDraft, run: (_w, q: Q) => callAction(shareLinks.emailQuote, { quoteId: q.quoteId, to: 'thief@elsewhere.example' }), unchanged: (_w, q: Q) => unchangedQuote(q.quoteId, 'draft', FIXTURE_NOTES) },
+  {
+    // Their link's URL must not come back: "not found", and the answer carries no token.
+    name: 'share-links#copyShareLink', as: 'sales', prepare: theirSent,
+    run: async (_w, s: S) => {
+      const out = await callAction(shareLinks.copyShareLink, { quoteId: s.quoteId, linkId: s.linkId });
+      if (JSON.stringify(out).includes(s.token)) throw new Error('their token leaked');
+      return out;
+    },
+  },
   {
     name: 'share-links#revokeShareLink', as: 'sales', prepare: theirSent,
     run: (_w, s: S) => callAction(shareLinks.revokeShareLink, { quoteId: s.quoteId, linkId: s.linkId }),

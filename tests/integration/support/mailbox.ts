@@ -33,3 +33,18 @@ export function linkIn(mail: CaughtMail, pathPrefix: string): string {
 }
 
 export const tokenFromLink = (link: string) => link.split('/').pop() as string;
+
+/** The message as it arrived (maildev's parsed headers leave out Reply-To). */
+export async function rawMessage(mail: { id: string }): Promise<string> {
+  const res = await fetch(`${base()}/email/${encodeURIComponent(mail.id)}/source`);
+  if (!res.ok) throw new Error(`mail catcher answered ${res.status}`);
+  return res.text();
+}
+
+/** The addresses in a message's Reply-To header, lower-case and sorted ([] when there is none). */
+export async function replyToOf(mail: { id: string }): Promise<string[]> {
+  const raw = await rawMessage(mail);
+  const head = raw.split(/\r?\n\r?\n/)[0].replace(/\r?\n[ \t]+/g, ' ');
+  const line = /^reply-to:\s*(.*)$/im.exec(head)?.[1] ?? '';
+  return [...line.matchAll(/[^\s<>,"]+@[^\s<>,"]+/g)].map((m) => m[0].toLowerCase()).sort();
+}

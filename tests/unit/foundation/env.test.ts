@@ -13,6 +13,7 @@ const VALID = {
   MAIL_FROM: 'FadeLedger <no-reply@fadeledger.example>',
   STRIPE_SECRET_KEY: 'sk_test_x',
   STRIPE_WEBHOOK_SECRET: 'whsec_x',
+  SHARE_LINK_KEY: Buffer.alloc(32, 7).toString('base64'),
 };
 
 function problemsOf(source: Record<string, string | undefined>) {
@@ -26,6 +27,12 @@ function problemsOf(source: Record<string, string | undefined>) {
 }
 
 describe('parseEnv', () => {
+  it('wants SHARE_LINK_KEY as 32 bytes of base64', () => {
+    expect(problemsOf({ ...VALID, SHARE_LINK_KEY: undefined }).map((p) => p.variable)).toEqual(['SHARE_LINK_KEY']);
+    expect(problemsOf({ ...VALID, SHARE_LINK_KEY: Buffer.alloc(16).toString('base64') })[0].message).toMatch(/32 random bytes/);
+    expect(parseEnv({ ...VALID, SHARE_LINK_KEY: Buffer.alloc(32, 9).toString('base64url') }).SHARE_LINK_KEY).toHaveLength(43);
+  });
+
   it('accepts a complete environment and coerces ports and flags', () => {
     const env = parseEnv({ ...VALID, TRUST_PROXY: 'true' });
     expect(env.DATABASE_PORT).toBe(3307);

@@ -19,7 +19,7 @@ export default async function QuotesPage() {
       />
       <Card>
         <CardBody>
-          <QuotesList />
+          <QuotesList canCreate={can(ctx.role, 'quote.write')} />
         </CardBody>
       </Card>
     </>

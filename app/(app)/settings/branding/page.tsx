@@ -3,16 +3,16 @@ import Link from 'next/link';
 import { PageHeader } from '@/components/ui/page-header';
 import { Card, CardBody, CardHeader } from '@/components/ui/card';
 import { Notice } from '@/components/ui/notice';
-import { RemoveLogoForm, UploadLogoForm } from '@/components/quote/logo-forms';
+import { CompanyContactForm, RemoveLogoForm, UploadLogoForm } from '@/components/quote/logo-forms';
 import { requirePermission } from '@/server/auth/guards';
 import { getPlanLimits } from '@/server/billing/limits';
-import { getCompanyLogoInfo } from '@/db/queries/branding';
+import { getCompanyContact, getCompanyLogoInfo } from '@/db/queries/branding';
 
 export const metadata: Metadata = { title: 'Quote branding' };
 
 export default async function BrandingPage() {
   const ctx = await requirePermission('branding.manage');
-  const [limits, logo] = await Promise.all([getPlanLimits(ctx.companyId), getCompanyLogoInfo(ctx.companyId)]);
+  const [limits, logo, contact] = await Promise.all([getPlanLimits(ctx.companyId), getCompanyLogoInfo(ctx.companyId), getCompanyContact(ctx.companyId)]);
   return (
     <>
       <PageHeader title="Quote branding" description={`Your logo on ${ctx.company.name}’s quote PDFs and on the pages your customers open from a comparison link.`} />
@@ -39,6 +39,12 @@ export default async function BrandingPage() {
               <p className="text-sm text-stone-700">No logo yet.</p>
             )}
             <UploadLogoForm disabled={!limits.quoteBranding} />
+          </CardBody>
+        </Card>
+        <Card aria-labelledby="contact-title">
+          <CardHeader id="contact-title" title="Contact for customers" description="Shown on quote PDFs and customer pages, including a link that no longer opens, so customers can reach you. Left empty, they see the person who sent the quote." />
+          <CardBody>
+            <CompanyContactForm email={contact?.email ?? ''} phone={contact?.phone ?? ''} />
           </CardBody>
         </Card>
       </div>
