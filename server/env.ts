@@ -35,6 +35,15 @@ export const envSchema = z.object({
   STRIPE_API_PORT: port.optional(),
   STRIPE_API_PROTOCOL: z.enum(['http', 'https']).optional(),
 
+  // The campaign job queue (BullMQ). Every web process and worker points at the same Redis.
+  REDIS_URL: z.string().regex(/^rediss?:\/\/[^\s]+$/, 'must be a redis:// or rediss:// URL such as redis://127.0.0.1:6380/0'),
+  // Sites per chunk job of a campaign: smaller chunks spread better over workers, larger ones write fewer transactions.
+  CAMPAIGN_CHUNK_SITES: z.coerce.number().int().min(10).max(20000).default(1000),
+  // Chunks one worker process computes at a time (the engine is CPU-bound: 1 per core is right).
+  CAMPAIGN_WORKER_CONCURRENCY: z.coerce.number().int().min(1).max(16).default(1),
+  // How long a worker holds a chunk without renewing its lock; a killed worker's chunk goes to another after this.
+  CAMPAIGN_JOB_LOCK_SECONDS: z.coerce.number().int().min(2).max(600).default(30),
+
   // Behind a load balancer, trust its X-Forwarded-For for throttling and the audit log.
   TRUST_PROXY: flag.default(false),
 });

@@ -17,7 +17,7 @@ import { OVERDUE_STATUSES } from './policy';
  *  - the free tier's limits once a trial has ended, the grace period is over, or the provider
  *    paused the subscription. Nothing is deleted: existing rows stay, only new ones are refused.
  */
-export type LimitName = 'seats' | 'studiesPerMonth' | 'activeLinks' | 'uploadsPerMonth' | 'apiAccess' | 'quoteBranding';
+export type LimitName = 'seats' | 'studiesPerMonth' | 'activeLinks' | 'uploadsPerMonth' | 'apiAccess' | 'quoteBranding' | 'campaignSites';
 
 /** Why these limits apply; the billing banner and every limit message read it. */
 export type LimitsBasis =
@@ -37,6 +37,8 @@ export type PlanLimits = {
   studiesPerMonth: number;
   activeLinks: number;
   uploadsPerMonth: number;
+  /** Sites one upgrade campaign may hold (checked per campaign, not counted over a month). */
+  campaignSites: number;
   apiAccess: boolean;
   quoteBranding: boolean;
   /** The plan the company is on (subscribed, trial or assigned), which may differ from the above. */
@@ -55,12 +57,13 @@ type PlanRow = {
   studies_per_month: number;
   active_links_limit: number;
   uploads_per_month: number;
+  campaign_sites_limit: number;
   api_access: number | boolean;
   quote_branding: number | boolean;
   trial_ends_at: Date | null;
 };
 
-const limitsOf = (p: { id: number; code: string; name: string; seatLimit: number; studiesPerMonth: number; activeLinksLimit: number; uploadsPerMonth: number; apiAccess: boolean; quoteBranding: boolean }) => ({
+const limitsOf = (p: { id: number; code: string; name: string; seatLimit: number; studiesPerMonth: number; activeLinksLimit: number; uploadsPerMonth: number; campaignSitesLimit: number; apiAccess: boolean; quoteBranding: boolean }) => ({
   planId: p.id,
   planCode: p.code,
   planName: p.name,
@@ -68,6 +71,7 @@ const limitsOf = (p: { id: number; code: string; name: string; seatLimit: number
   studiesPerMonth: p.studiesPerMonth,
   activeLinks: p.activeLinksLimit,
   uploadsPerMonth: p.uploadsPerMonth,
+  campaignSites: p.campaignSitesLimit,
   apiAccess: Boolean(p.apiAccess),
   quoteBranding: Boolean(p.quoteBranding),
 });
@@ -82,7 +86,7 @@ export async function getPlanLimits(companyId: number, t?: Transaction, opts: { 
   const { sequelize } = models();
   const now = opts.now ?? new Date();
   const rows = await sequelize.query<PlanRow>(
-    `SELECT p.id, p.code, p.name, p.kind, p.seat_limit, p.studies_per_month, p.active_links_limit, p.uploads_per_month, p.api_access, p.quote_branding, c.trial_ends_at
+    `SELECT p.id, p.code, p.name, p.kind, p.seat_limit, p.studies_per_month, p.active_links_limit, p.uploads_per_month, p.campaign_sites_limit, p.api_access, p.quote_branding, c.trial_ends_at
        FROM companies c JOIN plans p ON p.id = c.plan_id
       WHERE c.id = :companyId${locking ? ' LOCK IN SHARE MODE' : ''}`,
     { replacements: { companyId }, type: QueryTypes.SELECT, transaction: t },
@@ -97,6 +101,7 @@ export async function getPlanLimits(companyId: number, t?: Transaction, opts: { 
     studiesPerMonth: p.studies_per_month,
     activeLinksLimit: p.active_links_limit,
     uploadsPerMonth: p.uploads_per_month,
+    campaignSitesLimit: p.campaign_sites_limit,
     apiAccess: Boolean(p.api_access),
     quoteBranding: Boolean(p.quote_branding),
   });
@@ -198,6 +203,8 @@ export function limitMessage(limit: LimitName, limits: PlanLimits, used: number)
       return `The ${plan} plan allows ${plural(limits.uploadsPerMonth, 'upload', 'uploads')} a month and ${used} have been made this month (the count restarts on the 1st, UTC). ${raise}`;
     case 'apiAccess':
       return `The trade-off API is not part of the ${plan} plan. ${raise}`;
+    case 'campaignSites':
+      return `The ${plan} plan allows ${limits.campaignSites.toLocaleString('en-US')} sites in one campaign and this file has more (${used.toLocaleString('en-US')} so far). Split it into several campaigns — or: ${raise}`;
     case 'quoteBranding':
       return `Quote branding (your logo and colours on quotes) is not part of the ${plan} plan. ${raise}`;
   }
@@ -234,6 +241,10 @@ export async function assertWithinLimit(companyId: number, limit: LimitName, t: 
     return;
   }
   const adding = opts.adding ?? 1;
+  if (limit === 'campaignSites') {
+    if (adding > limits.campaignSites) throw new PlanLimitError(limit, limitMessage(limit, limits, adding));
+    return;
+  }
   const used = await COUNTED[limit](companyId, t);
   if (used + adding > limits[limit]) throw new PlanLimitError(limit, limitMessage(limit, limits, used));
 }
