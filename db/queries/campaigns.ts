@@ -179,11 +179,11 @@ export async function markCampaignQueued(campaignId: number, o: { rowsTotal: num
 
 /** Cancels a queued or running campaign of this company; false when there is none to cancel. */
 export async function cancelCampaignRow(companyId: number, id: number): Promise<boolean> {
-  const [, meta] = await sql().query(
+  const [, affected] = await sql().query(
     `UPDATE campaigns SET status = 'cancelled', finished_at = :now, updated_at = :now WHERE id = :id AND company_id = :companyId AND status IN ('queued', 'running')`,
-    { replacements: { id, companyId, now: new Date() } },
+    { replacements: { id, companyId, now: new Date() }, type: QueryTypes.UPDATE },
   );
-  return Number((meta as { affectedRows?: number })?.affectedRows ?? 0) > 0;
+  return Number(affected) > 0;
 }
 
 export async function markCampaignFailed(campaignId: number, message: string): Promise<void> {

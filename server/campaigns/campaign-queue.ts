@@ -15,15 +15,15 @@ export interface ChunkJobData {
 const REACH_TIMEOUT_MS = 2000;
 
 /**
- * A Redis connection for the queue. Web processes fail fast when Redis is down (no offline
- * queue, a short connect timeout), so a submit answers 503 instead of hanging; workers keep
- * retrying forever (BullMQ wants maxRetriesPerRequest null for blocking commands).
+ * A Redis connection for the queue. Web processes give up on a command after one reconnect and
+ * every queue call is also bounded by a timeout (withTimeout), so a submit answers 503 instead of
+ * hanging; workers keep retrying forever (BullMQ wants maxRetriesPerRequest null for blocking commands).
  */
 export function redisConnection(kind: 'web' | 'worker'): Redis {
   const url = getEnv().REDIS_URL;
   return kind === 'worker'
     ? new IORedis(url, { maxRetriesPerRequest: null })
-    : new IORedis(url, { maxRetriesPerRequest: 1, enableOfflineQueue: false, connectTimeout: REACH_TIMEOUT_MS, lazyConnect: true, retryStrategy: (n) => Math.min(n * 200, 2000) });
+    : new IORedis(url, { maxRetriesPerRequest: 1, connectTimeout: REACH_TIMEOUT_MS, retryStrategy: (n) => Math.min(n * 200, 2000) });
 }
 
 // One connection per web process: a cache of a socket, not state that must survive or be shared.
@@ -52,7 +52,6 @@ async function withTimeout<T>(p: Promise<T>, ms: number): Promise<T> {
 export async function assertQueueReachable(): Promise<void> {
   const { connection } = webQueue();
   try {
-    if (connection.status === 'wait' || connection.status === 'end') await withTimeout(connection.connect(), REACH_TIMEOUT_MS);
     await withTimeout(connection.ping(), REACH_TIMEOUT_MS);
   } catch {
     throw new QueueUnavailableError();
