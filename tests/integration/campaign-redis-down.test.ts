@@ -8,7 +8,8 @@ import { createStudyWorld, type StudyWorld } from './studies-fixtures';
 /**
  * Redis out of reach when a campaign is submitted: 503 with words, and nothing kept in MariaDB or
  * queued. The app's modules are loaded afresh with REDIS_URL pointing at a port where nothing
- * listens (the environment is read once per process, so this file imports them after changing it).
+ * listens (the environment is read once per process, so this file imports them after changing it;
+ * the Sequelize instance is shared through globalThis and stays open).
  */
 let company: TestCompany;
 let world: StudyWorld;
@@ -26,8 +27,6 @@ beforeAll(async () => {
       s.close(() => resolve(port));
     });
   });
-  const { closeSequelize } = await import('@/db/sequelize');
-  await closeSequelize();
 });
 
 afterAll(async () => {
