@@ -10,7 +10,7 @@
  *     .local/run/app-test.pid) and of each worker;
  *  3. with --million: a 1 000 000-site file with 2 workers, total time and the web process's peak memory;
  *     --million-upload: only the upload of that file (time, web peak memory), then the campaign is cancelled.
- * --engine-only skips 2 and 3. Sites are invented (bench data).
+ * --engine-only skips 2 and 3; --skip-engine skips 1. Sites are invented (bench data).
  */
 import { spawn, type ChildProcess } from 'node:child_process';
 import { createHash, randomBytes } from 'node:crypto';
@@ -224,7 +224,7 @@ async function endToEnd(million: boolean) {
 }
 
 async function main() {
-  await engineOnly();
+  if (!args.has('--skip-engine')) await engineOnly();
   if (!args.has('--engine-only')) await endToEnd(args.has('--million'));
 }
 
