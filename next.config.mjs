@@ -26,6 +26,7 @@ const nextConfig = {
     return [
       { source: '/_next/static/:path*', headers: everywhere },
       { source: '/api/webhooks/:path*', headers: [...everywhere, ...webhook] },
+      { source: '/api/campaign-uploads', headers: [...everywhere, ...webhook] },
       ...['/share/:path*', '/reset-password/:path*', '/invite/:path*', '/sign-up/confirm/:path*', '/unlock/:path*'].map((source) => ({ source, headers: tokenPage })),
     ];
   },

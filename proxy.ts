@@ -84,10 +84,10 @@ export async function proxy(req: NextRequest): Promise<NextResponse> {
 
 export const config = {
   matcher: [
-    // Everything except built assets and the payment webhook. The webhook streams its own body
-    // under a 512 KB cap; with the proxy in front, Next would first copy up to
-    // proxyClientMaxBodySize of it and wait for the whole upload (next.config.mjs gives that
-    // path the static headers instead).
-    '/((?!_next/static|_next/image|favicon.ico|api/webhooks/).*)',
+    // Everything except built assets, the payment webhook and the campaign upload. Both stream
+    // their own bodies (the webhook under a 512 KB cap, a campaign file up to ~100 MB); with the
+    // proxy in front, Next would first copy up to proxyClientMaxBodySize of the body and wait for
+    // the whole upload (next.config.mjs gives those paths the static headers instead).
+    '/((?!_next/static|_next/image|favicon.ico|api/webhooks/|api/campaign-uploads).*)',
   ],
 };

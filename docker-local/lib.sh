@@ -28,6 +28,8 @@ load_env() {
   MARIADB_DIR="$LOCAL/mariadb"
   MARIADB_SOCK="$RUN/mariadb.sock"
   MARIADB_PID="$RUN/mariadb.pid"
+  REDIS_DIR="$LOCAL/redis-$profile"
+  REDIS_PID="$RUN/redis-$profile.pid"
 }
 
 # FADELEDGER_PORT_OFFSET=N moves every port of the profile by N, so a second checkout (a fresh
@@ -38,8 +40,10 @@ apply_port_offset() {
   [ "$n" = 0 ] && return 0
   APP_PORT=$((APP_PORT + n)); DATABASE_PORT=$((DATABASE_PORT + n)); SMTP_PORT=$((SMTP_PORT + n))
   MAIL_WEB_PORT=$((MAIL_WEB_PORT + n)); STRIPE_API_PORT=$((STRIPE_API_PORT + n)); STRIPE_FAKE_PORT=$((STRIPE_FAKE_PORT + n))
+  REDIS_PORT=$((REDIS_PORT + n))
   APP_URL="$(printf '%s' "$APP_URL" | sed -E "s#:[0-9]+\$#:$APP_PORT#")"
-  say "ports moved by $n (FADELEDGER_PORT_OFFSET): app $APP_PORT, MariaDB $DATABASE_PORT, mail $SMTP_PORT/$MAIL_WEB_PORT, payments $STRIPE_FAKE_PORT"
+  REDIS_URL="$(printf '%s' "$REDIS_URL" | sed -E "s#:[0-9]+(/[0-9]*)?\$#:$REDIS_PORT\1#")"
+  say "ports moved by $n (FADELEDGER_PORT_OFFSET): app $APP_PORT, MariaDB $DATABASE_PORT, Redis $REDIS_PORT, mail $SMTP_PORT/$MAIL_WEB_PORT, payments $STRIPE_FAKE_PORT"
 }
 
 # require_port_free PORT WHAT — a port held by something that is not ours gets a clear message
@@ -68,6 +72,12 @@ ensure_secrets() {
   if ! grep -q '^SHARE_LINK_KEY=' "$LOCAL/secrets.env"; then
     printf 'SHARE_LINK_KEY=%s\n' "$(node -e "process.stdout.write(require('crypto').randomBytes(32).toString('base64'))")" >> "$LOCAL/secrets.env"
   fi
+}
+
+# The test profile's settings for single-file runs (`set -a; . .local/test.env; set +a`): every
+# variable the app, the workers and the tests read, values quoted for the shell.
+write_test_env() {
+  env | grep -E '^(APP_|DATABASE_|SMTP_|MAIL_|STRIPE_|SHARE_LINK_KEY|REDIS_|CAMPAIGN_|WEBHOOK|TRUST_PROXY)' | sed 's/^\([^=]*\)=\(.*\)$/\1='"'"'\2'"'"'/' > "$LOCAL/test.env"
 }
 
 ensure_node_modules() {
@@ -128,6 +138,45 @@ stop_mariadb() {
     local pid; pid="$(cat "$MARIADB_PID" 2>/dev/null || true)"
     for _ in $(seq 1 50); do [ -n "$pid" ] && kill -0 "$pid" 2>/dev/null || break; sleep 0.2; done
   fi
+}
+
+redis_ping() { redis-cli -h 127.0.0.1 -p "$REDIS_PORT" ping 2>/dev/null | grep -q PONG; }
+
+# Redis holds the campaign job queue (BullMQ). Its own data folder per profile, append-only file on,
+# so queued chunks survive a restart; loopback only.
+start_redis() {
+  apt_install redis-server /usr/bin/redis-server
+  mkdir -p "$REDIS_DIR"
+  if redis_ping; then
+    say "Redis already running on 127.0.0.1:$REDIS_PORT (reusing it)"
+    return 0
+  fi
+  require_port_free "$REDIS_PORT" "Redis"
+  say "starting Redis on 127.0.0.1:$REDIS_PORT (data in ${REDIS_DIR#"$ROOT/"}, append-only)"
+  /usr/bin/redis-server --port "$REDIS_PORT" --bind 127.0.0.1 --dir "$REDIS_DIR" --appendonly yes \
+    --daemonize yes --pidfile "$REDIS_PID" --logfile "$RUN/redis-$PROFILE.log" --save "" \
+    >/dev/null 2>&1 || { tail -20 "$RUN/redis-$PROFILE.log" 2>/dev/null || true; fail "Redis did not start (log: .local/run/redis-$PROFILE.log)"; }
+  for _ in $(seq 1 50); do redis_ping && break; sleep 0.1; done
+  redis_ping || { tail -20 "$RUN/redis-$PROFILE.log" 2>/dev/null || true; fail "Redis did not answer on 127.0.0.1:$REDIS_PORT (log: .local/run/redis-$PROFILE.log)"; }
+  STARTED+=(redis)
+}
+
+stop_redis() {
+  if redis_ping; then
+    say "stopping Redis"
+    redis-cli -h 127.0.0.1 -p "$REDIS_PORT" shutdown >/dev/null 2>&1 || true
+    local pid; pid="$(cat "$REDIS_PID" 2>/dev/null || true)"
+    for _ in $(seq 1 50); do [ -n "$pid" ] && kill -0 "$pid" 2>/dev/null || break; sleep 0.1; done
+  fi
+}
+
+# start_worker NAME — one campaign worker process (server/campaigns/worker-main.ts); more can run
+# on any machine with `npm run worker` pointed at the same Redis and MariaDB.
+start_worker() {
+  start_bg "$1" node --conditions=react-server --import tsx "$ROOT/server/campaigns/worker-main.ts"
+  sleep 0.5
+  kill -0 "$(cat "$RUN/$1.pid")" 2>/dev/null || { tail -20 "$RUN/$1.log"; fail "the campaign worker exited (log: .local/run/$1.log)"; }
+  say "campaign worker started (log: .local/run/$1.log)"
 }
 
 # ensure_database [fresh] — the app's database and user; "fresh" drops the database first (tests).
@@ -237,6 +286,7 @@ stop_started() {
   for (( i=${#STARTED[@]}-1; i>=0; i-- )); do
     case "${STARTED[$i]}" in
       mariadb) stop_mariadb ;;
+      redis) stop_redis ;;
       *) stop_bg "${STARTED[$i]}" ;;
     esac
   done

@@ -9,12 +9,14 @@ trap 'echo; say "stopping…"; exit 0' INT TERM
 
 ensure_node_modules
 start_mariadb
+start_redis
 ensure_database
 migrate_and_seed
 start_mail
 start_payments
 build_if_needed
 start_app
+start_worker "worker-$PROFILE"
 
 node node_modules/tsx/dist/cli.mjs docker-local/print-demo.ts
 say "FadeLedger is running at $APP_URL  (Ctrl-C stops it; data stays in .local/)"

@@ -11,10 +11,12 @@ T0=$(date +%s)
 ensure_node_modules
 apt_install chromium /usr/bin/chromium
 start_mariadb
+start_redis
+redis-cli -h 127.0.0.1 -p "$REDIS_PORT" flushall >/dev/null
 ensure_database fresh
 migrate_and_seed
 # Integration tests and single-file runs read the test environment from here.
-env | grep -E '^(APP_|DATABASE_|SMTP_|MAIL_|STRIPE_|SHARE_LINK_KEY|TRUST_PROXY)' | sed 's/^\([^=]*\)=\(.*\)$/\1='"'"'\2'"'"'/' > "$LOCAL/test.env"
+write_test_env
 start_mail
 start_payments
 
@@ -31,6 +33,8 @@ if node node_modules/vitest/vitest.mjs run; then results+=("vitest: passed"); el
 
 build_if_needed
 start_app
+# The browser specs submit campaigns: one worker computes them.
+start_worker "worker-$PROFILE"
 say "playwright: browser tests in /usr/bin/chromium"
 if PLAYWRIGHT_SKIP_BROWSER_DOWNLOAD=1 node node_modules/@playwright/test/cli.js test; then results+=("playwright: passed"); else results+=("playwright: FAILED"); status=1; fi
 

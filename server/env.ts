@@ -40,6 +40,14 @@ export const envSchema = z.object({
   SHARE_LINK_KEY: z
     .string()
     .refine((v) => /^[A-Za-z0-9+/_-]{43}=?$/.test(v) && Buffer.from(v, v.includes('-') || v.includes('_') ? 'base64url' : 'base64').length === 32, 'must be 32 random bytes in base64 (openssl rand -base64 32)'),
+  // The campaign job queue (BullMQ). Every web process and worker points at the same Redis.
+  REDIS_URL: z.string().regex(/^rediss?:\/\/[^\s]+$/, 'must be a redis:// or rediss:// URL such as redis://127.0.0.1:6380/0'),
+  // Sites per chunk job of a campaign: smaller chunks spread better over workers, larger ones write fewer transactions.
+  CAMPAIGN_CHUNK_SITES: z.coerce.number().int().min(10).max(20000).default(1000),
+  // Chunks one worker process computes at a time (the engine is CPU-bound: 1 per core is right).
+  CAMPAIGN_WORKER_CONCURRENCY: z.coerce.number().int().min(1).max(16).default(1),
+  // How long a worker holds a chunk without renewing its lock; a killed worker's chunk goes to another after this.
+  CAMPAIGN_JOB_LOCK_SECONDS: z.coerce.number().int().min(2).max(600).default(30),
 
   // Behind a load balancer, trust its X-Forwarded-For for throttling and the audit log.
   TRUST_PROXY: flag.default(false),

@@ -54,7 +54,7 @@ export class ConflictError extends AppError {
 /** A plan limit is reached; the message names the limit and how to raise it: 403 with code plan_limit. */
 export class PlanLimitError extends AppError {
   constructor(
-    public readonly limit: 'seats' | 'studiesPerMonth' | 'activeLinks' | 'uploadsPerMonth' | 'apiAccess' | 'quoteBranding',
+    public readonly limit: 'seats' | 'studiesPerMonth' | 'activeLinks' | 'uploadsPerMonth' | 'apiAccess' | 'quoteBranding' | 'campaignSites',
     message: string,
   ) {
     super(message, 403, 'plan_limit');
@@ -68,5 +68,12 @@ export class RateLimitedError extends AppError {
     message = `Too many attempts. Try again in ${Math.max(1, Math.ceil(retryAfterSeconds / 60))} minutes.`,
   ) {
     super(message, 429, 'rate_limited');
+  }
+}
+
+/** The job queue (Redis) cannot be reached: 503 with words; nothing was queued. */
+export class QueueUnavailableError extends AppError {
+  constructor(message = 'Campaigns cannot be started right now: the job queue (Redis) is out of reach. Nothing was queued; try again in a minute, or ask your administrator to start Redis.') {
+    super(message, 503, 'queue_unavailable');
   }
 }

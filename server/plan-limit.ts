@@ -24,6 +24,11 @@ export async function assertWithinPlan(lock: CompanyLock, limit: LimitName, opts
     return;
   }
   const adding = opts.adding ?? 1;
+  // Sites per campaign is a size, not a count over time: `adding` is the campaign's size.
+  if (limit === 'campaignSites') {
+    if (adding > limits.campaignSites) throw new PlanLimitError(limit, limitMessage(limit, limits, adding));
+    return;
+  }
   const used = await COUNTED[limit](companyId, t);
   if (used + adding > limits[limit]) throw new PlanLimitError(limit, limitMessage(limit, limits, used));
 }

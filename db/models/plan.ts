@@ -12,6 +12,8 @@ export class Plan extends Model<InferAttributes<Plan>, InferCreationAttributes<P
   declare studiesPerMonth: number;
   declare activeLinksLimit: number;
   declare uploadsPerMonth: number;
+  /** Sites one upgrade campaign may hold (a per-campaign cap, not a monthly count). */
+  declare campaignSitesLimit: CreationOptional<number>;
   declare apiAccess: CreationOptional<boolean>;
   declare quoteBranding: CreationOptional<boolean>;
   declare kind: CreationOptional<'trial' | 'free' | 'paid'>;
@@ -36,6 +38,7 @@ export function initPlan(sequelize: Sequelize): void {
       studiesPerMonth: { type: DataTypes.INTEGER, allowNull: false },
       activeLinksLimit: { type: DataTypes.INTEGER, allowNull: false },
       uploadsPerMonth: { type: DataTypes.INTEGER, allowNull: false },
+      campaignSitesLimit: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 5000 },
       apiAccess: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
       quoteBranding: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
       kind: { type: DataTypes.ENUM('trial', 'free', 'paid'), allowNull: false, defaultValue: 'paid' },

@@ -17,7 +17,7 @@ import { LIVE_STATUSES, OVERDUE_STATUSES } from './policy';
  *  - the free tier's limits once a trial has ended, the grace period is over, or the provider
  *    paused the subscription. Nothing is deleted: existing rows stay, only new ones are refused.
  */
-export type LimitName = 'seats' | 'studiesPerMonth' | 'activeLinks' | 'uploadsPerMonth' | 'apiAccess' | 'quoteBranding';
+export type LimitName = 'seats' | 'studiesPerMonth' | 'activeLinks' | 'uploadsPerMonth' | 'apiAccess' | 'quoteBranding' | 'campaignSites';
 
 /** Why these limits apply; the billing banner and every limit message read it. */
 export type LimitsBasis =
@@ -37,6 +37,8 @@ export type PlanLimits = {
   studiesPerMonth: number;
   activeLinks: number;
   uploadsPerMonth: number;
+  /** Sites one upgrade campaign may hold (checked per campaign, not counted over a month). */
+  campaignSites: number;
   apiAccess: boolean;
   quoteBranding: boolean;
   /** The plan the company is on (subscribed, trial or assigned), which may differ from the above. */
@@ -55,12 +57,13 @@ type PlanRow = {
   studies_per_month: number;
   active_links_limit: number;
   uploads_per_month: number;
+  campaign_sites_limit: number;
   api_access: number | boolean;
   quote_branding: number | boolean;
   trial_ends_at: Date | null;
 };
 
-const limitsOf = (p: { id: number; code: string; name: string; seatLimit: number; studiesPerMonth: number; activeLinksLimit: number; uploadsPerMonth: number; apiAccess: boolean; quoteBranding: boolean }) => ({
+const limitsOf = (p: { id: number; code: string; name: string; seatLimit: number; studiesPerMonth: number; activeLinksLimit: number; uploadsPerMonth: number; campaignSitesLimit: number; apiAccess: boolean; quoteBranding: boolean }) => ({
   planId: p.id,
   planCode: p.code,
   planName: p.name,
@@ -68,6 +71,7 @@ const limitsOf = (p: { id: number; code: string; name: string; seatLimit: number
   studiesPerMonth: p.studiesPerMonth,
   activeLinks: p.activeLinksLimit,
   uploadsPerMonth: p.uploadsPerMonth,
+  campaignSites: p.campaignSitesLimit,
   apiAccess: Boolean(p.apiAccess),
   quoteBranding: Boolean(p.quoteBranding),
 });
@@ -78,7 +82,7 @@ const limitsOf = (p: { id: number; code: string; name: string; seatLimit: number
  * state, as two scalar sub-queries) in the same round trip as who is calling.
  */
 export const PLAN_LIMIT_COLUMNS = `pl.id AS pl_id, pl.code AS pl_code, pl.name AS pl_name, pl.kind AS pl_kind, pl.seat_limit AS pl_seat_limit,
-  pl.studies_per_month AS pl_studies_per_month, pl.active_links_limit AS pl_active_links_limit, pl.uploads_per_month AS pl_uploads_per_month,
+  pl.studies_per_month AS pl_studies_per_month, pl.active_links_limit AS pl_active_links_limit, pl.uploads_per_month AS pl_uploads_per_month, pl.campaign_sites_limit AS pl_campaign_sites_limit,
   pl.api_access AS pl_api_access, pl.quote_branding AS pl_quote_branding, c.trial_ends_at AS pl_trial_ends_at,
   (SELECT s.status FROM subscriptions s WHERE s.company_id = c.id AND s.status IN (${LIVE_STATUSES.map((x) => `'${x}'`).join(',')}) ORDER BY s.created_at DESC, s.id DESC LIMIT 1) AS pl_live_status,
   (SELECT s.grace_ends_at FROM subscriptions s WHERE s.company_id = c.id AND s.status IN (${LIVE_STATUSES.map((x) => `'${x}'`).join(',')}) ORDER BY s.created_at DESC, s.id DESC LIMIT 1) AS pl_live_grace_ends_at`;
@@ -87,7 +91,7 @@ export const PLAN_LIMITS_JOIN = 'LEFT JOIN plans pl ON pl.id = c.plan_id';
 /** The PLAN_LIMIT_COLUMNS of one row (null when the row had no company). */
 export type PlanLimitRow = {
   pl_id: number | null; pl_code: string; pl_name: string; pl_kind: 'trial' | 'free' | 'paid'; pl_seat_limit: number; pl_studies_per_month: number;
-  pl_active_links_limit: number; pl_uploads_per_month: number; pl_api_access: number | boolean; pl_quote_branding: number | boolean; pl_trial_ends_at: Date | null;
+  pl_active_links_limit: number; pl_uploads_per_month: number; pl_campaign_sites_limit: number; pl_api_access: number | boolean; pl_quote_branding: number | boolean; pl_trial_ends_at: Date | null;
   pl_live_status: SubscriptionStatus | null; pl_live_grace_ends_at: Date | null;
 };
 
@@ -108,7 +112,7 @@ export async function getPlanLimits(companyId: number, t?: Transaction, opts: { 
     return planLimitsFromRow(row, { now, t });
   }
   const rows = await sequelize.query<PlanRow>(
-    `SELECT p.id, p.code, p.name, p.kind, p.seat_limit, p.studies_per_month, p.active_links_limit, p.uploads_per_month, p.api_access, p.quote_branding, c.trial_ends_at
+    `SELECT p.id, p.code, p.name, p.kind, p.seat_limit, p.studies_per_month, p.active_links_limit, p.uploads_per_month, p.campaign_sites_limit, p.api_access, p.quote_branding, c.trial_ends_at
        FROM companies c JOIN plans p ON p.id = c.plan_id
       WHERE c.id = :companyId LOCK IN SHARE MODE`,
     { replacements: { companyId }, type: QueryTypes.SELECT, transaction: t },
@@ -123,7 +127,7 @@ export async function getPlanLimits(companyId: number, t?: Transaction, opts: { 
 export async function planLimitsFromRow(r: PlanLimitRow, opts: { now?: Date; t?: Transaction } = {}): Promise<PlanLimits> {
   const p: PlanRow = {
     id: r.pl_id!, code: r.pl_code, name: r.pl_name, kind: r.pl_kind, seat_limit: r.pl_seat_limit, studies_per_month: r.pl_studies_per_month, active_links_limit: r.pl_active_links_limit,
-    uploads_per_month: r.pl_uploads_per_month, api_access: r.pl_api_access, quote_branding: r.pl_quote_branding, trial_ends_at: r.pl_trial_ends_at === null ? null : new Date(r.pl_trial_ends_at),
+    uploads_per_month: r.pl_uploads_per_month, campaign_sites_limit: r.pl_campaign_sites_limit, api_access: r.pl_api_access, quote_branding: r.pl_quote_branding, trial_ends_at: r.pl_trial_ends_at === null ? null : new Date(r.pl_trial_ends_at),
   };
   const live = r.pl_live_status ? { status: r.pl_live_status, graceEndsAt: r.pl_live_grace_ends_at === null ? null : new Date(r.pl_live_grace_ends_at) } : null;
   return limitsFor(p, live, opts.now ?? new Date(), opts.t);
@@ -138,6 +142,7 @@ async function limitsFor(p: PlanRow, live: { status: SubscriptionStatus; graceEn
     studiesPerMonth: p.studies_per_month,
     activeLinksLimit: p.active_links_limit,
     uploadsPerMonth: p.uploads_per_month,
+    campaignSitesLimit: p.campaign_sites_limit,
     apiAccess: Boolean(p.api_access),
     quoteBranding: Boolean(p.quote_branding),
   });
@@ -239,6 +244,8 @@ export function limitMessage(limit: LimitName, limits: PlanLimits, used: number)
       return `The ${plan} plan allows ${plural(limits.uploadsPerMonth, 'upload', 'uploads')} a month and ${used} have been made this month (the count restarts on the 1st, UTC). ${raise}`;
     case 'apiAccess':
       return `The trade-off API is not part of the ${plan} plan. ${raise}`;
+    case 'campaignSites':
+      return `The ${plan} plan allows ${limits.campaignSites.toLocaleString('en-US')} sites in one campaign and this file has more (${used.toLocaleString('en-US')} so far). Split it into several campaigns — or: ${raise}`;
     case 'quoteBranding':
       return `Quote branding (your logo and colours on quotes) is not part of the ${plan} plan. ${raise}`;
   }

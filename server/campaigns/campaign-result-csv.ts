@@ -54,12 +54,34 @@ const fixed = (n: number | null, digits: number) => (n === null ? '' : n.toFixed
  * would run as a formula are escaped.
  */
 export function campaignResultCsv(results: CampaignResultRow[], problems: CampaignProblem[] = []): string {
-  const lines: { line: number; cells: string[] }[] = results.map((r) => {
-    // Outside the P.618 model range the engine gives a bound, not a value: the bound column says which way.
-    const read = readCampaignRow(r);
-    return {
-      line: r.line,
-      cells: [
+  const lines: { line: number; cells: string[] }[] = results.map((r) => ({ line: r.line, cells: campaignResultCells(r) }));
+  for (const p of problems) lines.push({ line: p.line ?? 0, cells: campaignProblemCells(p) });
+  // Stable sort: a line with several problems keeps them in the order found.
+  lines.sort((a, b) => a.line - b.line);
+  return Papa.unparse({ fields: [...CAMPAIGN_RESULT_HEADER], data: lines.map((l) => l.cells) }, CSV_OPTIONS);
+}
+
+const CSV_OPTIONS = { newline: '\r\n', escapeFormulae: true } as const;
+
+/** The header line of the result file, with its line break (for files streamed row by row). */
+export const campaignResultHeaderLine = () => Papa.unparse({ fields: [...CAMPAIGN_RESULT_HEADER], data: [] }, CSV_OPTIONS).replace(/(\r\n)?$/, '\r\n');
+
+/** One row of the result file as text, without its line break, exactly as campaignResultCsv writes it. */
+export const campaignCsvLine = (cells: string[]) => Papa.unparse([cells], CSV_OPTIONS);
+
+/** The cells of a line that could not be computed: "not computed: …" in the recommendation column. */
+export function campaignProblemCells(p: CampaignProblem): string[] {
+  const cells: string[] = new Array(CAMPAIGN_RESULT_HEADER.length).fill('');
+  cells[0] = p.line === null ? '' : String(p.line);
+  cells[1] = p.siteRef ?? '';
+  cells[CAMPAIGN_RESULT_HEADER.indexOf('recommendation')] = `not computed: ${p.message}`;
+  return cells;
+}
+
+/** The cells of a computed site. Outside the P.618 model range the engine gives a bound, not a value: the bound column says which way. */
+export function campaignResultCells(r: CampaignResultRow): string[] {
+  const read = readCampaignRow(r);
+  return [
         String(r.line),
         r.siteRef,
         r.currentDishName,
@@ -86,17 +108,5 @@ export function campaignResultCsv(results: CampaignResultRow[], problems: Campai
         fixed(r.currentAttenuation?.rainDb ?? null, 2),
         fixed(r.currentAttenuation?.scintillationDb ?? null, 2),
         fixed(r.currentAttenuation?.totalDb ?? null, 2),
-      ],
-    };
-  });
-  for (const p of problems) {
-    const cells: string[] = new Array(CAMPAIGN_RESULT_HEADER.length).fill('');
-    cells[0] = p.line === null ? '' : String(p.line);
-    cells[1] = p.siteRef ?? '';
-    cells[CAMPAIGN_RESULT_HEADER.indexOf('recommendation')] = `not computed: ${p.message}`;
-    lines.push({ line: p.line ?? 0, cells });
-  }
-  // Stable sort: a line with several problems keeps them in the order found.
-  lines.sort((a, b) => a.line - b.line);
-  return Papa.unparse({ fields: [...CAMPAIGN_RESULT_HEADER], data: lines.map((l) => l.cells) }, { newline: '\r\n', escapeFormulae: true });
+  ];
 }

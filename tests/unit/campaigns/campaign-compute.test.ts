@@ -4,7 +4,7 @@ import { dishTradeoff } from '@/server/engine';
 import { siteClimate } from '@/server/climate-maps';
 import { buildScenario } from '@/server/studies/build-scenario';
 import { mapsAtmosphere, mapsAltitudeM, mapsClimateSnapshot } from '@/server/studies/maps-climate';
-import { computeCampaign } from '@/server/campaigns/campaign-compute';
+import { assumedCurrentDishName, computeCampaign, CURRENT_DISH_DEFAULT_EFFICIENCY } from '@/server/campaigns/campaign-compute';
 import { parseCampaignCsv } from '@/server/campaigns/campaign-csv';
 import { CAMPAIGN_RESULT_HEADER, campaignResultCsv } from '@/server/campaigns/campaign-result-csv';
 import { bigCampaignCsv, climate as knownR001, HEADER, SEVEN, service } from './campaign-fixture';
@@ -56,13 +56,39 @@ describe('computeCampaign: each site with its own climate from the ITU-R maps', 
     expect(e.currentOutageMinutesPerYear).toBeGreaterThan(row('A').currentOutageMinutesPerYear);
   });
 
-  it('lists a dish not in the catalogue, a satellite below the horizon and a site without map data as problems on their lines', () => {
+  it('computes a current dish not in the catalogue with the stated default efficiency, and lists a satellite below the horizon and a site without map data as problems', () => {
     expect(row('B').verdict).toBe('already-meets-target');
-    expect(out.problems.map((p) => p.line)).toEqual([4, 5, 7]);
-    expect(out.problems[0].message).toContain('no active catalogue dish is 80 cm');
-    expect(out.problems[1].message).toContain('below the horizon');
-    expect(out.problems[2]).toMatchObject({ line: 7, siteRef: 'F', message: expect.stringMatching(/^Line 7: the ITU-R maps have no climate data at these coordinates/) });
-    expect(out.counts).toMatchObject({ rows: 6, computed: 3, problems: 3 });
+    const c = row('C');
+    expect(c.currentDishAssumed).toBe(true);
+    expect(c.currentDishCm).toBe(80);
+    expect(c.currentDishName).toBe(assumedCurrentDishName(80));
+    expect(c.currentDishName).toContain('65 % efficiency assumed');
+    // The same site through the engine with an 80 cm dish of CURRENT_DISH_DEFAULT_EFFICIENCY added to the catalogue.
+    const withCurrent = [...SEVEN, { dishId: null, name: 'x', diameterM: 0.8, efficiency: CURRENT_DISH_DEFAULT_EFFICIENCY, hardwarePrice: '0.00', labourPrice: '0.00', mountNotes: null }];
+    const built = buildScenario({ site: siteAt('C', 47.25, 2.5, 180), service, climate: mapsClimateSnapshot(47.25, 2.5), dishes: withCurrent, targetAvailabilityPercent: target, atmosphere: mapsAtmosphere(47.25, 2.5, 0.18) });
+    const direct = dishTradeoff(built.scenario);
+    const k = built.dishes.findIndex((d) => d.name === 'x');
+    expect(c.currentOutageMinutesPerYear).toBe(direct.options[k].outageMinutesPerYear);
+    if (c.verdict === 'upgrade') expect(c.recommendedDishCm!).toBeGreaterThan(80);
+    expect(out.problems.map((p) => p.line)).toEqual([5, 7]);
+    expect(out.problems[0].message).toContain('below the horizon');
+    expect(out.problems[1]).toMatchObject({ line: 7, siteRef: 'F', message: expect.stringMatching(/^Line 7: the ITU-R maps have no climate data at these coordinates/) });
+    expect(out.counts).toMatchObject({ rows: 6, computed: 4, problems: 2 });
+  });
+
+  it('recommends an upgrade for every 45 cm dish (not in the catalogue) in a rainy place', () => {
+    const lines = Array.from({ length: 20 }, (_, i) => `OLD-${i},${(6 + i * 0.05).toFixed(2)},${(-1.6 + i * 0.05).toFixed(2)},,45`);
+    const small = parseCampaignCsv(`${HEADER}\n${lines.join('\n')}\n`);
+    // A catalogue from 60 cm up: no 45 cm dish in it.
+    const r = computeCampaign({ rows: small.rows, service, climate: null, dishes: SEVEN.slice(1), targetAvailabilityPercent: 99.7 });
+    expect(r.problems).toEqual([]);
+    expect(r.results).toHaveLength(20);
+    for (const x of r.results) {
+      expect(x.currentDishAssumed).toBe(true);
+      expect(x.verdict).toBe('upgrade');
+      expect(x.recommendedDishCm!).toBeGreaterThan(45);
+      expect(Number(x.upgradePriceUsd)).toBeGreaterThan(0);
+    }
   });
 
   it('writes each row’s climate and the parts of its fade threshold to the CSV', () => {

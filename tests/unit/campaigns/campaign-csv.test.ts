@@ -88,7 +88,7 @@ describe('campaignResultCsv', () => {
       [
         {
           line: 2, siteRef: '=HYPERLINK("x")', currentDishCm: 60, currentDishName: 'D60', currentCloses: true, currentOutageMinutesPerYear: 812.34, currentOutageBound: 'none', currentAvailabilityPercent: 99.84546, outageIsTwoWaySum: false, verdict: 'upgrade',
-          recommendedDishName: 'D90', recommendedDishCm: 90, recommendedOutageMinutesPerYear: 300.01, recommendedOutageBound: 'below-model-range', minutesSavedPerYear: 512.33, upgradePriceUsd: '279.00',
+          recommendedDishName: 'D90', recommendedDishCm: 90, recommendedOutageMinutesPerYear: 300.01, recommendedOutageBound: 'below-model-range', minutesSavedPerYear: 512.33, upgradePriceUsd: '279.00', upgradeHardwareUsd: '199.00', upgradeLabourUsd: '80.00', currentDishAssumed: false,
           climate: { r001MmH: 31.27, rainClimateSource: 'ITU-R maps at the site (P.837-7 Annex 1)', rainHeightKm: 2.7665, rainHeightSource: 'ITU-R maps at the site (P.839-4)', altitudeM: 212, altitudeSource: 'ITU-R P.1511-1' },
           attenuationModel: 'total',
           currentAttenuation: { gasDb: 0.0712, cloudDb: 0.2551, rainDb: 3.1049, scintillationDb: 0.1833, totalDb: 3.4399 },
@@ -118,7 +118,7 @@ describe('campaignResultCsv', () => {
   it('says when the outages are two-way sums, and leaves the availability of a dish that never works blank', () => {
     const base = {
       line: 2, siteRef: 'V-1', currentDishCm: 60, currentDishName: 'D60', currentOutageBound: 'none' as const, verdict: 'none-meets-target' as const,
-      recommendedDishName: null, recommendedDishCm: null, recommendedOutageMinutesPerYear: null, recommendedOutageBound: null, minutesSavedPerYear: null, upgradePriceUsd: null,
+      recommendedDishName: null, recommendedDishCm: null, recommendedOutageMinutesPerYear: null, recommendedOutageBound: null, minutesSavedPerYear: null, upgradePriceUsd: null, upgradeHardwareUsd: null, upgradeLabourUsd: null, currentDishAssumed: false,
       climate: { r001MmH: 31.27, rainClimateSource: 'x', rainHeightKm: 2.7665, rainHeightSource: 'y', altitudeM: 212, altitudeSource: 'file' as const },
       attenuationModel: 'rain' as const, currentAttenuation: null,
     };

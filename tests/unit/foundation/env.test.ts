@@ -14,6 +14,7 @@ const VALID = {
   STRIPE_SECRET_KEY: 'sk_test_x',
   STRIPE_WEBHOOK_SECRET: 'whsec_x',
   SHARE_LINK_KEY: Buffer.alloc(32, 7).toString('base64'),
+  REDIS_URL: 'redis://127.0.0.1:6380/0',
 };
 
 function problemsOf(source: Record<string, string | undefined>) {
@@ -50,6 +51,11 @@ describe('parseEnv', () => {
     const problems = problemsOf({ ...VALID, DATABASE_PORT: 'abc', APP_URL: 'localhost', STRIPE_WEBHOOK_SECRET: 'nope' });
     expect(problems.map((p) => p.variable).sort()).toEqual(['APP_URL', 'DATABASE_PORT', 'STRIPE_WEBHOOK_SECRET']);
     expect(problems.find((p) => p.variable === 'STRIPE_WEBHOOK_SECRET')?.message).toMatch(/whsec_/);
+  });
+
+  it('names a missing or malformed REDIS_URL (the campaign queue cannot start without it)', () => {
+    expect(problemsOf({ ...VALID, REDIS_URL: undefined }).map((p) => p.variable)).toEqual(['REDIS_URL']);
+    expect(problemsOf({ ...VALID, REDIS_URL: 'localhost:6380' })[0].message).toMatch(/redis:\/\//);
   });
 
   it('puts every problem in the error message so start-up output names them', () => {
