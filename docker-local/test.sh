@@ -10,6 +10,8 @@ T0=$(date +%s)
 
 ensure_node_modules
 apt_install chromium /usr/bin/chromium
+# pdftotext / pdftoppm: the PDF tests read the study and quote PDFs back as text and pages.
+apt_install poppler-utils /usr/bin/pdftotext
 start_mariadb
 start_redis
 redis-cli -h 127.0.0.1 -p "$REDIS_PORT" flushall >/dev/null
