@@ -1,10 +1,10 @@
-import { createCipheriv, createDecipheriv, randomBytes } from 'node:crypto';
+import { randomBytes } from 'node:crypto';
+import { openSealedValue, sealValue } from '@/server/crypto/sealed-box';
 
 /**
  * Endpoint signing secrets: `flwh_` + 32 random bytes (base64url). Shown to the admin once; kept
  * encrypted with AES-256-GCM under WEBHOOK_SECRET_KEY (from the environment), because signing
- * needs the secret itself. Stored as `v1.<iv>.<tag>.<ciphertext>` (base64url), so a later key
- * rotation can tell the versions apart.
+ * needs the secret itself (server/crypto/sealed-box.ts).
  */
 export function newWebhookSecret(): string {
   return `flwh_${randomBytes(32).toString('base64url')}`;
@@ -22,17 +22,12 @@ function keyOf(hexKey: string): Buffer {
 }
 
 export function encryptSecret(secret: string, hexKey: string): string {
-  const iv = randomBytes(12);
-  const cipher = createCipheriv('aes-256-gcm', keyOf(hexKey), iv);
-  const ciphertext = Buffer.concat([cipher.update(secret, 'utf8'), cipher.final()]);
-  return ['v1', iv.toString('base64url'), cipher.getAuthTag().toString('base64url'), ciphertext.toString('base64url')].join('.');
+  return sealValue(secret, keyOf(hexKey));
 }
 
 /** Throws when the stored value was not made with this key (a changed WEBHOOK_SECRET_KEY). */
 export function decryptSecret(stored: string, hexKey: string): string {
-  const [version, iv, tag, ciphertext] = stored.split('.');
-  if (version !== 'v1' || !iv || !tag || !ciphertext) throw new Error('Unknown webhook secret format.');
-  const decipher = createDecipheriv('aes-256-gcm', keyOf(hexKey), Buffer.from(iv, 'base64url'));
-  decipher.setAuthTag(Buffer.from(tag, 'base64url'));
-  return Buffer.concat([decipher.update(Buffer.from(ciphertext, 'base64url')), decipher.final()]).toString('utf8');
+  const secret = openSealedValue(stored, keyOf(hexKey));
+  if (secret === null) throw new Error('The webhook secret cannot be read with this WEBHOOK_SECRET_KEY (changed key or altered value).');
+  return secret;
 }
