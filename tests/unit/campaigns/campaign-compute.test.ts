@@ -127,12 +127,15 @@ describe('computeCampaign: each site with its own climate from the ITU-R maps', 
     expect(tight.results[0].upgradePriceUsd).toBeNull();
   });
 
-  it('computes a full-size file of 5 000 sites × 7 dishes, every row, in file order (timing: npm run bench:campaign)', () => {
-    const big = parseCampaignCsv(bigCampaignCsv(5000));
+  // 5 000 sites end to end (queue, workers, rows in MariaDB) are in tests/integration/campaign-jobs.test.ts;
+  // here a smaller file keeps the pure project quick while checking every row comes back in file order.
+  it('computes a file of 500 sites × 7 dishes, every row, in file order (timing: npm run bench:campaign)', () => {
+    const big = parseCampaignCsv(bigCampaignCsv(500));
     const r = computeCampaign({ rows: big.rows, service, climate: null, dishes: SEVEN, targetAvailabilityPercent: target });
     const csv = campaignResultCsv(r.results, r.problems);
-    expect(big.rows).toHaveLength(5000);
-    expect(r.counts.computed).toBe(5000);
-    expect(csv.split('\r\n')).toHaveLength(5001);
+    expect(big.rows).toHaveLength(500);
+    expect(r.counts.computed).toBe(500);
+    expect(r.results.map((x) => x.line)).toEqual(big.rows.map((x) => x.line));
+    expect(csv.split('\r\n')).toHaveLength(501);
   }, 120_000);
 });
