@@ -70,7 +70,8 @@ test('an installer adds, edits and deletes a customer and edits a site in place;
   await addSite.getByLabel('Latitude').fill(`52°10'12"N`);
   await addSite.getByLabel('Longitude').fill('1 02 30 W');
   await addSite.getByRole('button', { name: 'Add site' }).click();
-  await expect(addSite.getByRole('status')).toContainText(`Site Mill roof ${id} added`);
+  // The form has two live regions: the save message and the "Use my location" one.
+  await expect(addSite.getByRole('status').filter({ hasText: 'Site Mill roof' })).toContainText(`Site Mill roof ${id} added`);
   await page.getByRole('searchbox').fill(`Mill roof ${id}`);
   const sites = page.getByRole('table', { name: 'Sites' });
   await sites.getByRole('button', { name: `Edit Mill roof ${id}` }).click();

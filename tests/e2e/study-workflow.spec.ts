@@ -101,10 +101,18 @@ for (const size of WIDTHS) {
       await expect(page.getByRole('list', { name: 'Smallest dish per service' }).getByRole('listitem')).toHaveCount(2);
       await expect(page.getByRole('heading', { name: new RegExp(`Service 1 of 2: ${tv.name}`) })).toBeVisible();
       await expect(page.getByRole('heading', { name: new RegExp(`Service 2 of 2: ${ka.name}`) })).toBeVisible();
-      const tables = page.getByRole('table', { name: 'Trade-off per dish' });
-      await expect(tables).toHaveCount(2);
-      await expect(tables.nth(0).getByRole('rowheader')).toHaveCount(3);
-      await expect(tables.nth(1).getByRole('rowheader')).toHaveCount(3);
+      // A table per service from 1 024 px; below that a list of dish cards per service.
+      if (size.width >= 1024) {
+        const tables = page.getByRole('table', { name: 'Trade-off per dish' });
+        await expect(tables).toHaveCount(2);
+        await expect(tables.nth(0).getByRole('rowheader')).toHaveCount(3);
+        await expect(tables.nth(1).getByRole('rowheader')).toHaveCount(3);
+      } else {
+        const cards = page.getByRole('list', { name: 'Trade-off per dish' });
+        await expect(cards).toHaveCount(2);
+        await expect(cards.nth(0).getByRole('listitem')).toHaveCount(3);
+        await expect(cards.nth(1).getByRole('listitem')).toHaveCount(3);
+      }
       await expect(page.getByRole('img', { name: /Outage minutes per year against dish diameter, by service/ })).toBeVisible();
       await expect(page.getByRole('img', { name: /by service/ }).nth(1)).toBeVisible();
       // Each table quotes its own service's study row.
