@@ -2,7 +2,6 @@ import { test, expect, type Page } from '@playwright/test';
 import { randomBytes } from 'node:crypto';
 import { loadTestEnv } from '../support/test-env';
 import { models } from '../../db/models';
-import { closeSequelize } from '../../db/sequelize';
 import { hashPassword } from '../../server/auth/password';
 
 /**
@@ -27,9 +26,8 @@ test.beforeAll(async () => {
   await Membership.create({ companyId: company.id, userId: user.id, role: 'admin' });
 });
 
-test.afterAll(async () => {
-  await closeSequelize();
-});
+// No closeSequelize here: every spec file runs in the same Playwright worker, and a spec that closed the
+// shared pool left the next spec's models on a closed connection. The worker's exit closes it.
 
 async function signIn(page: Page) {
   await page.goto('/sign-in');

@@ -3,7 +3,6 @@ import { randomBytes } from 'node:crypto';
 import { readFile } from 'node:fs/promises';
 import { loadTestEnv } from '../support/test-env';
 import { models } from '../../db/models';
-import { closeSequelize } from '../../db/sequelize';
 import { hashPassword } from '../../server/auth/password';
 import { signIn } from './support/sign-in';
 import { seriousViolations } from './support/axe';
@@ -32,9 +31,8 @@ test.beforeAll(async () => {
   await Membership.create({ companyId: company.id, userId: user.id, role: 'admin' });
 });
 
-test.afterAll(async () => {
-  await closeSequelize();
-});
+// No closeSequelize here: every spec file runs in the same Playwright worker, and a spec that closed the
+// shared pool left the next spec's models on a closed connection. The worker's exit closes it.
 
 async function shoot(page: Page, name: string) {
   for (const width of [1280, 390]) {
