@@ -8,6 +8,7 @@ import { formatMoney } from '@/server/money-format';
 import { diameterLabel } from '@/server/study-option';
 import { winAnsi as w } from './win-ansi';
 import { contactSentence, type SellerContact } from '../seller-contact';
+import { INK, MUTED, RULE, TEAL, TINT } from '@/server/pdf-palette';
 
 export interface QuotePdfData {
   companyName: string;
@@ -18,12 +19,6 @@ export interface QuotePdfData {
   generatedAt: Date;
 }
 
-// Our palette: the ledger teal accent and stone neutrals (tailwind.config.ts).
-const TEAL = '#1b5955';
-const INK = '#1c1917';
-const MUTED = '#57534e';
-const RULE = '#d6d3d1';
-const TINT = '#eef8f7';
 
 const s = StyleSheet.create({
   page: { paddingTop: 40, paddingBottom: 56, paddingHorizontal: 44, fontFamily: 'Helvetica', fontSize: 9.5, color: INK, lineHeight: 1.35 },

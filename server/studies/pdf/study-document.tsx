@@ -5,6 +5,7 @@ import { dishName, readStudyOption, savedMinutesNumber } from '@/server/study-op
 import { winAnsi as w } from '@/server/quotes/pdf/win-ansi';
 import { PdfOutageChart } from './outage-chart';
 import { climateLines, inputLines, pointingLines, recordCautions, type Line } from './study-record-words';
+import { INK, MUTED, RULE, TEAL, TINT } from '@/server/pdf-palette';
 
 /** One service of the study: its inputs and its computed result (a study holds one today). */
 export interface StudyRecordSection {
@@ -26,12 +27,6 @@ export interface StudyRecordData {
   generatedAt: Date;
 }
 
-// The quote PDF's palette (server/quotes/pdf/quote-document.tsx): ledger teal and stone neutrals.
-const TEAL = '#1b5955';
-const INK = '#1c1917';
-const MUTED = '#57534e';
-const RULE = '#d6d3d1';
-const TINT = '#eef8f7';
 
 const s = StyleSheet.create({
   page: { paddingTop: 36, paddingBottom: 52, paddingHorizontal: 40, fontFamily: 'Helvetica', fontSize: 8.5, color: INK, lineHeight: 1.3 },
