@@ -4,7 +4,7 @@
  * Run `npx tsx scripts/app-icons.ts` after changing the mark; the files are committed.
  */
 import { writeFileSync } from 'node:fs';
-import { deflateSync } from 'node:zlib';
+import { encodePng } from '../db/demo/png-encode';
 
 const TEAL = [0x1b, 0x59, 0x55] as const;
 const WHITE = [0xff, 0xff, 0xff] as const;
@@ -55,35 +55,9 @@ function draw(size: number): Buffer {
   return px;
 }
 
-const CRC_TABLE = Array.from({ length: 256 }, (_, k) => {
-  let c = k;
-  for (let i = 0; i < 8; i++) c = c & 1 ? 0xedb88320 ^ (c >>> 1) : c >>> 1;
-  return c >>> 0;
-});
-function crc32(buf: Buffer): number {
-  let c = 0xffffffff;
-  for (const b of buf) c = CRC_TABLE[(c ^ b) & 0xff] ^ (c >>> 8);
-  return (c ^ 0xffffffff) >>> 0;
-}
-function chunk(type: string, data: Buffer): Buffer {
-  const len = Buffer.alloc(4);
-  len.writeUInt32BE(data.length);
-  const body = Buffer.concat([Buffer.from(type, 'latin1'), data]);
-  const crc = Buffer.alloc(4);
-  crc.writeUInt32BE(crc32(body));
-  return Buffer.concat([len, body, crc]);
-}
-
-/** A PNG (ISO/IEC 15948): 8-bit RGBA, filter 0 on every row. */
+/** A PNG (ISO/IEC 15948) of the mark, 8-bit RGBA. */
 function png(size: number): Buffer {
-  const px = draw(size);
-  const rows = Buffer.alloc(size * (size * 4 + 1));
-  for (let j = 0; j < size; j++) px.copy(rows, j * (size * 4 + 1) + 1, j * size * 4, (j + 1) * size * 4);
-  const ihdr = Buffer.alloc(13);
-  ihdr.writeUInt32BE(size, 0);
-  ihdr.writeUInt32BE(size, 4);
-  ihdr.set([8, 6, 0, 0, 0], 8);
-  return Buffer.concat([Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]), chunk('IHDR', ihdr), chunk('IDAT', deflateSync(rows)), chunk('IEND', Buffer.alloc(0))]);
+  return encodePng(size, size, 4, draw(size));
 }
 
 /** An ICO holding PNG images (supported by every current browser). */

@@ -1,35 +1,9 @@
-import { deflateSync } from 'node:zlib';
+import { encodePng } from './png-encode';
 
 /**
  * An invented logo for the demo company, drawn here pixel by pixel (no image from anywhere):
- * a teal rounded mark with a quill-like diagonal and three signal bars, on white. Encoded as a
- * PNG (PNG spec: signature, IHDR, IDAT of filtered scanlines, IEND; CRC-32 per chunk).
+ * a teal rounded mark with a quill-like diagonal and three signal bars, on white. Encoded by png-encode.ts.
  */
-const CRC_TABLE = (() => {
-  const t = new Uint32Array(256);
-  for (let n = 0; n < 256; n++) {
-    let c = n;
-    for (let k = 0; k < 8; k++) c = c & 1 ? 0xedb88320 ^ (c >>> 1) : c >>> 1;
-    t[n] = c >>> 0;
-  }
-  return t;
-})();
-
-function crc32(buf: Buffer): number {
-  let c = 0xffffffff;
-  for (const b of buf) c = CRC_TABLE[(c ^ b) & 0xff] ^ (c >>> 8);
-  return (c ^ 0xffffffff) >>> 0;
-}
-
-function chunk(type: string, data: Buffer): Buffer {
-  const len = Buffer.alloc(4);
-  len.writeUInt32BE(data.length);
-  const body = Buffer.concat([Buffer.from(type, 'latin1'), data]);
-  const crc = Buffer.alloc(4);
-  crc.writeUInt32BE(crc32(body));
-  return Buffer.concat([len, body, crc]);
-}
-
 const TEAL = [0x1b, 0x59, 0x55];
 const LIGHT = [0xa9, 0xdc, 0xd6];
 const WHITE = [0xff, 0xff, 0xff];
@@ -59,21 +33,7 @@ function pixel(x: number, y: number): number[] {
 }
 
 export function demoLogoPng(width = 160, height = 80): Buffer {
-  const raw = Buffer.alloc((width * 3 + 1) * height);
-  for (let y = 0; y < height; y++) {
-    const row = y * (width * 3 + 1);
-    raw[row] = 0; // filter type 0 (None)
-    for (let x = 0; x < width; x++) {
-      const [r, g, b] = pixel(x, y);
-      raw[row + 1 + x * 3] = r;
-      raw[row + 2 + x * 3] = g;
-      raw[row + 3 + x * 3] = b;
-    }
-  }
-  const ihdr = Buffer.alloc(13);
-  ihdr.writeUInt32BE(width, 0);
-  ihdr.writeUInt32BE(height, 4);
-  ihdr[8] = 8; // bit depth
-  ihdr[9] = 2; // colour type: truecolour RGB
-  return Buffer.concat([Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]), chunk('IHDR', ihdr), chunk('IDAT', deflateSync(raw)), chunk('IEND', Buffer.alloc(0))]);
+  const pixels = Buffer.alloc(width * 3 * height);
+  for (let y = 0; y < height; y++) for (let x = 0; x < width; x++) pixels.set(pixel(x, y), (y * width + x) * 3);
+  return encodePng(width, height, 3, pixels);
 }
