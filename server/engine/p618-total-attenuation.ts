@@ -1,5 +1,5 @@
 import { brentRoot } from './math/brent';
-import { sampleCurve, type SampledCurve } from './math/largest-crossing';
+import { sampleCurve, scanGrid, type SampledCurve } from './math/largest-crossing';
 import { gasSlantPathAttenuation } from './p676-12-gas-slant-path';
 import { standardPressureHpaP835 } from './p835-standard-pressure';
 import { cloudMassAbsorptionUnchecked, CLOUD_LIQUID_TEMPERATURE_K_P840_8 } from './p840-8-cloud-attenuation';
@@ -95,6 +95,33 @@ export function prepareAtmosphericPath(o: { frequencyGHz: number; elevationDeg: 
   return { pressureHpa, gasAt, cloudAt };
 }
 
+/**
+ * The part of the below-1 % scan that no dish changes: A_R on the grid of sampleCurve, per rain
+ * path, and a(p) of §2.4.1 step 8 on the same grid. Every dish of a site scans the same grid with
+ * the same rain path, so a campaign site's 8 dishes work out rain once instead of 8 times; the
+ * values are the very numbers the per-dish scan computed (bit-identical figures).
+ */
+const heldGridRain = new WeakMap<RainPath, Float64Array>();
+let heldGridScintillation: Float64Array | null = null;
+function rainOnHeldGrid(rainPath: RainPath): Float64Array {
+  let rain = heldGridRain.get(rainPath);
+  if (!rain) {
+    const xs = scanGrid(LN_P_MIN, LN_P_HELD);
+    rain = new Float64Array(xs.length);
+    for (let i = 0; i < xs.length; i++) rain[i] = Math.exp(rainPath.lnAttenuationAt(xs[i]));
+    heldGridRain.set(rainPath, rain);
+  }
+  return rain;
+}
+function scintillationOnHeldGrid(): Float64Array {
+  if (!heldGridScintillation) {
+    const xs = scanGrid(LN_P_MIN, LN_P_HELD);
+    heldGridScintillation = new Float64Array(xs.length);
+    for (let i = 0; i < xs.length; i++) heldGridScintillation[i] = scintillationTimeFactorLn(xs[i]);
+  }
+  return heldGridScintillation;
+}
+
 /** The total attenuation of one dish's path and its inverse. */
 export interface TotalAttenuationCurve {
   componentsAt(pPercent: number): AttenuationComponents;
@@ -147,7 +174,19 @@ export function totalAttenuationCurve(o: { rainPath: RainPath; atmosphericPath: 
   // Below 1 % gases and clouds are held, so sampling there costs no gas evaluation; that is also
   // the only stretch where step 10 of the rain model can turn (just above 0.001 %).
   let curve: SampledCurve | null = null;
-  const sampledBelowHeld = (): SampledCurve => (curve ??= sampleCurve(lnTotal, LN_P_MIN, LN_P_HELD));
+  // On the grid p < 1 % except at its top point, where p = 1 and gasAt(1)/cloudAt(1) are the held values.
+  const sampledBelowHeld = (): SampledCurve => {
+    if (curve) return curve;
+    const rain = rainOnHeldGrid(o.rainPath);
+    const scint = scintillationOnHeldGrid();
+    const lnTotalOnGrid = (i: number): number => {
+      const rc = rain[i] + cloudHeld;
+      const s = sigma > 0 ? sigma * scint[i] : 0;
+      const t = gasHeld + Math.sqrt(rc * rc + s * s);
+      return t > 0 ? Math.log(t) : LN_FLOOR;
+    };
+    return (curve = sampleCurve(lnTotal, LN_P_MIN, LN_P_HELD, lnTotalOnGrid));
+  };
   const exceedanceOf = (a: number): RainExceedance => {
     if (!(a > 0)) return { pPercent: MAX_P_PERCENT_P618_14, bound: 'above-model-range' };
     const lnA = Math.log(a);

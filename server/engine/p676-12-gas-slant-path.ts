@@ -167,7 +167,7 @@ export function oxygenEquivalentHeightKm(frequencyGHz: number, rp: number): numb
   let t2 = 0;
   const num = Math.exp(2.12 * rp);
   const width = 0.025 * Math.exp(2.2 * rp);
-  for (const [fi, ci] of OXYGEN_T2_LINES_P676_12) t2 += (ci * num) / ((f - fi) ** 2 + width);
+  for (let i = 0; i < OXYGEN_T2_LINES_P676_12.length; i++) t2 += (OXYGEN_T2_LINES_P676_12[i][1] * num) / ((f - OXYGEN_T2_LINES_P676_12[i][0]) ** 2 + width);
   // t3: the slow frequency trend between the line bands.
   const t3 = ((0.0114 * f) / (1 + 0.14 * rp ** -2.6)) * ((15.02 * f * f - 1353 * f + 5.333e4) / (f * f * f - 151.3 * f * f + 9629 * f - 6803));
   const h = (6.1 / (1 + 0.17 * rp ** -1.1)) * (1 + t1 + t2 + t3);

@@ -57,7 +57,11 @@ export function oxygenSpecificAttenuationUnchecked(f: number, p: number, t: numb
   const theta08 = theta ** 0.8;
   const lnTheta = Math.log(theta);
   let sum = 0;
-  for (const [fi, a1, a2, a3, a4, a5, a6] of OXYGEN_LINES_P676_12) {
+  // Indexed rows, not destructuring for…of: this runs per p of every site and the iterator
+  // objects were most of a campaign's garbage.
+  for (let i = 0; i < OXYGEN_LINES_P676_12.length; i++) {
+    const row = OXYGEN_LINES_P676_12[i];
+    const fi = row[0], a1 = row[1], a2 = row[2], a3 = row[3], a4 = row[4], a5 = row[5], a6 = row[6];
     const s = a1 * 1e-7 * p * theta3 * Math.exp(a2 * (1 - theta));
     let df = a3 * 1e-4 * (p * (a4 === 0 ? theta08 : Math.exp((0.8 - a4) * lnTheta)) + 1.1 * e * theta);
     df = Math.sqrt(df * df + 2.25e-6); // eq. 6b: Zeeman splitting
@@ -77,7 +81,9 @@ export function waterVapourSpecificAttenuationUnchecked(f: number, p: number, t:
   const e = vapourPressureHpa(rho, t);
   const theta35 = theta ** 3.5;
   let sum = 0;
-  for (const [fi, b1, b2, b3, b4, b5, b6] of WATER_VAPOUR_LINES_P676_12) {
+  for (let i = 0; i < WATER_VAPOUR_LINES_P676_12.length; i++) {
+    const row = WATER_VAPOUR_LINES_P676_12[i];
+    const fi = row[0], b1 = row[1], b2 = row[2], b3 = row[3], b4 = row[4], b5 = row[5], b6 = row[6];
     const s = b1 * 1e-1 * e * theta35 * Math.exp(b2 * (1 - theta));
     let df = b3 * 1e-4 * (p * theta ** b4 + b5 * e * theta ** b6);
     df = 0.535 * df + Math.sqrt(0.217 * df * df + (2.1316e-12 * fi * fi) / theta); // eq. 6c: Doppler
@@ -97,7 +103,9 @@ export function waterVapourRatioUnchecked(f: number, fRef: number, p: number, t:
   const e = vapourPressureHpa(rho, t);
   let sum = 0;
   let sumRef = 0;
-  for (const [fi, b1, b2, b3, b4, b5, b6] of WATER_VAPOUR_LINES_P676_12) {
+  for (let i = 0; i < WATER_VAPOUR_LINES_P676_12.length; i++) {
+    const row = WATER_VAPOUR_LINES_P676_12[i];
+    const fi = row[0], b1 = row[1], b2 = row[2], b3 = row[3], b4 = row[4], b5 = row[5], b6 = row[6];
     // S ∝ b1 e θ^3.5 exp(b2(1 − θ)): its common factor e θ^3.5 cancels in the ratio.
     const s = b1 * Math.exp(b2 * (1 - theta));
     let df = b3 * 1e-4 * (p * Math.exp(b4 * lnTheta) + b5 * e * Math.exp(b6 * lnTheta));

@@ -58,8 +58,12 @@ const MAX_P_PERCENT = 100;
 export function monthlyRainClimate(options: MonthlyRainClimateOptions): MonthlyRainClimate {
   const mt = requireFiniteArray(options.monthlyRainfallMm, 'monthlyRainfallMm', 12);
   const temp = requireFiniteArray(options.monthlyTemperatureC, 'monthlyTemperatureC', 12);
-  mt.forEach((v, i) => requireNumberInRange(v, `monthlyRainfallMm[${i}]`, PHYSICAL_RANGES.monthlyRainfallMm.min, PHYSICAL_RANGES.monthlyRainfallMm.max, 'physical range'));
-  temp.forEach((v, i) => requireNumberInRange(v, `monthlyTemperatureC[${i}]`, -90, 60));
+  // The field name is built only for a value that fails (a campaign checks 24 values per site).
+  const { min, max } = PHYSICAL_RANGES.monthlyRainfallMm;
+  for (let i = 0; i < 12; i++) {
+    if (!(mt[i] >= min && mt[i] <= max)) requireNumberInRange(mt[i], `monthlyRainfallMm[${i}]`, min, max, 'physical range');
+    if (!(temp[i] >= -90 && temp[i] <= 60)) requireNumberInRange(temp[i], `monthlyTemperatureC[${i}]`, -90, 60);
+  }
 
   // Per-month weights w_ii = N_ii P0_ii / 365.25 and log medians ln r_ii − 0.7938 (steps 2–4).
   const weights: number[] = [];

@@ -171,7 +171,7 @@ async function endToEnd(million: boolean) {
 
   const run = async (sites: number, workerCount: number) => {
     const workers: ChildProcess[] = Array.from({ length: workerCount }, () =>
-      spawn(process.execPath, ['--conditions=react-server', '--import', 'tsx', 'server/campaigns/worker-main.ts'], { cwd: ROOT, env: process.env, stdio: 'ignore' }),
+      spawn(process.execPath, ['--conditions=react-server', 'scripts/campaign-worker.mjs'], { cwd: ROOT, env: process.env, stdio: 'ignore' }),
     );
     await new Promise((r) => setTimeout(r, 3000));
     const file = fileOf(sites);

@@ -17,6 +17,7 @@ export type Crossing =
 
 /** A curve sampled once, so that many levels can be looked up on it without resampling. */
 export interface SampledCurve {
+  /** The scan grid, shared between curves on the same interval: read only. */
   readonly xs: Float64Array;
   readonly gs: Float64Array;
   /** Largest value of g on the interval (refined between grid points), and where it is. */
@@ -43,16 +44,15 @@ export interface SampledCurve {
  * @example
  * sampleCurve((x) => -((x - 1) ** 2), 0, 3).largestReaching(-0.25) // => { kind: 'at', x: 1.5 }
  */
-export function sampleCurve(g: (x: number) => number, lower: number, upper: number): SampledCurve {
+export function sampleCurve(g: (x: number) => number, lower: number, upper: number, atGridPoint?: (i: number) => number): SampledCurve {
   if (!(lower < upper)) throw new Error(`sampleCurve: empty interval [${lower}, ${upper}]`);
-  const xs = new Float64Array(SCAN_POINTS);
+  const xs = scanGrid(lower, upper);
   const gs = new Float64Array(SCAN_POINTS);
   let arg = 0;
   for (let i = 0; i < SCAN_POINTS; i++) {
-    const x = i === SCAN_POINTS - 1 ? upper : lower + ((upper - lower) * i) / (SCAN_POINTS - 1);
-    const v = g(x);
+    const x = xs[i];
+    const v = atGridPoint ? atGridPoint(i) : g(x);
     if (!Number.isFinite(v)) throw new SolverNumericError('sampleCurve', x, v);
-    xs[i] = x;
     gs[i] = v;
     if (v > gs[arg]) arg = i;
   }
@@ -79,6 +79,24 @@ export function sampleCurve(g: (x: number) => number, lower: number, upper: numb
   };
   return { xs, gs, peak: peakAt.value, peakX: peakAt.x, largestReaching };
 }
+
+/**
+ * The x's sampleCurve scans on [lower, upper]. A caller that evaluates g on many curves sharing
+ * part of their arithmetic (the dishes of one site) computes that part once on these points and
+ * hands sampleCurve `atGridPoint` — which must equal g(grid[i]) exactly.
+ */
+export function scanGrid(lower: number, upper: number): Float64Array {
+  // The engine scans a handful of fixed intervals; each grid is made once and shared (read only).
+  const hit = grids.find((g) => g.lower === lower && g.upper === upper);
+  if (hit) return hit.xs;
+  const xs = new Float64Array(SCAN_POINTS);
+  for (let i = 0; i < SCAN_POINTS; i++) xs[i] = i === SCAN_POINTS - 1 ? upper : lower + ((upper - lower) * i) / (SCAN_POINTS - 1);
+  if (grids.length >= MAX_SHARED_GRIDS) grids.shift();
+  grids.push({ lower, upper, xs });
+  return xs;
+}
+const MAX_SHARED_GRIDS = 8;
+const grids: { lower: number; upper: number; xs: Float64Array }[] = [];
 
 function crossing(g: (x: number) => number, level: number, from: number, to: number): number {
   return brentRoot((x) => g(x) - level, from, to, 1e-12 * Math.max(1, Math.abs(from)));

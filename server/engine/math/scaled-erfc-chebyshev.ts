@@ -48,7 +48,9 @@ export function scaledErfcChebyshev(x: number, exact: (x: number) => number): nu
   tables ??= buildTables(exact);
   let i = 0;
   while (i < INTERVALS.length - 1 && x > INTERVALS[i][1]) i++;
-  const [a, b] = INTERVALS[i];
+  // Indexed, not destructured: array destructuring allocates an iterator on every call (P.837 calls this per month per step).
+  const a = INTERVALS[i][0];
+  const b = INTERVALS[i][1];
   const c = tables[i];
   const t = (2 * x - a - b) / (b - a);
   // Clenshaw recurrence for Σ' c_j T_j(t).
