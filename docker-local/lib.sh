@@ -173,7 +173,7 @@ stop_redis() {
 # start_worker NAME — one campaign worker process (server/campaigns/worker-main.ts); more can run
 # on any machine with `npm run worker` pointed at the same Redis and MariaDB.
 start_worker() {
-  start_bg "$1" node --conditions=react-server "$ROOT/scripts/campaign-worker.mjs"
+  start_bg "$1" node --conditions=react-server "$ROOT/scripts/run-bundled.mjs" server/campaigns/worker-main.ts
   sleep 0.5
   kill -0 "$(cat "$RUN/$1.pid")" 2>/dev/null || { tail -20 "$RUN/$1.log"; fail "the campaign worker exited (log: .local/run/$1.log)"; }
   say "campaign worker started (log: .local/run/$1.log)"

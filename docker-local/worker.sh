@@ -8,4 +8,4 @@ PROFILE="${FADELEDGER_PROFILE:-demo}"
 if [ -z "${REDIS_URL:-}" ] || [ -z "${DATABASE_HOST:-}" ]; then load_env "$PROFILE"; fi
 cd "$ROOT"
 say "campaign worker: Redis ${REDIS_URL}, MariaDB ${DATABASE_HOST}:${DATABASE_PORT}/${DATABASE_NAME}"
-exec node --conditions=react-server scripts/campaign-worker.mjs
+exec node --conditions=react-server scripts/run-bundled.mjs server/campaigns/worker-main.ts

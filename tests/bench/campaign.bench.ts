@@ -1,7 +1,8 @@
 /**
  * `npm run bench:campaign` — upgrade campaigns, measured on this machine:
- *  1. engine only, one core: 10 000 sites × 8 dishes (the trade-off as a campaign runs it, without
- *     per-site prices), and the same with each site's ITU-R maps climate (computeCampaign);
+ *  1. engine only, one core (tests/bench/campaign-engine.bench.ts, bundled as the worker runs it and
+ *     under tsx): 10 000 sites × 8 dishes (the trade-off as a campaign runs it, without per-site
+ *     prices), as a study runs it, and with each site's ITU-R maps climate (computeCampaign);
  *  2. end to end against the RUNNING app of the test profile (`bash docker-local/services.sh test`,
  *     `npx next build`, `next start -p $APP_PORT`): a 100 000-site file uploaded to
  *     POST /api/campaign-uploads, queued in Redis, computed by 1 and then 2 worker processes
@@ -12,7 +13,7 @@
  *     --million-upload: only the upload of that file (time, web peak memory), then the campaign is cancelled.
  * --engine-only skips 2 and 3; --skip-engine skips 1. Sites are invented (bench data).
  */
-import { spawn, type ChildProcess } from 'node:child_process';
+import { spawn, spawnSync, type ChildProcess } from 'node:child_process';
 import { createHash, randomBytes } from 'node:crypto';
 import fs from 'node:fs';
 import os from 'node:os';
@@ -21,49 +22,22 @@ import { Readable } from 'node:stream';
 import { QueryTypes } from 'sequelize';
 import { performance } from 'node:perf_hooks';
 import { loadTestEnv } from '../support/test-env';
+import { BENCH_DISH_DIAMETERS_M, benchSiteLine } from './campaign-bench-sites';
 
 const ROOT = path.resolve(__dirname, '../..');
 const args = new Set(process.argv.slice(2));
-const DISHES = [0.45, 0.6, 0.75, 0.9, 1.0, 1.2, 1.5, 1.8];
+const DISHES = BENCH_DISH_DIAMETERS_M;
+const siteLine = benchSiteLine;
 
-function siteLine(i: number): string {
-  return `B${i},${(38 + (i % 170) / 10).toFixed(3)},${(-6 + (i % 131) / 10).toFixed(3)},${i % 5 === 4 ? '' : (i * 7) % 900},${[45, 60, 75, 90][i % 4]}`;
-}
-
-async function engineOnly() {
-  const { dishTradeoff } = await import('../../server/engine');
-  const { buildScenario } = await import('../../server/studies/build-scenario');
-  const { computeCampaign } = await import('../../server/campaigns/campaign-compute');
-  const { campaignSiteClimate } = await import('../../server/campaigns/campaign-site-climate');
-  const { service } = await import('../unit/campaigns/campaign-fixture');
-  const dishes = DISHES.map((d, k) => ({ dishId: k + 1, name: `Bench ${Math.round(d * 100)} cm`, diameterM: d, efficiency: 0.65, hardwarePrice: (60 + k * 45).toFixed(2), labourPrice: '95.00', mountNotes: null }));
-  const rows = Array.from({ length: 10_000 }, (_, i) => {
-    const [ref, lat, lon, alt, cm] = siteLine(i).split(',');
-    return { line: i + 2, siteRef: ref, latDeg: Number(lat), lonDeg: Number(lon), altitudeM: alt === '' ? null : Number(alt), currentDishCm: Number(cm) };
-  });
-  // The scenarios are built first (maps read), so the timing is the trade-off alone: as a study
-  // runs it (decimal prices per site and dish) and as a campaign runs it (no per-site prices).
-  const priced = rows.map((r) => {
-    const site = campaignSiteClimate(r, null);
-    return buildScenario({ site: { id: null, name: r.siteRef, customerId: null, customerName: '', latDeg: r.latDeg, lonDeg: r.lonDeg, altitudeM: site.altitudeM }, service, climate: site.rainClimate, dishes, targetAvailabilityPercent: 99.9, atmosphere: site.atmosphere, fallbackIsothermKm: site.mapsIsothermKm }).scenario;
-  });
-  const scenarios = priced.map((s) => ({ ...s, dishes: s.dishes.map((d) => ({ diameterM: d.diameterM, efficiency: d.efficiency })) }));
-  const best = (f: () => void) => {
-    const t: number[] = [];
-    for (let k = 0; k < 4; k++) {
-      const t0 = performance.now();
-      f();
-      if (k > 0) t.push(performance.now() - t0);
-    }
-    return Math.min(...t);
-  };
-  const pricedMs = best(() => priced.forEach((s) => dishTradeoff(s)));
-  const engineMs = best(() => scenarios.forEach((s) => dishTradeoff(s)));
-  const fullMs = best(() => computeCampaign({ rows, service, climate: null, dishes, targetAvailabilityPercent: 99.9 }));
-  console.log(`Engine only, 10 000 sites × 8 dishes, one core (Node ${process.version}, load average ${os.loadavg()[0].toFixed(1)} on ${os.cpus().length} cores), best of 3 after a warm-up:`);
-  console.log(`  trade-off with decimal prices per site and dish (as a study): ${pricedMs.toFixed(0)} ms`);
-  console.log(`  trade-off (P.618 §2.5 total, no per-site prices): ${engineMs.toFixed(0)} ms   aim ≤ 1 000 ms: ${engineMs <= 1000 ? 'met' : 'NOT met'}`);
-  console.log(`  computeCampaign (each site's maps climate + trade-off + recommendation + price per dish): ${fullMs.toFixed(0)} ms (${Math.round(10_000 / (fullMs / 1000))} sites/s)`);
+/** The engine part in its own processes: bundled as the worker runs it, then under tsx for comparison. */
+function engineOnly() {
+  for (const [label, argv] of [
+    ['bundled as the campaign worker runs it', ['scripts/run-bundled.mjs', 'tests/bench/campaign-engine.bench.ts']],
+    ['under tsx, for comparison', ['--import', 'tsx', 'tests/bench/campaign-engine.bench.ts']],
+  ] as const) {
+    const r = spawnSync(process.execPath, [...argv, label], { cwd: ROOT, stdio: 'inherit' });
+    if (r.status !== 0) throw new Error(`the engine benchmark (${label}) exited ${r.status}`);
+  }
 }
 
 /** Resident memory (kB) of a process and its children, from /proc. */
@@ -171,7 +145,7 @@ async function endToEnd(million: boolean) {
 
   const run = async (sites: number, workerCount: number) => {
     const workers: ChildProcess[] = Array.from({ length: workerCount }, () =>
-      spawn(process.execPath, ['--conditions=react-server', 'scripts/campaign-worker.mjs'], { cwd: ROOT, env: process.env, stdio: 'ignore' }),
+      spawn(process.execPath, ['--conditions=react-server', 'scripts/run-bundled.mjs', 'server/campaigns/worker-main.ts'], { cwd: ROOT, env: process.env, stdio: 'ignore' }),
     );
     await new Promise((r) => setTimeout(r, 3000));
     const file = fileOf(sites);
@@ -224,7 +198,7 @@ async function endToEnd(million: boolean) {
 }
 
 async function main() {
-  if (!args.has('--skip-engine')) await engineOnly();
+  if (!args.has('--skip-engine')) engineOnly();
   if (!args.has('--engine-only')) await endToEnd(args.has('--million'));
 }
 

@@ -21,7 +21,7 @@ export interface WorkerProcess {
 }
 
 export function startWorker(env: Record<string, string> = {}): WorkerProcess {
-  const child = spawn(process.execPath, ['--conditions=react-server', 'scripts/campaign-worker.mjs'], {
+  const child = spawn(process.execPath, ['--conditions=react-server', 'scripts/run-bundled.mjs', 'server/campaigns/worker-main.ts'], {
     cwd: ROOT,
     env: { ...process.env, CAMPAIGN_JOB_LOCK_SECONDS: '4', CAMPAIGN_WORKER_VERBOSE: '1', ...env },
     stdio: ['ignore', 'pipe', 'pipe'],
