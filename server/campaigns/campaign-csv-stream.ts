@@ -9,8 +9,12 @@ import { CAMPAIGN_CSV_COLUMNS, parseCampaignCsv, type CampaignProblem, type Camp
 
 /** A site row is ~60 characters; a "record" far longer is a quote never closed (or not a CSV at all). */
 export const MAX_RECORD_CHARS = 4096;
-/** Records handed to parseCampaignCsv at once (under its CAMPAIGN_MAX_ROWS). */
-export const RECORDS_PER_BATCH = 2000;
+/**
+ * Records parsed and written at once (under parseCampaignCsv's CAMPAIGN_MAX_ROWS): small enough
+ * that a batch in flight while MariaDB writes it is little memory, large enough that the
+ * per-transaction cost stays small next to the rows.
+ */
+export const RECORDS_PER_BATCH = 1000;
 
 export interface CsvRecord {
   /** Line of the file the record starts on (1-based, as readCsvTable counts). */
