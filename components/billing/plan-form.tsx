@@ -91,7 +91,7 @@ export function PlanForm({ initial }: { initial: PlanFormValues }) {
         {num('studiesPerMonth', 'Studies / month')}
         {num('activeLinksLimit', 'Active links')}
         {num('uploadsPerMonth', 'Uploads / month')}
-        {num('campaignSitesLimit', 'Sites / campaign', 'one upgrade campaign file; 0 turns campaigns off')}
+        {num('campaignSitesLimit', 'Sites / campaign', 'in one upgrade campaign file; 0 turns campaigns off')}
       </fieldset>
       <div className="flex flex-wrap gap-x-6 gap-y-2">
         {check('apiAccess', 'Trade-off API')}
