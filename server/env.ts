@@ -48,6 +48,12 @@ export const envSchema = z.object({
   CAMPAIGN_WORKER_CONCURRENCY: z.coerce.number().int().min(1).max(16).default(1),
   // How long a worker holds a chunk without renewing its lock; a killed worker's chunk goes to another after this.
   CAMPAIGN_JOB_LOCK_SECONDS: z.coerce.number().int().min(2).max(600).default(30),
+  // An upload still "receiving" with no batch written for this long is given up (its web process
+  // died or the client vanished): marked failed, its staged rows deleted (server/campaigns/stale-uploads.ts).
+  // A live upload writes a batch every second or so even over a slow link.
+  CAMPAIGN_UPLOAD_STALE_SECONDS: z.coerce.number().int().min(5).max(86_400).default(600),
+  // How often the workers look for such uploads (one BullMQ job scheduler shared by every worker).
+  CAMPAIGN_UPKEEP_EVERY_SECONDS: z.coerce.number().int().min(1).max(3600).default(60),
 
   // Behind a load balancer, trust its X-Forwarded-For for throttling and the audit log.
   TRUST_PROXY: flag.default(false),

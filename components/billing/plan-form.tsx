@@ -17,6 +17,7 @@ export type PlanFormValues = {
   studiesPerMonth: number;
   activeLinksLimit: number;
   uploadsPerMonth: number;
+  campaignSitesLimit: number;
   apiAccess: boolean;
   quoteBranding: boolean;
   isPublic: boolean;
@@ -90,6 +91,7 @@ export function PlanForm({ initial }: { initial: PlanFormValues }) {
         {num('studiesPerMonth', 'Studies / month')}
         {num('activeLinksLimit', 'Active links')}
         {num('uploadsPerMonth', 'Uploads / month')}
+        {num('campaignSitesLimit', 'Sites / campaign', 'in one upgrade campaign file; 0 turns campaigns off')}
       </fieldset>
       <div className="flex flex-wrap gap-x-6 gap-y-2">
         {check('apiAccess', 'Trade-off API')}

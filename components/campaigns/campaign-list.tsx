@@ -2,12 +2,12 @@ import Link from 'next/link';
 import type { CampaignRow } from '@/db/queries/campaigns';
 import { Card, CardBody } from '@/components/ui/card';
 import { Table, TBody, THead, Td, Th } from '@/components/ui/table';
-import { CAMPAIGN_STATUS_WORDS } from './campaign-status';
+import { CAMPAIGN_STATUS_WORDS, receivingWords } from './campaign-status';
 
 const day = (d: Date) => d.toISOString().slice(0, 16).replace('T', ' ') + ' UTC';
 
 /** The company's kept campaigns, newest first. */
-export function CampaignList({ campaigns }: { campaigns: CampaignRow[] }) {
+export function CampaignList({ campaigns, staleAfterSeconds, now = new Date() }: { campaigns: CampaignRow[]; staleAfterSeconds: number; now?: Date }) {
   return (
     <Card>
       <CardBody>
@@ -39,6 +39,8 @@ export function CampaignList({ campaigns }: { campaigns: CampaignRow[] }) {
                   <Td className="whitespace-nowrap">
                     {CAMPAIGN_STATUS_WORDS[c.status]}
                     {(c.status === 'running' || c.status === 'queued') && c.sitesTotal > 0 && <> ({Math.floor((100 * c.sitesDone) / c.sitesTotal)} %)</>}
+                    {c.status === 'receiving' && <span className="block max-w-xs whitespace-normal text-xs text-stone-600">{receivingWords(c, staleAfterSeconds, now)}</span>}
+                    {c.status === 'failed' && c.failureMessage && <span className="block max-w-xs whitespace-normal text-xs text-stone-600">{c.failureMessage}</span>}
                   </Td>
                   <Td numeric>{c.sitesTotal.toLocaleString('en-US')}</Td>
                   <Td numeric className="hidden md:table-cell">{c.upgradeCount.toLocaleString('en-US')}</Td>

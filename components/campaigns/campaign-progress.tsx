@@ -72,6 +72,7 @@ export function CampaignProgressPanel({ initial }: { initial: CampaignProgress }
           {p.sitesPerSecond !== null && <>{n(Math.round(p.sitesPerSecond))} sites a second</>}
           {p.secondsLeft !== null && <> · about {durationWords(p.secondsLeft)} left</>}
           {p.status === 'queued' && <>Waiting for a worker to take the first chunk.</>}
+          {p.receivingNote && <>Receiving the file: {p.receivingNote}.</>}
           {p.status === 'done' && p.startedAt && p.finishedAt && <> · took {durationWords((Date.parse(p.finishedAt) - Date.parse(p.startedAt)) / 1000)}</>}
           {error && <span className="text-red-700"> · progress could not be read just now ({error.message}); retrying.</span>}
         </p>

@@ -154,6 +154,7 @@ export type PlanFields = {
   studiesPerMonth: number;
   activeLinksLimit: number;
   uploadsPerMonth: number;
+  campaignSitesLimit: number;
   apiAccess: boolean;
   quoteBranding: boolean;
   kind: 'trial' | 'free' | 'paid';

@@ -1,6 +1,7 @@
 import 'server-only';
 import { QueryTypes, type Transaction } from 'sequelize';
 import { models } from '../models';
+import { CampaignUploadStoppedError } from './campaign-staging';
 
 export type CampaignStatus = 'receiving' | 'queued' | 'running' | 'done' | 'cancelled' | 'failed';
 
@@ -133,14 +134,6 @@ async function insertMany(head: string, width: number, values: unknown[][], t?: 
   await sql().query(`INSERT ${ignore ? 'IGNORE ' : ''}INTO ${head} VALUES ${values.map(() => group).join(',')}`, { replacements: values.flat(), transaction: t });
 }
 
-export async function insertCampaignSites(campaignId: number, sites: StagedSite[]): Promise<void> {
-  await insertMany(
-    'campaign_sites (campaign_id, line_no, site_ref, lat_deg, lon_deg, altitude_m, current_dish_cm)',
-    7,
-    sites.map((s) => [campaignId, s.line, s.siteRef, s.latDeg, s.lonDeg, s.altitudeM, s.currentDishCm]),
-  );
-}
-
 export interface StoredProblem {
   line: number;
   seq: number;
@@ -159,7 +152,7 @@ export interface ChunkPlan {
   siteCount: number;
 }
 
-/** The file is in: its chunks, counts and status "queued", in one transaction. */
+/** The file is in: its chunks, counts and status "queued", in one transaction (only from "receiving"). */
 export async function markCampaignQueued(campaignId: number, o: { rowsTotal: number; sitesTotal: number; problemsCount: number; chunks: ChunkPlan[] }): Promise<void> {
   await sql().transaction(async (t) => {
     for (let i = 0; i < o.chunks.length; i += 1000) {
@@ -170,10 +163,13 @@ export async function markCampaignQueued(campaignId: number, o: { rowsTotal: num
         t,
       );
     }
-    await sql().query(
-      `UPDATE campaigns SET status = 'queued', rows_total = :rowsTotal, sites_total = :sitesTotal, problems_count = :problemsCount, chunks_total = :chunks, updated_at = :now WHERE id = :campaignId`,
-      { replacements: { campaignId, rowsTotal: o.rowsTotal, sitesTotal: o.sitesTotal, problemsCount: o.problemsCount, chunks: o.chunks.length, now: new Date() }, transaction: t },
+    const [, queued] = await sql().query(
+      `UPDATE campaigns SET status = 'queued', rows_total = :rowsTotal, sites_total = :sitesTotal, problems_count = :problemsCount, chunks_total = :chunks, updated_at = :now
+       WHERE id = :campaignId AND status = 'receiving'`,
+      { replacements: { campaignId, rowsTotal: o.rowsTotal, sitesTotal: o.sitesTotal, problemsCount: o.problemsCount, chunks: o.chunks.length, now: new Date() }, type: QueryTypes.UPDATE, transaction: t },
     );
+    // Given up by the stale-upload sweep meanwhile: the chunks above roll back with this.
+    if (Number(queued) === 0) throw new CampaignUploadStoppedError();
   });
 }
 

@@ -28,6 +28,8 @@ export const planFieldsSchema = z
     studiesPerMonth: count('Studies per month'),
     activeLinksLimit: count('Active comparison links'),
     uploadsPerMonth: count('Uploads per month'),
+    // Per campaign, not per month: the upload stops at the first row over it (receive-campaign.ts).
+    campaignSitesLimit: count('Sites per campaign'),
     apiAccess: checkbox,
     quoteBranding: checkbox,
     isPublic: checkbox,

@@ -1,11 +1,8 @@
 import { parseCoordinate } from '@/server/validation/coordinates';
 import { parseDecimalCell, readCsvTable, type CsvProblem } from '@/server/uploads/csv-table';
-import { formatKib } from '@/server/uploads/upload-limits';
 
 /** A campaign file lists existing customer sites; 5 000 rows × a catalogue stays a few seconds of engine time. */
 export const CAMPAIGN_MAX_ROWS = 5000;
-/** 5 000 rows of ~60 characters is about 300 KiB; 512 KiB leaves room for long site references and DMS text. */
-export const CAMPAIGN_MAX_BYTES = 512 * 1024;
 
 /** altitude_m may be left out (column or cell): the site's ITU-R P.1511-1 topographic height is used. */
 export const CAMPAIGN_CSV_COLUMNS = {
@@ -40,23 +37,6 @@ export interface CampaignCsv {
 /** Heights people actually install at: below the Dead Sea shore to high plateaus (P.618 accepts any ≥ −0.5 km). */
 const ALTITUDE_M = { min: -500, max: 6000 };
 const DISH_CM = { min: 10, max: 1500 };
-
-/**
- * Bytes of an uploaded campaign file → text, or the one sentence that says why it cannot be read.
- * Same rules as the other uploads (UTF-8 text), with the campaign's own size limit.
- */
-export function readCampaignBytes(bytes: Uint8Array, filename: string): { ok: true; text: string } | { ok: false; error: string } {
-  if (bytes.byteLength === 0) return { ok: false, error: `"${filename}" is empty.` };
-  if (bytes.byteLength > CAMPAIGN_MAX_BYTES) {
-    return { ok: false, error: `"${filename}" is ${formatKib(bytes.byteLength)}; campaign files are limited to ${formatKib(CAMPAIGN_MAX_BYTES)}. Split the file into several campaigns.` };
-  }
-  if (bytes.includes(0)) return { ok: false, error: `"${filename}" is not a text CSV file (it contains binary data). Save it from your spreadsheet as CSV.` };
-  try {
-    return { ok: true, text: new TextDecoder('utf-8', { fatal: true }).decode(bytes) };
-  } catch {
-    return { ok: false, error: `"${filename}" is not UTF-8 text. Save it from your spreadsheet as "CSV UTF-8".` };
-  }
-}
 
 function numberCell(row: { line: number; values: Record<string, string> }, column: string, range: { min: number; max: number }, unit: string, problems: CsvProblem[]): number | null {
   const cell = row.values[column] ?? '';

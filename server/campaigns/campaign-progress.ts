@@ -1,4 +1,5 @@
 import type { CampaignRow, CampaignStatus } from '@/db/queries/campaigns';
+import { receivingWords } from '@/components/campaigns/campaign-status';
 
 /** Problems listed on the campaign page while it runs and after (the result file has them all). */
 export const CAMPAIGN_LISTED_PROBLEMS = 100;
@@ -19,6 +20,8 @@ export interface CampaignProgress {
   problemsCount: number;
   counts: { upgrade: number; alreadyMeetsTarget: number; noneMeetsTarget: number };
   failureMessage: string | null;
+  /** While the file is still arriving: rows so far, or that it stalled and when it will be given up. */
+  receivingNote: string | null;
   problems: { line: number; message: string }[];
   createdAt: string;
   startedAt: string | null;
@@ -28,7 +31,7 @@ export interface CampaignProgress {
 export const isFinished = (s: CampaignStatus) => s === 'done' || s === 'cancelled' || s === 'failed';
 
 /** What the progress route answers and the page shows: counts, rate and time left from the kept row. */
-export function campaignProgress(c: CampaignRow, problems: { line: number; message: string }[], now = new Date()): CampaignProgress {
+export function campaignProgress(c: CampaignRow, problems: { line: number; message: string }[], staleAfterSeconds: number, now = new Date()): CampaignProgress {
   const end = c.finishedAt ?? now;
   const seconds = c.startedAt ? (end.getTime() - c.startedAt.getTime()) / 1000 : 0;
   const rate = c.startedAt && seconds > 0 && c.sitesDone > 0 ? c.sitesDone / seconds : null;
@@ -46,6 +49,7 @@ export function campaignProgress(c: CampaignRow, problems: { line: number; messa
     problemsCount: c.problemsCount,
     counts: { upgrade: c.upgradeCount, alreadyMeetsTarget: c.alreadyMeetsCount, noneMeetsTarget: c.noneMeetsCount },
     failureMessage: c.failureMessage,
+    receivingNote: c.status === 'receiving' ? receivingWords(c, staleAfterSeconds, now) : null,
     problems,
     createdAt: c.createdAt.toISOString(),
     startedAt: c.startedAt?.toISOString() ?? null,

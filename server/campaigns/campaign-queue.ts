@@ -11,6 +11,14 @@ export interface ChunkJobData {
   chunkNo: number;
 }
 
+/**
+ * Housekeeping the workers do on a schedule (now: giving up uploads that stopped half-way,
+ * stale-uploads.ts). A queue of its own so a sweep never waits behind a campaign's chunks.
+ */
+export const CAMPAIGN_UPKEEP_QUEUE = 'campaign-upkeep';
+/** The one job scheduler for it: every worker upserts the same id, so Redis holds one schedule. */
+export const STALE_UPLOAD_SCHEDULER = 'stale-uploads';
+
 /** How long a submit waits for Redis before telling the user it is out of reach. */
 const REACH_TIMEOUT_MS = 2000;
 

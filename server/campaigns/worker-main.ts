@@ -1,15 +1,18 @@
-import { Worker } from 'bullmq';
+import { Queue, Worker } from 'bullmq';
 import { getEnv } from '@/server/env';
 import { closeSequelize } from '@/db/sequelize';
 import { markCampaignFailed } from '@/db/queries/campaigns';
-import { CAMPAIGN_QUEUE, redisConnection, type ChunkJobData } from './campaign-queue';
+import { CAMPAIGN_QUEUE, CAMPAIGN_UPKEEP_QUEUE, redisConnection, STALE_UPLOAD_SCHEDULER, type ChunkJobData } from './campaign-queue';
 import { runCampaignChunk } from './campaign-chunk';
+import { sweepStaleUploads } from './stale-uploads';
 
 /**
  * A campaign worker process (`npm run worker`; `npm start` starts one). Any number may run, on any
  * machine pointed at the same Redis and MariaDB. A worker killed mid-chunk loses its lock after
  * CAMPAIGN_JOB_LOCK_SECONDS and BullMQ's stalled-job check hands the chunk to another worker;
  * commitChunk writes every chunk once, so a chunk computed twice still leaves one row per line.
+ * Workers also sweep uploads that stopped half-way (stale-uploads.ts) on one shared BullMQ job
+ * scheduler: however many workers run, one sweep job is due per CAMPAIGN_UPKEEP_EVERY_SECONDS.
  */
 const env = getEnv();
 const lockDuration = env.CAMPAIGN_JOB_LOCK_SECONDS * 1000;
@@ -37,12 +40,27 @@ worker.on('failed', (job, error) => {
 });
 worker.on('ready', () => console.log(`[campaign-worker ${process.pid}] waiting for campaign chunks on ${CAMPAIGN_QUEUE}`));
 
+const upkeepQueue = new Queue(CAMPAIGN_UPKEEP_QUEUE, { connection });
+const upkeep = new Worker(
+  CAMPAIGN_UPKEEP_QUEUE,
+  async () => {
+    const swept = await sweepStaleUploads();
+    if (swept.givenUp.length || swept.rowsDeleted) console.log(`[campaign-worker ${process.pid}] gave up interrupted uploads ${swept.givenUp.join(', ') || '(none new)'}; ${swept.rowsDeleted} staged rows deleted`);
+    return swept;
+  },
+  { connection, concurrency: 1 },
+);
+upkeep.on('failed', (_job, error) => console.error(`[campaign-worker] stale-upload sweep failed: ${error.message}`));
+void upkeepQueue
+  .upsertJobScheduler(STALE_UPLOAD_SCHEDULER, { every: env.CAMPAIGN_UPKEEP_EVERY_SECONDS * 1000 }, { name: 'sweep-stale-uploads', opts: { removeOnComplete: true, removeOnFail: 100 } })
+  .catch((e: Error) => console.error(`[campaign-worker] could not schedule the stale-upload sweep: ${e.message}`));
+
 let stopping = false;
 async function stop(signal: string) {
   if (stopping) return;
   stopping = true;
   console.log(`[campaign-worker ${process.pid}] ${signal}: finishing the current chunk, then stopping`);
-  await worker.close();
+  await Promise.all([worker.close(), upkeep.close(), upkeepQueue.close()]);
   await connection.quit().catch(() => {});
   await closeSequelize();
   process.exit(0);

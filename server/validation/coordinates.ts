@@ -32,9 +32,25 @@ function round6(x: number): number {
   return Math.round(x * 1e6) / 1e6;
 }
 
+/** Plain decimal degrees with an optional sign: what almost every row of a campaign file holds. */
+const PLAIN_DECIMAL = /^([+-]?)(\d+(?:\.\d+)?|\.\d+)$/;
+
+function withinLimit(value: number, axis: CoordinateAxis): CoordinateParse {
+  const limit = LIMIT_DEG[axis];
+  if (!Number.isFinite(value) || Math.abs(value) > limit) {
+    return { ok: false, error: `${AXIS_WORD[axis]} must be between -${limit} and ${limit} degrees.` };
+  }
+  return { ok: true, value: round6(value) === 0 ? 0 : round6(value) };
+}
+
 export function parseCoordinate(text: string, axis: CoordinateAxis): CoordinateParse {
   const word = AXIS_WORD[axis];
-  let s = String(text ?? '').trim().toUpperCase();
+  let s = String(text ?? '').trim();
+  // The general reading below gives the same answer for these; skipping its string work matters
+  // when a million-site file is read (server/campaigns/stage-campaign-file.ts).
+  const plain = PLAIN_DECIMAL.exec(s);
+  if (plain) return withinLimit((plain[1] === '-' ? -1 : 1) * Number(plain[2]), axis);
+  s = s.toUpperCase();
   if (s === '') return { ok: false, error: `${word} is required.` };
   s = s.replace(/,/g, '.');
 
@@ -95,12 +111,7 @@ export function parseCoordinate(text: string, axis: CoordinateAxis): CoordinateP
   const [deg, min = 0, sec = 0] = numbers;
   if (parts.length >= 2 && min >= 60) return { ok: false, error: 'Minutes must be below 60.' };
   if (parts.length === 3 && sec >= 60) return { ok: false, error: 'Seconds must be below 60.' };
-  const value = sign * (deg + min / 60 + sec / 3600);
-  const limit = LIMIT_DEG[axis];
-  if (!Number.isFinite(value) || Math.abs(value) > limit) {
-    return { ok: false, error: `${word} must be between -${limit} and ${limit} degrees.` };
-  }
-  return { ok: true, value: round6(value) === 0 ? 0 : round6(value) };
+  return withinLimit(sign * (deg + min / 60 + sec / 3600), axis);
 }
 
 /**

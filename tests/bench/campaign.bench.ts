@@ -4,7 +4,10 @@
  *     under tsx): 10 000 sites × 8 dishes (the trade-off as a campaign runs it, without per-site
  *     prices), as a study runs it, and with each site's ITU-R maps climate (computeCampaign);
  *  2. end to end against the RUNNING app of the test profile (`bash docker-local/services.sh test`,
- *     `npx next build`, `next start -p $APP_PORT`): a 100 000-site file uploaded to
+ *     `npx next build`, then start it as `npm start` does, with the web heap setting of
+ *     docker-local/lib.sh: `node --max-old-space-size=1024 node_modules/next/dist/bin/next start -p $APP_PORT`;
+ *     BENCH_APP_PID is that node process, which names itself next-server — not an npx wrapper):
+ *     a 100 000-site file uploaded to
  *     POST /api/campaign-uploads, queued in Redis, computed by 1 and then 2 worker processes
  *     (started here), every row in MariaDB — sites per second from the start of the upload to the
  *     last row, with the peak resident memory of the web process (BENCH_APP_PID, else
@@ -126,6 +129,7 @@ async function endToEnd(million: boolean) {
   /** Only the upload of a big file (no worker): its time and the web process's peak memory; the campaign is then cancelled. */
   const uploadOnly = async (sites: number) => {
     const file = fileOf(sites);
+    const before = Number.isFinite(appPid) ? rssKb(appPid) : 0;
     const mem = sampler(() => [appPid].filter((p) => Number.isFinite(p)));
     const t0 = performance.now();
     const res = await fetch(`${appUrl}/api/campaign-uploads?serviceProfileId=${service!.id}&climateProfileId=maps&targetAvailabilityPercent=99.9&filename=bench-${sites}.csv`, {
@@ -140,7 +144,7 @@ async function endToEnd(million: boolean) {
     if (res.status !== 202 || !body.id) throw new Error(`upload answered ${res.status}: ${JSON.stringify(body)}`);
     // Bench only: stop it here (workers skip every chunk of a cancelled campaign).
     await m.sequelize.query("UPDATE campaigns SET status = 'cancelled' WHERE id = :id", { replacements: { id: body.id } });
-    console.log(`  upload only, ${sites.toLocaleString('en-US')} sites (${Math.round(fs.statSync(file).size / 1024 / 1024)} MB): streamed, staged in MariaDB and ${body.chunks} chunks queued in ${s.toFixed(1)} s; web process peak ${Math.round(peak / 1024)} MB (then cancelled)`);
+    console.log(`  upload only, ${sites.toLocaleString('en-US')} sites (${Math.round(fs.statSync(file).size / 1024 / 1024)} MB): streamed, staged in MariaDB and ${body.chunks} chunks queued in ${s.toFixed(1)} s; web process ${Math.round(before / 1024)} MB before, peak ${Math.round(peak / 1024)} MB (aim ≤ 300 MB: ${peak / 1024 <= 300 ? 'met' : 'NOT met'}; then cancelled)`);
   };
 
   const run = async (sites: number, workerCount: number) => {

@@ -5,6 +5,7 @@ import { closeSequelize } from '@/db/sequelize';
 import { changePlanAction, openPortalAction, startCheckoutAction } from '@/server/actions/billing';
 import { createPlanAction, syncPlanAction, updatePlanAction } from '@/server/actions/plans';
 import { getStripe } from '@/server/billing/stripe';
+import { getPlanLimits } from '@/server/billing/limits';
 import CheckoutReturnPage from '@/app/(app)/settings/billing/return/page';
 import { createStaffUser, createUserWithRole, signInAs } from './support/factories';
 import { createBillingCompany, planIdByCode, rand } from './billing-fixtures';
@@ -79,7 +80,7 @@ describe('billing actions: admins only', () => {
 describe('plan catalogue actions: staff only', () => {
   const fields = (over: Record<string, string> = {}) => ({
     code: `st-${rand()}`, kind: 'paid', name: 'Relay', description: 'Invented plan for a staff test.', monthlyPriceUsd: '79', seatLimit: '10',
-    studiesPerMonth: '800', activeLinksLimit: '120', uploadsPerMonth: '60', apiAccess: 'on', quoteBranding: 'on', isPublic: '', sortOrder: '50', trialDays: '', ...over,
+    studiesPerMonth: '800', activeLinksLimit: '120', uploadsPerMonth: '60', campaignSitesLimit: '250000', apiAccess: 'on', quoteBranding: 'on', isPublic: '', sortOrder: '50', trialDays: '', ...over,
   });
 
   it('a company admin may not create or change plans', async () => {
@@ -95,14 +96,18 @@ describe('plan catalogue actions: staff only', () => {
     const planId = created.state!.ok ? created.state!.data!.planId : 0;
     madePlans.push(planId);
     const plan = await models().Plan.findByPk(planId, { rejectOnEmpty: true });
-    expect(plan).toMatchObject({ name: 'Relay', seatLimit: 10, apiAccess: true, isPublic: false });
+    expect(plan).toMatchObject({ name: 'Relay', seatLimit: 10, apiAccess: true, isPublic: false, campaignSitesLimit: 250_000 });
     expect((await getStripe().prices.retrieve(plan.stripePriceId!)).unit_amount).toBe(7900);
 
-    const updated = await callAction(updatePlanAction, { id: String(planId), ...fields({ monthlyPriceUsd: '84.50', name: 'Relay Plus' }) });
+    const updated = await callAction(updatePlanAction, { id: String(planId), ...fields({ monthlyPriceUsd: '84.50', name: 'Relay Plus', campaignSitesLimit: '1000000' }) });
     expect(updated.state).toMatchObject({ ok: true });
     expect(updated.state?.ok && updated.state.message).toMatch(/new monthly price was created .* old one archived/);
     await plan.reload();
     expect(plan.name).toBe('Relay Plus');
+    // The edited cap is the one a company on the plan gets (what the campaign upload checks).
+    expect(plan.campaignSitesLimit).toBe(1_000_000);
+    const onPlan = await createBillingCompany({ planCode: plan.code, customerId: null });
+    expect((await getPlanLimits(onPlan.id)).campaignSites).toBe(1_000_000);
     expect((await getStripe().prices.retrieve(plan.stripePriceId!)).unit_amount).toBe(8450);
     expect((await callAction(syncPlanAction, { id: planId })).state).toMatchObject({ ok: true });
   });
@@ -115,5 +120,11 @@ describe('plan catalogue actions: staff only', () => {
     expect(freeWithPrice).toMatchObject({ ok: false, fieldErrors: { monthlyPriceUsd: ['Free and trial plans cost 0.00.'] } });
     expect((await callAction(createPlanAction, fields({ code: 'crew' }))).state).toMatchObject({ ok: false, fieldErrors: { code: ['Already used.'] } });
     expect((await callAction(createPlanAction, fields({ seatLimit: '0' }))).state).toMatchObject({ ok: false, code: 'invalid_input' });
+    expect((await callAction(createPlanAction, fields({ campaignSitesLimit: '1000001' }))).state).toMatchObject({ ok: false, fieldErrors: { campaignSitesLimit: ['Sites per campaign must be at most 1,000,000.'] } });
+    expect((await callAction(createPlanAction, fields({ campaignSitesLimit: '2.5' }))).state).toMatchObject({ ok: false, fieldErrors: { campaignSitesLimit: ['Sites per campaign must be a whole number.'] } });
+    // An edit that leaves the field out does not quietly reset the cap to a default.
+    const crew = await planIdByCode('crew');
+    const { campaignSitesLimit: _left, ...withoutCap } = fields();
+    expect((await callAction(updatePlanAction, { id: String(crew), ...withoutCap })).state).toMatchObject({ ok: false, fieldErrors: { campaignSitesLimit: [expect.any(String)] } });
   });
 });

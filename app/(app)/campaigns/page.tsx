@@ -13,6 +13,7 @@ import { listServiceProfiles } from '@/db/queries/service-profiles';
 import { listClimateProfiles } from '@/db/queries/climate-profiles';
 import { listDishes } from '@/db/queries/dishes';
 import { listCampaigns } from '@/db/queries/campaigns';
+import { getEnv } from '@/server/env';
 
 export const metadata: Metadata = { title: 'Upgrade campaigns' };
 
@@ -50,7 +51,7 @@ export default async function CampaignsPage() {
             />
           </CardBody>
         </Card>
-        <CampaignList campaigns={campaigns} />
+        <CampaignList campaigns={campaigns} staleAfterSeconds={getEnv().CAMPAIGN_UPLOAD_STALE_SECONDS} />
         <Notice tone="info" title="Statistics, not guarantees">
           Outage minutes and availability are long-term averages from ITU-R methods for an average year, not a guarantee for any one year. Each site is computed with
           its own climate read from the ITU-R maps at its coordinates (rain: P.837-7, P.839-4; altitude when the file gives none: P.1511-1) and the total attenuation of

@@ -33,6 +33,7 @@ export default async function PlansPage() {
               <th scope="col" className="px-3 py-2 text-right font-medium">Studies / mo</th>
               <th scope="col" className="px-3 py-2 text-right font-medium">Links</th>
               <th scope="col" className="px-3 py-2 text-right font-medium">Uploads / mo</th>
+              <th scope="col" className="px-3 py-2 text-right font-medium">Sites / campaign</th>
               <th scope="col" className="px-3 py-2 font-medium">API · Branding</th>
               <th scope="col" className="px-3 py-2 text-right font-medium">Companies</th>
               <th scope="col" className="px-3 py-2 font-medium">Provider</th>
@@ -53,6 +54,7 @@ export default async function PlansPage() {
                   <td className="num px-3 py-2">{count(p.studiesPerMonth)}</td>
                   <td className="num px-3 py-2">{count(p.activeLinksLimit)}</td>
                   <td className="num px-3 py-2">{count(p.uploadsPerMonth)}</td>
+                  <td className="num px-3 py-2">{count(p.campaignSitesLimit)}</td>
                   <td className="px-3 py-2">{p.apiAccess ? 'API' : '—'} · {p.quoteBranding ? 'Branding' : '—'}</td>
                   <td className="num px-3 py-2">{count(companies[i])}</td>
                   <td className="px-3 py-2 text-xs">

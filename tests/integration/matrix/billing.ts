@@ -30,7 +30,7 @@ const withProviderCustomer = async (w: MatrixWorld) => {
 // Invented plan, never public, so the shared database's plan picker stays as seeded.
 const planFields = () => ({
   name: 'Matrix Relay', description: 'Invented plan for the permission matrix.', monthlyPriceUsd: '39.00', seatLimit: '4',
-  studiesPerMonth: '100', activeLinksLimit: '20', uploadsPerMonth: '10', apiAccess: '', quoteBranding: 'on', isPublic: '', sortOrder: '97', trialDays: '',
+  studiesPerMonth: '100', activeLinksLimit: '20', uploadsPerMonth: '10', campaignSitesLimit: '5000', apiAccess: '', quoteBranding: 'on', isPublic: '', sortOrder: '97', trialDays: '',
 });
 
 const actionCases: MatrixCase<never>[] = [

@@ -1,11 +1,10 @@
 import { describe, expect, it } from 'vitest';
 import Papa from 'papaparse';
-import { CAMPAIGN_MAX_BYTES, CAMPAIGN_MAX_ROWS, parseCampaignCsv, readCampaignBytes } from '@/server/campaigns/campaign-csv';
+import { CAMPAIGN_MAX_ROWS, parseCampaignCsv } from '@/server/campaigns/campaign-csv';
 import { CAMPAIGN_RESULT_HEADER, campaignResultCsv } from '@/server/campaigns/campaign-result-csv';
 
 // Invented site references and coordinates (demo data).
 const HEADER = 'site_ref,latitude,longitude,altitude_m,current_dish_cm';
-const bytes = (s: string) => new TextEncoder().encode(s);
 
 describe('parseCampaignCsv', () => {
   it('reads decimal and DMS coordinates, keeping each row its line number', () => {
@@ -65,20 +64,6 @@ describe('parseCampaignCsv', () => {
   it('out-of-range altitude and dish size are line problems', () => {
     const r = parseCampaignCsv(`${HEADER}\nA,47,2,9000,60\nB,47,2,100,0\n`);
     expect(r.problems.map((p) => [p.line, p.column])).toEqual([[2, 'altitude_m'], [3, 'current_dish_cm']]);
-  });
-});
-
-describe('readCampaignBytes', () => {
-  it('refuses a file over 512 KiB, naming the limit', () => {
-    const big = new Uint8Array(CAMPAIGN_MAX_BYTES + 1).fill(65);
-    const r = readCampaignBytes(big, 'sites.csv');
-    expect(r).toEqual({ ok: false, error: '"sites.csv" is 513 KiB; campaign files are limited to 512 KiB. Split the file into several campaigns.' });
-  });
-  it('accepts exactly 512 KiB of text, refuses empty, binary and non-UTF-8 files', () => {
-    expect(readCampaignBytes(new Uint8Array(CAMPAIGN_MAX_BYTES).fill(65), 'a.csv').ok).toBe(true);
-    expect(readCampaignBytes(new Uint8Array(0), 'a.csv')).toEqual({ ok: false, error: '"a.csv" is empty.' });
-    expect(readCampaignBytes(bytes('a\u0000b'), 'a.csv').ok).toBe(false);
-    expect(readCampaignBytes(new Uint8Array([0x61, 0xff, 0x62]), 'a.csv')).toMatchObject({ ok: false, error: expect.stringContaining('UTF-8') });
   });
 });
 

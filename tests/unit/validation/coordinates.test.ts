@@ -85,4 +85,21 @@ describe('formatDms', () => {
       if (back.ok) expect(Math.abs(back.value - v)).toBeLessThan(1.5e-5);
     }
   });
+
+  it('reads plain decimal degrees (the quick path) exactly as the same value written with a hemisphere letter', () => {
+    const cases: [string, string, 'lat' | 'lon'][] = [
+      ['47.25', '47.25 N', 'lat'],
+      ['-2.5', '2.5 W', 'lon'],
+      [' +12.1234567 ', '12.1234567 N', 'lat'],
+      ['.5', '.5 E', 'lon'],
+      ['-0', '0 S', 'lat'],
+      ['90', '90 N', 'lat'],
+      ['90.0000001', '90.0000001 N', 'lat'],
+      ['-180.5', '180.5 W', 'lon'],
+    ];
+    for (const [plain, lettered, axis] of cases) expect(parseCoordinate(plain, axis)).toEqual(parseCoordinate(lettered, axis));
+    expect(parseCoordinate('-0', 'lat')).toEqual({ ok: true, value: 0 });
+    expect(parseCoordinate('90.0000001', 'lat')).toEqual({ ok: false, error: 'Latitude must be between -90 and 90 degrees.' });
+    expect(parseCoordinate('', 'lon')).toEqual({ ok: false, error: 'Longitude is required.' });
+  });
 });

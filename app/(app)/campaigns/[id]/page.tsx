@@ -1,4 +1,5 @@
 import type { Metadata } from 'next';
+import { getEnv } from '@/server/env';
 import Link from 'next/link';
 import { notFound } from 'next/navigation';
 import { PageHeader } from '@/components/ui/page-header';
@@ -22,7 +23,7 @@ export default async function CampaignPage({ params }: { params: Promise<{ id: s
   const id = campaignIdOf((await params).id);
   const campaign = id === null ? null : await getCampaign(ctx.companyId, id);
   if (!campaign) notFound();
-  const progress = campaignProgress(campaign, await campaignProblems(campaign.id, CAMPAIGN_LISTED_PROBLEMS));
+  const progress = campaignProgress(campaign, await campaignProblems(campaign.id, CAMPAIGN_LISTED_PROBLEMS), getEnv().CAMPAIGN_UPLOAD_STALE_SECONDS);
   // The summary reads every kept row: shown once the campaign stops (the file has rows while it runs).
   const summary = campaign.status === 'done' || campaign.status === 'cancelled' ? await campaignSummary(campaign) : null;
   return (

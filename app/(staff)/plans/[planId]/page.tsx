@@ -29,7 +29,7 @@ export default async function EditPlanPage({ params }: { params: Promise<{ planI
         <PlanForm
           initial={{
             id: plan.id, code: plan.code, kind: plan.kind, name: plan.name, description: plan.description ?? '', monthlyPriceUsd: new Decimal(plan.monthlyPriceUsd).toFixed(2),
-            seatLimit: plan.seatLimit, studiesPerMonth: plan.studiesPerMonth, activeLinksLimit: plan.activeLinksLimit, uploadsPerMonth: plan.uploadsPerMonth,
+            seatLimit: plan.seatLimit, studiesPerMonth: plan.studiesPerMonth, activeLinksLimit: plan.activeLinksLimit, uploadsPerMonth: plan.uploadsPerMonth, campaignSitesLimit: plan.campaignSitesLimit,
             apiAccess: plan.apiAccess, quoteBranding: plan.quoteBranding, isPublic: plan.isPublic, sortOrder: plan.sortOrder, trialDays: plan.trialDays,
           }}
         />

@@ -13,7 +13,7 @@ export default async function NewPlanPage() {
       <h1 className="text-2xl font-semibold tracking-tight text-stone-900">New plan</h1>
       <div className="rounded border border-stone-200 bg-white p-5">
         <PlanForm
-          initial={{ code: '', kind: 'paid', name: '', description: '', monthlyPriceUsd: '', seatLimit: 5, studiesPerMonth: 100, activeLinksLimit: 20, uploadsPerMonth: 10, apiAccess: false, quoteBranding: true, isPublic: true, sortOrder: 10, trialDays: null }}
+          initial={{ code: '', kind: 'paid', name: '', description: '', monthlyPriceUsd: '', seatLimit: 5, studiesPerMonth: 100, activeLinksLimit: 20, uploadsPerMonth: 10, campaignSitesLimit: 5000, apiAccess: false, quoteBranding: true, isPublic: true, sortOrder: 10, trialDays: null }}
         />
       </div>
     </div>
