@@ -101,24 +101,21 @@ export function prepareAtmosphericPath(o: { frequencyGHz: number; elevationDeg: 
  * the same rain path, so a campaign site's 8 dishes work out rain once instead of 8 times; the
  * values are the very numbers the per-dish scan computed (bit-identical figures).
  */
-const heldGridRain = new WeakMap<RainPath, Float64Array>();
-let heldGridScintillation: Float64Array | null = null;
-function rainOnHeldGrid(rainPath: RainPath): Float64Array {
+const heldGridRain = new WeakMap<RainPath, readonly number[]>();
+let heldGridScintillation: readonly number[] | null = null;
+function rainOnHeldGrid(rainPath: RainPath): readonly number[] {
   let rain = heldGridRain.get(rainPath);
   if (!rain) {
     const xs = scanGrid(LN_P_MIN, LN_P_HELD);
-    rain = new Float64Array(xs.length);
-    for (let i = 0; i < xs.length; i++) rain[i] = Math.exp(rainPath.lnAttenuationAt(xs[i]));
+    const values: number[] = [];
+    for (let i = 0; i < xs.length; i++) values.push(Math.exp(rainPath.lnAttenuationAt(xs[i])));
+    rain = values;
     heldGridRain.set(rainPath, rain);
   }
   return rain;
 }
-function scintillationOnHeldGrid(): Float64Array {
-  if (!heldGridScintillation) {
-    const xs = scanGrid(LN_P_MIN, LN_P_HELD);
-    heldGridScintillation = new Float64Array(xs.length);
-    for (let i = 0; i < xs.length; i++) heldGridScintillation[i] = scintillationTimeFactorLn(xs[i]);
-  }
+function scintillationOnHeldGrid(): readonly number[] {
+  if (!heldGridScintillation) heldGridScintillation = scanGrid(LN_P_MIN, LN_P_HELD).map(scintillationTimeFactorLn);
   return heldGridScintillation;
 }
 

@@ -17,9 +17,9 @@ export type Crossing =
 
 /** A curve sampled once, so that many levels can be looked up on it without resampling. */
 export interface SampledCurve {
-  /** The scan grid, shared between curves on the same interval: read only. */
-  readonly xs: Float64Array;
-  readonly gs: Float64Array;
+  /** The scan grid, shared between curves on the same interval. */
+  readonly xs: readonly number[];
+  readonly gs: readonly number[];
   /** Largest value of g on the interval (refined between grid points), and where it is. */
   readonly peak: number;
   readonly peakX: number;
@@ -47,13 +47,15 @@ export interface SampledCurve {
 export function sampleCurve(g: (x: number) => number, lower: number, upper: number, atGridPoint?: (i: number) => number): SampledCurve {
   if (!(lower < upper)) throw new Error(`sampleCurve: empty interval [${lower}, ${upper}]`);
   const xs = scanGrid(lower, upper);
-  const gs = new Float64Array(SCAN_POINTS);
+  // Plain arrays, not Float64Array: a typed array per curve costs the garbage collector an
+  // ArrayBuffer to sweep, and a campaign makes one curve per dish (measured: --trace-gc-nvp).
+  const gs: number[] = [];
   let arg = 0;
   for (let i = 0; i < SCAN_POINTS; i++) {
     const x = xs[i];
     const v = atGridPoint ? atGridPoint(i) : g(x);
     if (!Number.isFinite(v)) throw new SolverNumericError('sampleCurve', x, v);
-    gs[i] = v;
+    gs.push(v);
     if (v > gs[arg]) arg = i;
   }
   // A curve whose largest grid value is at the lower end and that falls right away has its peak
@@ -85,25 +87,26 @@ export function sampleCurve(g: (x: number) => number, lower: number, upper: numb
  * part of their arithmetic (the dishes of one site) computes that part once on these points and
  * hands sampleCurve `atGridPoint` — which must equal g(grid[i]) exactly.
  */
-export function scanGrid(lower: number, upper: number): Float64Array {
+export function scanGrid(lower: number, upper: number): readonly number[] {
   // The engine scans a handful of fixed intervals; each grid is made once and shared (read only).
   const hit = grids.find((g) => g.lower === lower && g.upper === upper);
   if (hit) return hit.xs;
-  const xs = new Float64Array(SCAN_POINTS);
-  for (let i = 0; i < SCAN_POINTS; i++) xs[i] = i === SCAN_POINTS - 1 ? upper : lower + ((upper - lower) * i) / (SCAN_POINTS - 1);
+  const xs: number[] = [];
+  for (let i = 0; i < SCAN_POINTS; i++) xs.push(i === SCAN_POINTS - 1 ? upper : lower + ((upper - lower) * i) / (SCAN_POINTS - 1));
+  Object.freeze(xs);
   if (grids.length >= MAX_SHARED_GRIDS) grids.shift();
   grids.push({ lower, upper, xs });
   return xs;
 }
 const MAX_SHARED_GRIDS = 8;
-const grids: { lower: number; upper: number; xs: Float64Array }[] = [];
+const grids: { lower: number; upper: number; xs: readonly number[] }[] = [];
 
 function crossing(g: (x: number) => number, level: number, from: number, to: number): number {
   return brentRoot((x) => g(x) - level, from, to, 1e-12 * Math.max(1, Math.abs(from)));
 }
 
 /** Golden-section search for the maximum around grid point `arg` (between its neighbours). */
-function refinePeak(g: (x: number) => number, xs: Float64Array, gs: Float64Array, arg: number): { x: number; value: number } {
+function refinePeak(g: (x: number) => number, xs: readonly number[], gs: readonly number[], arg: number): { x: number; value: number } {
   let a = xs[Math.max(0, arg - 1)];
   let b = xs[Math.min(xs.length - 1, arg + 1)];
   const r = (Math.sqrt(5) - 1) / 2;
