@@ -72,6 +72,41 @@ test('an installer builds a study from the form and reads the trade-off', async 
   expect(await seriousViolations(page)).toEqual([]);
 });
 
+test('the form’s new customer is refused when the company has one of that name, and the tick box adds a different one', async ({ page }, info) => {
+  test.setTimeout(150_000);
+  const name = `Quarry Lane Kennels ${stamp()}`;
+  await signIn(page, installer.email);
+  const fillStudy = async (customer: string) => {
+    await page.goto('/studies/new');
+    await page.getByRole('radio', { name: 'New customer' }).check();
+    await page.getByLabel('Customer name').fill(customer);
+    await page.getByLabel('Site name').fill('Kennel roof');
+    await page.getByLabel('Latitude').fill('51.2');
+    await page.getByLabel('Longitude').fill('-1.9');
+    await page.getByLabel('Altitude (m above sea level)').fill('120');
+    const value = await page.locator('select[name=serviceProfileId] option', { hasText: DEMO_SERVICES[0].name }).first().getAttribute('value');
+    await page.getByLabel('Satellite service').selectOption(value!);
+    await page.getByRole('button', { name: 'Compute study' }).click();
+  };
+  await fillStudy(name);
+  await page.waitForURL(/\/studies\/\d+$/);
+
+  // The same name again, typed in another case and spacing: refused, the existing customer named.
+  await fillStudy(`  ${name.toUpperCase()} `);
+  const notice = page.getByText('This customer may already exist');
+  await expect(notice).toBeVisible();
+  await expect(page.getByText(`${name} is already one of your customers`).first()).toBeVisible();
+  expect(page.url()).toMatch(/\/studies\/new$/);
+  expect(await seriousViolations(page)).toEqual([]);
+  await page.setViewportSize({ width: 1280, height: 900 });
+  await page.screenshot({ path: info.outputPath('study-form-duplicate-customer-1280.png'), fullPage: true });
+
+  await page.getByRole('checkbox', { name: 'A different customer with the same name' }).check();
+  await page.getByRole('button', { name: 'Compute study' }).click();
+  await page.waitForURL(/\/studies\/\d+$/);
+  await expect(page.getByRole('heading', { level: 1 })).toContainText(name.toUpperCase().trim());
+});
+
 test('sales reads studies but has no form, and the pages pass axe', async ({ page }) => {
   await signIn(page, sales.email);
   await page.goto('/studies');
