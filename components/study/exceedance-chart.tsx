@@ -1,8 +1,7 @@
 'use client';
 
-import { Line } from 'react-chartjs-2';
 import { baseChartOptions, boxLegendLabels, CHART, exceedanceTooltip, linearAxis, lineLegendLabels, percentOfYearAxis } from '@/components/charts/chart-setup';
-import { ChartFigure } from '@/components/charts/chart-figure';
+import { LineChartFigure } from '@/components/charts/chart-figure';
 
 export type ThresholdMark = { label: string; fadeThresholdDb: number; outagePercent: number };
 export type CurvePoint = { pPercent: number; attenuationDb: number; gasDb?: number; cloudDb?: number; rainDb?: number; scintillationDb?: number };
@@ -43,51 +42,49 @@ export function ExceedanceChart({ curve, marks, description }: { curve: CurvePoi
     : [];
   return (
     // The total draws five curves and a legend line each: it gets more height, so the plot is not squeezed.
-    <ChartFigure caption={description} height={total ? 'h-80 sm:h-96' : 'h-64 sm:h-72'}>
-      <Line
-        role="img"
-        aria-label={description}
-        data={{
-          datasets: [
-            {
-              label: total ? 'Total attenuation exceeded' : 'Rain attenuation exceeded',
-              data: curve.map((p) => ({ x: p.pPercent, y: p.attenuationDb })),
-              borderColor: CHART.line,
-              borderWidth: total ? 2.5 : 2,
-              pointRadius: 0,
-              tension: 0.2,
-            },
-            ...parts,
-            ...marks.map((m, i) => ({
-              label: `${m.label}: A* ${m.fadeThresholdDb.toFixed(1)} dB`,
-              data: [
-                { x: 0.001, y: m.fadeThresholdDb },
-                { x: Math.min(5, Math.max(0.001, m.outagePercent)), y: m.fadeThresholdDb },
-              ],
-              borderColor: thresholdShade(i, marks.length),
-              borderDash: [5, 3],
-              borderWidth: 1.5,
-              pointRadius: [0, 4],
-              pointBackgroundColor: thresholdShade(i, marks.length),
-            })),
-          ],
-        }}
-        options={{
-          ...baseChartOptions(),
-          parsing: false,
-          plugins: {
-            legend: {
-              position: 'bottom',
-              labels: total ? lineLegendLabels((ds) => Math.max(1.5, ds.borderWidth ?? 1.5)) : boxLegendLabels(),
-            },
-            tooltip: exceedanceTooltip(),
+    <LineChartFigure
+      description={description}
+      height={total ? 'h-80 sm:h-96' : 'h-64 sm:h-72'}
+      data={{
+        datasets: [
+          {
+            label: total ? 'Total attenuation exceeded' : 'Rain attenuation exceeded',
+            data: curve.map((p) => ({ x: p.pPercent, y: p.attenuationDb })),
+            borderColor: CHART.line,
+            borderWidth: total ? 2.5 : 2,
+            pointRadius: 0,
+            tension: 0.2,
           },
-          scales: {
-            x: percentOfYearAxis(),
-            y: linearAxis(total ? 'Attenuation (dB)' : 'Rain attenuation (dB)', { beginAtZero: true }),
+          ...parts,
+          ...marks.map((m, i) => ({
+            label: `${m.label}: A* ${m.fadeThresholdDb.toFixed(1)} dB`,
+            data: [
+              { x: 0.001, y: m.fadeThresholdDb },
+              { x: Math.min(5, Math.max(0.001, m.outagePercent)), y: m.fadeThresholdDb },
+            ],
+            borderColor: thresholdShade(i, marks.length),
+            borderDash: [5, 3],
+            borderWidth: 1.5,
+            pointRadius: [0, 4],
+            pointBackgroundColor: thresholdShade(i, marks.length),
+          })),
+        ],
+      }}
+      options={{
+        ...baseChartOptions(),
+        parsing: false,
+        plugins: {
+          legend: {
+            position: 'bottom',
+            labels: total ? lineLegendLabels((ds) => Math.max(1.5, ds.borderWidth ?? 1.5)) : boxLegendLabels(),
           },
-        }}
-      />
-    </ChartFigure>
+          tooltip: exceedanceTooltip(),
+        },
+        scales: {
+          x: percentOfYearAxis(),
+          y: linearAxis(total ? 'Attenuation (dB)' : 'Rain attenuation (dB)', { beginAtZero: true }),
+        },
+      }}
+    />
   );
 }

@@ -1,8 +1,7 @@
 'use client';
 
-import { Line } from 'react-chartjs-2';
 import { baseChartOptions, CHART, exceedanceTooltip, linearAxis, lineLegendLabels, percentOfYearAxis } from '@/components/charts/chart-setup';
-import { ChartFigure } from '@/components/charts/chart-figure';
+import { LineChartFigure } from '@/components/charts/chart-figure';
 
 export type ServiceSeries = {
   name: string;
@@ -30,67 +29,61 @@ export function ServiceOverlayCharts({ series, targetMinutes, targetText, outage
   const maxX = xs.length ? Math.max(...xs) : 100;
   return (
     <div className="grid gap-6 lg:grid-cols-2 [&>*]:min-w-0">
-      <ChartFigure caption={outageDescription}>
-        <Line
-          role="img"
-          aria-label={outageDescription}
-          data={{
-            datasets: [
-              ...series.map((s, i) => ({
-                label: s.name,
-                data: s.outage.map((p) => ({ x: p.diameterCm, y: p.minutes })),
-                borderColor: STYLES[i % STYLES.length].color,
-                backgroundColor: STYLES[i % STYLES.length].color,
-                borderDash: STYLES[i % STYLES.length].dash,
-                borderWidth: 2,
-                pointRadius: 3,
-                tension: 0.25,
-              })),
-              ...(targetMinutes !== null
-                ? [{ label: `Allowed by the target (${targetText})`, data: [{ x: minX, y: targetMinutes }, { x: maxX, y: targetMinutes }], borderColor: CHART.guide, borderDash: [3, 3], borderWidth: 1, pointRadius: 0 }]
-                : []),
-            ],
-          }}
-          options={{
-            ...baseChartOptions(),
-            parsing: false,
-            plugins: {
-              legend: legend(),
-              tooltip: { callbacks: { label: (item) => (item.datasetIndex < series.length ? `${item.dataset.label}: ${series[item.datasetIndex].outage[item.dataIndex]?.minutesText} a year` : `${item.dataset.label}`) } },
-            },
-            scales: {
-              x: linearAxis('Dish diameter (cm)', { min: minX - 5, max: maxX + 5 }),
-              y: linearAxis('Outage (minutes per year)', { beginAtZero: true }),
-            },
-          }}
-        />
-      </ChartFigure>
-      <ChartFigure caption={curveDescription}>
-        <Line
-          role="img"
-          aria-label={curveDescription}
-          data={{
-            datasets: series.map((s, i) => ({
+      <LineChartFigure
+        description={outageDescription}
+        data={{
+          datasets: [
+            ...series.map((s, i) => ({
               label: s.name,
-              data: s.curve.map((p) => ({ x: p.pPercent, y: p.attenuationDb })),
+              data: s.outage.map((p) => ({ x: p.diameterCm, y: p.minutes })),
               borderColor: STYLES[i % STYLES.length].color,
+              backgroundColor: STYLES[i % STYLES.length].color,
               borderDash: STYLES[i % STYLES.length].dash,
               borderWidth: 2,
-              pointRadius: 0,
-              tension: 0.2,
+              pointRadius: 3,
+              tension: 0.25,
             })),
-          }}
-          options={{
-            ...baseChartOptions(),
-            parsing: false,
-            plugins: { legend: legend(), tooltip: exceedanceTooltip() },
-            scales: {
-              x: percentOfYearAxis(),
-              y: linearAxis('Downlink attenuation (dB)', { beginAtZero: true }),
-            },
-          }}
-        />
-      </ChartFigure>
+            ...(targetMinutes !== null
+              ? [{ label: `Allowed by the target (${targetText})`, data: [{ x: minX, y: targetMinutes }, { x: maxX, y: targetMinutes }], borderColor: CHART.guide, borderDash: [3, 3], borderWidth: 1, pointRadius: 0 }]
+              : []),
+          ],
+        }}
+        options={{
+          ...baseChartOptions(),
+          parsing: false,
+          plugins: {
+            legend: legend(),
+            tooltip: { callbacks: { label: (item) => (item.datasetIndex < series.length ? `${item.dataset.label}: ${series[item.datasetIndex].outage[item.dataIndex]?.minutesText} a year` : `${item.dataset.label}`) } },
+          },
+          scales: {
+            x: linearAxis('Dish diameter (cm)', { min: minX - 5, max: maxX + 5 }),
+            y: linearAxis('Outage (minutes per year)', { beginAtZero: true }),
+          },
+        }}
+      />
+      <LineChartFigure
+        description={curveDescription}
+        data={{
+          datasets: series.map((s, i) => ({
+            label: s.name,
+            data: s.curve.map((p) => ({ x: p.pPercent, y: p.attenuationDb })),
+            borderColor: STYLES[i % STYLES.length].color,
+            borderDash: STYLES[i % STYLES.length].dash,
+            borderWidth: 2,
+            pointRadius: 0,
+            tension: 0.2,
+          })),
+        }}
+        options={{
+          ...baseChartOptions(),
+          parsing: false,
+          plugins: { legend: legend(), tooltip: exceedanceTooltip() },
+          scales: {
+            x: percentOfYearAxis(),
+            y: linearAxis('Downlink attenuation (dB)', { beginAtZero: true }),
+          },
+        }}
+      />
     </div>
   );
 }

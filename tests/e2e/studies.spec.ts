@@ -1,6 +1,7 @@
 import { test, expect } from '@playwright/test';
 import { seriousViolations } from './support/axe';
 import { signIn } from './support/sign-in';
+import { fillNewCustomerStudy } from './support/new-study-form';
 import { DEMO_USERS } from '../../db/demo/accounts';
 import { DEMO_SERVICES, DEMO_CLIMATES } from '../../db/demo/studies';
 
@@ -77,15 +78,7 @@ test('the form’s new customer is refused when the company has one of that name
   const name = `Quarry Lane Kennels ${stamp()}`;
   await signIn(page, installer.email);
   const fillStudy = async (customer: string) => {
-    await page.goto('/studies/new');
-    await page.getByRole('radio', { name: 'New customer' }).check();
-    await page.getByLabel('Customer name').fill(customer);
-    await page.getByLabel('Site name').fill('Kennel roof');
-    await page.getByLabel('Latitude').fill('51.2');
-    await page.getByLabel('Longitude').fill('-1.9');
-    await page.getByLabel('Altitude (m above sea level)').fill('120');
-    const value = await page.locator('select[name=serviceProfileId] option', { hasText: DEMO_SERVICES[0].name }).first().getAttribute('value');
-    await page.getByLabel('Satellite service').selectOption(value!);
+    await fillNewCustomerStudy(page, { customer, site: 'Kennel roof', latitude: '51.2', longitude: '-1.9', altitudeM: '120', service: DEMO_SERVICES[0].name });
     await page.getByRole('button', { name: 'Compute study' }).click();
   };
   await fillStudy(name);
