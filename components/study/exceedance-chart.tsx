@@ -1,9 +1,7 @@
 'use client';
 
-import { Line } from 'react-chartjs-2';
-import { Chart, type Chart as ChartInstance, type LegendItem } from 'chart.js';
-import './chart-setup';
-import { CHART, thresholdShade } from './chart-setup';
+import { baseChartOptions, boxLegendLabels, CHART, exceedanceTooltip, linearAxis, lineLegendLabels, percentOfYearAxis } from '@/components/charts/chart-setup';
+import { LineChartFigure } from '@/components/charts/chart-figure';
 
 export type ThresholdMark = { label: string; fadeThresholdDb: number; outagePercent: number };
 export type CurvePoint = { pPercent: number; attenuationDb: number; gasDb?: number; cloudDb?: number; rainDb?: number; scintillationDb?: number };
@@ -16,15 +14,11 @@ const COMPONENTS = [
   { key: 'scintillationDb', label: 'Scintillation (P.618-14 §2.4.1)', color: '#a8a29e', dash: [12, 4] },
 ] as const;
 
-/**
- * Legend entries drawn as short lines in each curve's own colour and dash (the default boxes lose
- * the dash, and five dashed grey boxes cannot be told apart).
- */
-function lineLegendItems(chart: ChartInstance): LegendItem[] {
-  return Chart.defaults.plugins.legend.labels.generateLabels(chart).map((item) => {
-    const ds = chart.data.datasets[item.datasetIndex ?? 0] as { borderDash?: number[]; borderColor?: string; borderWidth?: number };
-    return { ...item, pointStyle: 'line', lineDash: ds.borderDash ?? [], strokeStyle: ds.borderColor, lineWidth: Math.max(1.5, ds.borderWidth ?? 1.5) };
-  });
+/** Stone shades for the per-dish fade-threshold lines, darkest for the largest dish. */
+export function thresholdShade(i: number, n: number): string {
+  const t = n <= 1 ? 0.5 : i / (n - 1);
+  const l = Math.round(70 - t * 45);
+  return `hsl(176 35% ${l}%)`;
 }
 
 /**
@@ -47,75 +41,50 @@ export function ExceedanceChart({ curve, marks, description }: { curve: CurvePoi
       }))
     : [];
   return (
-    <figure>
-      {/* The total draws five curves and a legend line each: it gets more height, so the plot is not squeezed. */}
-      <div className={`relative ${total ? 'h-80 sm:h-96' : 'h-64 sm:h-72'}`}>
-        <Line
-          role="img"
-          aria-label={description}
-          data={{
-            datasets: [
-              {
-                label: total ? 'Total attenuation exceeded' : 'Rain attenuation exceeded',
-                data: curve.map((p) => ({ x: p.pPercent, y: p.attenuationDb })),
-                borderColor: CHART.line,
-                borderWidth: total ? 2.5 : 2,
-                pointRadius: 0,
-                tension: 0.2,
-              },
-              ...parts,
-              ...marks.map((m, i) => ({
-                label: `${m.label}: A* ${m.fadeThresholdDb.toFixed(1)} dB`,
-                data: [
-                  { x: 0.001, y: m.fadeThresholdDb },
-                  { x: Math.min(5, Math.max(0.001, m.outagePercent)), y: m.fadeThresholdDb },
-                ],
-                borderColor: thresholdShade(i, marks.length),
-                borderDash: [5, 3],
-                borderWidth: 1.5,
-                pointRadius: [0, 4],
-                pointBackgroundColor: thresholdShade(i, marks.length),
-              })),
+    // The total draws five curves and a legend line each: it gets more height, so the plot is not squeezed.
+    <LineChartFigure
+      description={description}
+      height={total ? 'h-80 sm:h-96' : 'h-64 sm:h-72'}
+      data={{
+        datasets: [
+          {
+            label: total ? 'Total attenuation exceeded' : 'Rain attenuation exceeded',
+            data: curve.map((p) => ({ x: p.pPercent, y: p.attenuationDb })),
+            borderColor: CHART.line,
+            borderWidth: total ? 2.5 : 2,
+            pointRadius: 0,
+            tension: 0.2,
+          },
+          ...parts,
+          ...marks.map((m, i) => ({
+            label: `${m.label}: A* ${m.fadeThresholdDb.toFixed(1)} dB`,
+            data: [
+              { x: 0.001, y: m.fadeThresholdDb },
+              { x: Math.min(5, Math.max(0.001, m.outagePercent)), y: m.fadeThresholdDb },
             ],
-          }}
-          options={{
-            responsive: true,
-            maintainAspectRatio: false,
-            animation: false,
-            parsing: false,
-            plugins: {
-              legend: {
-                position: 'bottom',
-                labels: total
-                  ? { color: CHART.text, font: CHART.font, usePointStyle: true, pointStyleWidth: 28, generateLabels: lineLegendItems }
-                  : { color: CHART.text, font: CHART.font, boxWidth: 14 },
-              },
-              tooltip: {
-                callbacks: {
-                  title: (items) => `${items[0]?.parsed.x} % of the year`,
-                  label: (item) => `${item.dataset.label}: ${(item.parsed.y ?? 0).toFixed(2)} dB`,
-                },
-              },
-            },
-            scales: {
-              x: {
-                type: 'logarithmic',
-                min: 0.001,
-                max: 5,
-                title: { display: true, text: 'Percentage of an average year (log scale)', color: CHART.text, font: CHART.font },
-                grid: { color: CHART.grid },
-                ticks: {
-                  color: CHART.text,
-                  font: CHART.font,
-                  callback: (v) => ([0.001, 0.01, 0.1, 1, 5].includes(Number(v)) ? `${v} %` : ''),
-                },
-              },
-              y: { type: 'linear', beginAtZero: true, title: { display: true, text: total ? 'Attenuation (dB)' : 'Rain attenuation (dB)', color: CHART.text, font: CHART.font }, grid: { color: CHART.grid }, ticks: { color: CHART.text, font: CHART.font } },
-            },
-          }}
-        />
-      </div>
-      <figcaption className="mt-2 text-xs text-stone-600">{description}</figcaption>
-    </figure>
+            borderColor: thresholdShade(i, marks.length),
+            borderDash: [5, 3],
+            borderWidth: 1.5,
+            pointRadius: [0, 4],
+            pointBackgroundColor: thresholdShade(i, marks.length),
+          })),
+        ],
+      }}
+      options={{
+        ...baseChartOptions(),
+        parsing: false,
+        plugins: {
+          legend: {
+            position: 'bottom',
+            labels: total ? lineLegendLabels((ds) => Math.max(1.5, ds.borderWidth ?? 1.5)) : boxLegendLabels(),
+          },
+          tooltip: exceedanceTooltip(),
+        },
+        scales: {
+          x: percentOfYearAxis(),
+          y: linearAxis(total ? 'Attenuation (dB)' : 'Rain attenuation (dB)', { beginAtZero: true }),
+        },
+      }}
+    />
   );
 }

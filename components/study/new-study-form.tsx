@@ -12,6 +12,7 @@ import { allowedMinutesPerYear, diameterLabel, minutesText } from '@/server/stud
 import { formatMoney } from '@/server/money-format';
 import { greatCircleKm, PROFILE_FAR_FROM_SITE_KM } from '@/server/studies/climate-location';
 import { InputChangeList } from './input-change-list';
+import { DuplicateCustomerChoice } from '@/components/sites/duplicate-customer-choice';
 
 export type NewStudyOptions = {
   customers: { id: number; name: string }[];
@@ -137,7 +138,10 @@ export function NewStudyForm({ options, preset, edit }: { options: NewStudyOptio
             className="max-w-md"
           />
         ) : (
-          <Field label="Customer name" name="newCustomerName" autoComplete="off" className="max-w-md" />
+          <>
+            <Field label="Customer name" name="newCustomerName" autoComplete="off" className="max-w-md" />
+            <DuplicateCustomerChoice useExisting="To use the existing customer, choose “Existing customer” above and pick it from the list." />
+          </>
         )}
 
         {showSiteChoice && (

@@ -1,8 +1,7 @@
 'use client';
 
-import { Line } from 'react-chartjs-2';
-import './chart-setup';
-import { CHART } from './chart-setup';
+import { baseChartOptions, boxLegendLabels, CHART, linearAxis } from '@/components/charts/chart-setup';
+import { LineChartFigure } from '@/components/charts/chart-figure';
 
 /** `minutesText` is the figure as the table writes it (server/study-option), for the tooltip. */
 export type OutagePoint = { diameterCm: number; minutes: number; label: string; minutesText: string; bounded: boolean };
@@ -17,65 +16,57 @@ export function OutageChart({ points, targetMinutes, targetText, description }: 
   const minX = Math.min(...xs);
   const maxX = Math.max(...xs);
   return (
-    <figure>
-      <div className="relative h-64 sm:h-72">
-        <Line
-          role="img"
-          aria-label={description}
-          data={{
-            datasets: [
-              {
-                label: 'Outage, minutes per year',
-                data: points.map((p) => ({ x: p.diameterCm, y: p.minutes })),
-                borderColor: CHART.line,
-                backgroundColor: CHART.lineSoft,
-                pointBackgroundColor: points.map((p) => (p.bounded ? '#ffffff' : CHART.line)),
-                pointBorderColor: CHART.line,
-                pointRadius: 4,
-                fill: true,
-                tension: 0.25,
-              },
-              ...(targetMinutes !== null
-                ? [
-                    {
-                      label: 'Allowed by the target',
-                      data: [
-                        { x: minX, y: targetMinutes },
-                        { x: maxX, y: targetMinutes },
-                      ],
-                      borderColor: CHART.guide,
-                      borderDash: [6, 4],
-                      borderWidth: 1.5,
-                      pointRadius: 0,
-                      fill: false,
-                    },
-                  ]
-                : []),
-            ],
-          }}
-          options={{
-            responsive: true,
-            maintainAspectRatio: false,
-            animation: false,
-            parsing: false,
-            interaction: { mode: 'nearest', intersect: false },
-            plugins: {
-              legend: { position: 'bottom', labels: { color: CHART.text, font: CHART.font, boxWidth: 14 } },
-              tooltip: {
-                callbacks: {
-                  title: (items) => (items[0]?.datasetIndex === 0 ? `${points[items[0].dataIndex]?.label} dish` : ''),
-                  label: (item) => `${item.dataset.label}: ${item.datasetIndex === 0 ? points[item.dataIndex]?.minutesText : targetText} a year`,
+    <LineChartFigure
+      description={description}
+      data={{
+        datasets: [
+          {
+            label: 'Outage, minutes per year',
+            data: points.map((p) => ({ x: p.diameterCm, y: p.minutes })),
+            borderColor: CHART.line,
+            backgroundColor: CHART.lineSoft,
+            pointBackgroundColor: points.map((p) => (p.bounded ? '#ffffff' : CHART.line)),
+            pointBorderColor: CHART.line,
+            pointRadius: 4,
+            fill: true,
+            tension: 0.25,
+          },
+          ...(targetMinutes !== null
+            ? [
+                {
+                  label: 'Allowed by the target',
+                  data: [
+                    { x: minX, y: targetMinutes },
+                    { x: maxX, y: targetMinutes },
+                  ],
+                  borderColor: CHART.guide,
+                  borderDash: [6, 4],
+                  borderWidth: 1.5,
+                  pointRadius: 0,
+                  fill: false,
                 },
-              },
+              ]
+            : []),
+        ],
+      }}
+      options={{
+        ...baseChartOptions(),
+        parsing: false,
+        interaction: { mode: 'nearest', intersect: false },
+        plugins: {
+          legend: { position: 'bottom', labels: boxLegendLabels() },
+          tooltip: {
+            callbacks: {
+              title: (items) => (items[0]?.datasetIndex === 0 ? `${points[items[0].dataIndex]?.label} dish` : ''),
+              label: (item) => `${item.dataset.label}: ${item.datasetIndex === 0 ? points[item.dataIndex]?.minutesText : targetText} a year`,
             },
-            scales: {
-              x: { type: 'linear', min: minX - 5, max: maxX + 5, title: { display: true, text: 'Dish diameter (cm)', color: CHART.text, font: CHART.font }, grid: { color: CHART.grid }, ticks: { color: CHART.text, font: CHART.font } },
-              y: { type: 'linear', beginAtZero: true, title: { display: true, text: 'Outage (minutes per year)', color: CHART.text, font: CHART.font }, grid: { color: CHART.grid }, ticks: { color: CHART.text, font: CHART.font } },
-            },
-          }}
-        />
-      </div>
-      <figcaption className="mt-2 text-xs text-stone-600">{description}</figcaption>
-    </figure>
+          },
+        },
+        scales: {
+          x: linearAxis('Dish diameter (cm)', { min: minX - 5, max: maxX + 5 }),
+          y: linearAxis('Outage (minutes per year)', { beginAtZero: true }),
+        },
+      }}
+    />
   );
 }

@@ -88,6 +88,10 @@ export function customerNameKey(name: string): string {
  * The company's customer whose name is the same as `name` once case and spacing are set aside
  * (customerNameKey), or null. Compared in code over this company's rows with a name of the same
  * first letter, so the rule is the one above whatever the column's collation.
+ *
+ * Inside a transaction it is a locking read: it sees customers committed after the transaction's
+ * first plain read (the study form reads its choices before it takes the company lock), where a
+ * plain read would see the transaction's older snapshot and let a second same-named customer in.
  */
 export async function findCustomerByName(companyId: number, name: string, t?: Transaction): Promise<{ id: number; name: string; email: string | null; siteCount: number; createdAt: string } | null> {
   const key = customerNameKey(name);
@@ -97,7 +101,7 @@ export async function findCustomerByName(companyId: number, name: string, t?: Tr
     `SELECT c.id, c.name, c.email, c.created_at,
             (SELECT COUNT(*) FROM sites s WHERE s.company_id = c.company_id AND s.customer_id = c.id) AS site_count
        FROM customers c WHERE c.company_id = :companyId AND LOWER(TRIM(c.name)) LIKE :prefix
-      ORDER BY c.id`,
+      ORDER BY c.id${t ? ' LOCK IN SHARE MODE' : ''}`,
     { replacements: { companyId, prefix: `${key.charAt(0).replace(/[\\%_]/g, '\\$&')}%` }, type: QueryTypes.SELECT, transaction: t },
   );
   const hit = rows.find((r) => customerNameKey(r.name) === key);

@@ -2,38 +2,16 @@
 
 import { revalidatePath } from 'next/cache';
 import { safeAction } from './safe-action';
-import { customerCreateSchema, customerIdSchema, customerUpdateSchema, DUPLICATE_CUSTOMER } from '@/server/validation/customer';
+import { customerCreateSchema, customerIdSchema, customerUpdateSchema } from '@/server/validation/customer';
+import { addCustomer } from '@/server/customers/add-customer';
 import * as customers from '@/db/queries/customers';
 import { lockCompanyRow } from '@/db/queries/company-lock';
 import { models } from '@/db/models';
-import { ConflictError, InvalidInputError, NotFoundError } from '@/server/errors';
+import { ConflictError, NotFoundError } from '@/server/errors';
 
-class DuplicateCustomerError extends InvalidInputError {
-  override readonly code = DUPLICATE_CUSTOMER;
-}
-
-const addedOn = (iso: string) => new Date(iso).toLocaleDateString('en-GB', { day: 'numeric', month: 'short', year: 'numeric', timeZone: 'UTC' });
-
-/**
- * A new customer. The same name twice (case and spacing aside) is usually the same customer
- * entered twice, so it is refused with the existing one named, unless the form says it is a
- * different customer with the same name. The check and the insert hold the company row lock, so two
- * quick submits cannot both pass the check.
- */
+/** A new customer: refused when one of the same name exists, unless the form says it is another one (addCustomer). */
 export const createCustomer = safeAction({ schema: customerCreateSchema, permission: 'customer.write' }, async (input, ctx) => {
-  const row = await models().sequelize.transaction(async (t) => {
-    await lockCompanyRow(ctx.companyId, t);
-    if (!input.sameNameOk) {
-      const same = await customers.findCustomerByName(ctx.companyId, input.name, t);
-      if (same) {
-        const about = [same.email, `${same.siteCount} site${same.siteCount === 1 ? '' : 's'}`, `added ${addedOn(same.createdAt)}`].filter(Boolean).join(', ');
-        throw new DuplicateCustomerError(`${same.name} is already one of your customers (${about}). Use that customer, or tick “A different customer with the same name” to add another.`, {
-          name: [`${same.name} is already a customer (${about}).`],
-        });
-      }
-    }
-    return customers.createCustomer(ctx.companyId, input, t);
-  });
+  const row = await models().sequelize.transaction(async (t) => addCustomer(await lockCompanyRow(ctx.companyId, t), input));
   revalidatePath('/customers');
   return { data: { id: row.id }, message: `Customer ${row.name} added.` };
 });

@@ -133,11 +133,10 @@ export function computeCampaign(o: {
       built = buildScenario({
         site: { id: null, name: row.siteRef, customerId: null, customerName: '', latDeg: row.latDeg, lonDeg: row.lonDeg, altitudeM: site.altitudeM },
         service: o.service,
-        climate: site.rainClimate,
+        rain: site.rain,
         dishes,
         targetAvailabilityPercent: o.targetAvailabilityPercent,
         atmosphere: site.atmosphere,
-        fallbackIsothermKm: site.mapsIsothermKm,
       });
       result = dishTradeoff({ ...built.scenario, dishes: built.scenario.dishes.map((d) => ({ diameterM: d.diameterM, efficiency: d.efficiency })) });
     } catch (e) {

@@ -1,6 +1,9 @@
+import { siteMaps } from '@/server/climate-maps';
+import type { RainClimateInput } from '@/server/engine/rain-climate-source';
 import type { SiteAtmosphere } from '@/server/engine/site-atmosphere';
 import type { TradeoffResult } from '@/server/engine/tradeoff-types';
-import { mapsAtmosphere, mapsClimateSnapshot, type MapsClimateData } from '@/server/studies/maps-climate';
+import { rainInputOf } from '@/server/studies/build-scenario';
+import { mapsRainInput } from '@/server/studies/maps-climate';
 import type { ClimateSnapshot } from '@/server/studies/snapshot';
 import type { CampaignSiteRow } from './campaign-csv';
 
@@ -25,10 +28,11 @@ export const CAMPAIGN_MAPS_RAIN_SOURCE = 'ITU-R maps at the site (P.837-7 Annex 
 const MAPS_RAIN_HEIGHT_SOURCE = 'ITU-R maps at the site (P.839-4)';
 
 /**
- * One campaign row's own climate: the ITU-R maps at its coordinates give the rain
+ * One campaign row's own climate from the ITU-R maps at its coordinates (siteMaps): the rain
  * climate (unless a company profile overrides the rain climate of the whole campaign), the P.839-4
  * isotherm when that profile has none, the altitude when the file gives none (P.1511-1, to 1 m as
- * a site stores it), and the atmosphere at that altitude (gases, clouds, scintillation).
+ * a site stores it), and the atmosphere at that altitude (gases, clouds, scintillation). The rain
+ * climate goes to the engine as the maps' monthly normals: R0.01 is worked out there, once.
  *
  * A site the maps have no data for throws EngineInputError on `site.latDeg`: the caller makes it
  * a problem on the row's line.
@@ -38,27 +42,23 @@ export function campaignSiteClimate(
   override: ClimateSnapshot | null,
 ): {
   altitudeM: number;
-  rainClimate: ClimateSnapshot;
+  /** The engine's rain input, with its rain height. */
+  rain: RainClimateInput;
   atmosphere: SiteAtmosphere;
-  mapsIsothermKm: number;
   describe: (result: Pick<TradeoffResult, 'climateSource' | 'rainHeightKm' | 'rainHeightSource'>) => CampaignSiteClimate;
 } {
-  const maps = mapsClimateSnapshot(row.latDeg, row.lonDeg);
-  const data = maps.data as MapsClimateData;
-  const altitudeSource: CampaignAltitudeSource = row.altitudeM === null ? 'ITU-R P.1511-1' : 'file';
-  const altitudeM = row.altitudeM ?? Math.round(data.topographicHeightKm * 1000);
-  const atmosphere = mapsAtmosphere(row.latDeg, row.lonDeg, altitudeM / 1000);
-  const rainClimate = override ?? maps;
+  const maps = siteMaps({ latDeg: row.latDeg, lonDeg: row.lonDeg, stationHeightKm: row.altitudeM === null ? null : row.altitudeM / 1000 });
+  const altitudeSource: CampaignAltitudeSource = maps.stationHeightFromMap ? 'ITU-R P.1511-1' : 'file';
+  const altitudeM = row.altitudeM ?? maps.mapAltitudeM;
   return {
     altitudeM,
-    rainClimate,
-    atmosphere,
-    mapsIsothermKm: data.isothermHeightKm,
+    rain: override ? rainInputOf(override, maps.climate.isothermHeightKm) : mapsRainInput(maps.climate),
+    atmosphere: maps.atmosphere!,
     describe: (result) => ({
       r001MmH: result.climateSource.r001MmH,
       rainClimateSource: override ? `climate profile "${override.name}" (override)` : CAMPAIGN_MAPS_RAIN_SOURCE,
       rainHeightKm: result.rainHeightKm,
-      // buildScenario takes the profile's own isotherm first, else the map's (rainInputOf).
+      // The profile's own isotherm comes first, else the map's (rainInputOf).
       rainHeightSource: override && override.zeroIsothermKm !== null ? `climate profile "${override.name}"` : MAPS_RAIN_HEIGHT_SOURCE,
       altitudeM,
       altitudeSource,

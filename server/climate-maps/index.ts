@@ -7,7 +7,8 @@
  * import { siteClimate, siteAtmosphere } from '@/server/climate-maps';
  * siteClimate({ latDeg: 51.5, lonDeg: -0.14 }).r001MmH // => 26.48… mm/h
  */
-export { siteClimate, SITE_CLIMATE_SOURCES, RAIN_HEIGHT_ABOVE_ISOTHERM_KM } from './site-climate';
+export { siteClimate, siteClimateMaps, withRainRate, SITE_CLIMATE_SOURCES, RAIN_HEIGHT_ABOVE_ISOTHERM_KM } from './site-climate';
+export { siteMaps } from './site-maps';
 export { siteAtmosphere } from './site-atmosphere';
 export { totalAttenuation } from './total-attenuation';
 export { vapourAt } from './p836-6-water-vapour';
@@ -19,7 +20,8 @@ export { gridLoadCount } from './grid';
 export { preloadMaps } from './preload-maps';
 export { MAX_STATION_HEIGHT_KM, MIN_STATION_HEIGHT_KM } from './site-input';
 
-export type { SiteClimate } from './site-climate';
+export type { SiteClimate, SiteClimateMaps } from './site-climate';
+export type { SiteMaps, SiteMapsOptions } from './site-maps';
 export type { TotalAttenuationOptions } from './total-attenuation';
 export type { AttenuationComponents } from '../engine/p618-total-attenuation';
 export type { AtmosphereLevel, SiteAtmosphere, SiteAtmosphereOptions } from './site-atmosphere';

@@ -83,6 +83,9 @@ function grids(): ClimateGrids {
   return (climateGrids = { mapVersions, isotherm, topography, nWet, annualTemperature, monthlyRainfall, monthlyTemperature });
 }
 
+/** A site's climate as the maps give it, before P.837-7 Annex 1 turns the monthly normals into P0 and R0.01. */
+export type SiteClimateMaps = Omit<SiteClimate, 'p0Percent' | 'r001MmH'>;
+
 /**
  * A site's climate from its coordinates alone, read from the ITU-R digital maps: h0 and hR
  * (P.839-4, bilinear), topographic height (P.1511-1, P.1144 bicubic), median N_wet (P.453-14),
@@ -99,6 +102,14 @@ function grids(): ClimateGrids {
  * c.p0Percent    // => 5.3615… (5.36150960)
  */
 export function siteClimate(site: SiteCoordinates): SiteClimate {
+  return withRainRate(siteClimateMaps(site));
+}
+
+/**
+ * The map readings of {@link siteClimate} without its P.837-7 Annex 1 step, for callers that hand
+ * the monthly normals to the engine, which works out R0.01 itself (a campaign row, the API).
+ */
+export function siteClimateMaps(site: SiteCoordinates): SiteClimateMaps {
   checkCoordinates(site);
   const { latDeg, lonDeg } = site;
   const g = grids();
@@ -120,7 +131,6 @@ export function siteClimate(site: SiteCoordinates): SiteClimate {
     monthlyRainfallMm[m] = mapValueOrRefuse(bilinearInCell(g.monthlyRainfall[m].values, rainCell), g.monthlyRainfall[m].entry, site);
     monthlyTemperatureC[m] = mapValueOrRefuse(bilinearInCell(g.monthlyTemperature[m].values, temperatureCell), g.monthlyTemperature[m].entry, site) - ZERO_CELSIUS_K;
   }
-  const rain = monthlyRainClimate({ monthlyRainfallMm, monthlyTemperatureC });
 
   return {
     latDeg,
@@ -130,11 +140,35 @@ export function siteClimate(site: SiteCoordinates): SiteClimate {
     topographicHeightKm,
     nWetMedian,
     annualMeanTemperatureK,
-    p0Percent: rain.p0Percent,
-    r001MmH: rain.rainRateExceeded(P_R001_PERCENT),
     monthlyRainfallMm,
     monthlyTemperatureC,
     sources: SITE_CLIMATE_SOURCES,
     mapVersions: [...g.mapVersions],
+  };
+}
+
+/**
+ * P0 and R0.01 of the maps' monthly normals (P.837-7 Annex 1, the engine's `monthlyRainClimate`),
+ * added to the map readings: what a study keeps in its snapshot.
+ *
+ * @example withRainRate(siteClimateMaps({ latDeg: 51.5, lonDeg: -0.14 })).r001MmH // => 26.48… mm/h
+ */
+export function withRainRate(c: SiteClimateMaps): SiteClimate {
+  const rain = monthlyRainClimate({ monthlyRainfallMm: c.monthlyRainfallMm, monthlyTemperatureC: c.monthlyTemperatureC });
+  // Same order of fields as before the split: snapshots are stored as JSON.
+  return {
+    latDeg: c.latDeg,
+    lonDeg: c.lonDeg,
+    isothermHeightKm: c.isothermHeightKm,
+    rainHeightKm: c.rainHeightKm,
+    topographicHeightKm: c.topographicHeightKm,
+    nWetMedian: c.nWetMedian,
+    annualMeanTemperatureK: c.annualMeanTemperatureK,
+    p0Percent: rain.p0Percent,
+    r001MmH: rain.rainRateExceeded(P_R001_PERCENT),
+    monthlyRainfallMm: c.monthlyRainfallMm,
+    monthlyTemperatureC: c.monthlyTemperatureC,
+    sources: c.sources,
+    mapVersions: c.mapVersions,
   };
 }

@@ -49,17 +49,24 @@ export function rainInputOf(climate: ClimateSnapshot, fallbackIsothermKm: number
  * Site + service + climate + the chosen dishes → the engine scenario of dishTradeoff.
  * Dishes go in ascending diameter so the table reads small to large and the baseline is the smallest.
  */
-export function buildScenario(o: {
-  site: SiteSnapshot;
-  service: ServiceSnapshot;
-  climate: ClimateSnapshot;
-  dishes: DishSnapshot[];
-  targetAvailabilityPercent: number;
-  /** The site's atmosphere from the ITU-R maps: outages on the P.618 §2.5 total. Null only for old snapshots. */
-  atmosphere?: SiteAtmosphere | null;
-  /** The P.839-4 map isotherm at the site, for override profiles that give none. */
-  fallbackIsothermKm?: number | null;
-}): { scenario: TradeoffScenario; downlinkTiltDeg: number; dishes: DishSnapshot[] } {
+export function buildScenario(
+  o: {
+    site: SiteSnapshot;
+    service: ServiceSnapshot;
+    dishes: DishSnapshot[];
+    targetAvailabilityPercent: number;
+    /** The site's atmosphere from the ITU-R maps: outages on the P.618 §2.5 total. Null only for old snapshots. */
+    atmosphere?: SiteAtmosphere | null;
+  } & (
+    | {
+        climate: ClimateSnapshot;
+        /** The P.839-4 map isotherm at the site, for override profiles that give none. */
+        fallbackIsothermKm?: number | null;
+      }
+    /** The engine's rain input, already made (a campaign row: mapsRainInput, or rainInputOf its override). */
+    | { rain: RainClimateInput }
+  ),
+): { scenario: TradeoffScenario; downlinkTiltDeg: number; dishes: DishSnapshot[] } {
   const site = { latDeg: o.site.latDeg, lonDeg: o.site.lonDeg, altitudeKm: o.site.altitudeM / 1000 };
   const look = geoLookAngles({ ...site, satelliteLongitudeDeg: o.service.satelliteLongitudeDeg });
   const tilt = downlinkTiltDeg(o.service.polarization, o.service.polarizationTiltDeg, look.polarizationSkewDeg);
@@ -78,7 +85,7 @@ export function buildScenario(o: {
       otherLossesDb: s.otherLossesDb,
     },
     receiver: { lnbNoiseTempK: s.lnbNoiseTempK, antennaNoiseTempK: s.antennaNoiseTempK },
-    rain: rainInputOf(o.climate, o.fallbackIsothermKm ?? null),
+    rain: 'rain' in o ? o.rain : rainInputOf(o.climate, o.fallbackIsothermKm ?? null),
     dishes: dishes.map((d) => ({ diameterM: d.diameterM, efficiency: d.efficiency, priceUsd: d.hardwarePrice, labourUsd: d.labourPrice })),
     targetAvailabilityPercent: o.targetAvailabilityPercent,
   };

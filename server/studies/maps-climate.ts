@@ -1,4 +1,5 @@
-import { MAP_DATA_VERSION, mapRecommendations, siteAtmosphere, siteClimate, type SiteClimate } from '@/server/climate-maps';
+import { MAP_DATA_VERSION, mapRecommendations, siteAtmosphere, siteClimate, siteMaps, withRainRate, type SiteClimate, type SiteClimateMaps } from '@/server/climate-maps';
+import type { RainClimateInput } from '@/server/engine/rain-climate-source';
 import type { SiteAtmosphere } from '@/server/engine/site-atmosphere';
 import type { ClimateSnapshot, SiteMapsSnapshot } from './snapshot';
 
@@ -54,6 +55,14 @@ export function mapsClimateSnapshot(latDeg: number, lonDeg: number, read?: SiteC
   };
 }
 
+/**
+ * The maps' rain climate as the engine's rain input, without working out R0.01 here (the engine
+ * does, once): the same input `rainInputOf` makes of a {@link mapsClimateSnapshot}.
+ */
+export function mapsRainInput(c: Pick<SiteClimateMaps, 'monthlyRainfallMm' | 'monthlyTemperatureC' | 'isothermHeightKm'>): RainClimateInput {
+  return { monthlyRainfallMm: c.monthlyRainfallMm, monthlyTemperatureC: c.monthlyTemperatureC, origin: 'itu-r-maps', zeroIsothermHeightKm: c.isothermHeightKm };
+}
+
 /** Gases, clouds and scintillation inputs at the site and its station height (P.836-6, P.840-8, P.1510-1, P.453-14). */
 export function mapsAtmosphere(latDeg: number, lonDeg: number, stationHeightKm: number): SiteAtmosphere {
   return siteAtmosphere({ latDeg, lonDeg, stationHeightKm });
@@ -61,7 +70,7 @@ export function mapsAtmosphere(latDeg: number, lonDeg: number, stationHeightKm: 
 
 /** The P.1511-1 topographic height at the site, m (rounded to 1 m): the default station altitude. */
 export function mapsAltitudeM(latDeg: number, lonDeg: number): number {
-  return Math.round(siteClimate({ latDeg, lonDeg }).topographicHeightKm * 1000);
+  return siteMaps({ latDeg, lonDeg, atmosphere: false }).mapAltitudeM;
 }
 
 /** Everything a study reads from the ITU-R maps at its site, each map read once. */
@@ -75,18 +84,17 @@ export interface SiteMapsReading {
 }
 
 /**
- * The ITU-R maps at a site and station height. Atmosphere first: its maps are the ones blank near
- * the poles, so a site without map data is refused (EngineInputError on `site.latDeg`) before
- * anything else is computed.
+ * The ITU-R maps at a study's site and station height (siteMaps), as the study keeps them: its
+ * snapshot stores the maps' R0.01 and P0, so they are worked out here (withRainRate).
  *
  * @example readSiteMaps(48.612, -21.847, 0.212).siteMaps.mapDataVersion // => MAP_DATA_VERSION
  */
 export function readSiteMaps(latDeg: number, lonDeg: number, stationHeightKm: number): SiteMapsReading {
-  const atmosphere = siteAtmosphere({ latDeg, lonDeg, stationHeightKm });
-  const c = siteClimate({ latDeg, lonDeg });
+  const maps = siteMaps({ latDeg, lonDeg, stationHeightKm });
+  const c = maps.climate;
   return {
-    climate: mapsClimateSnapshot(latDeg, lonDeg, c),
-    atmosphere,
+    climate: mapsClimateSnapshot(latDeg, lonDeg, withRainRate(c)),
+    atmosphere: maps.atmosphere!,
     siteMaps: {
       isothermHeightKm: c.isothermHeightKm,
       topographicHeightKm: c.topographicHeightKm,

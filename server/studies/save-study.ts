@@ -1,6 +1,7 @@
 import 'server-only';
 import type { Transaction } from 'sequelize';
-import { createCustomer, getCustomer } from '@/db/queries/customers';
+import { getCustomer } from '@/db/queries/customers';
+import { addCustomer } from '@/server/customers/add-customer';
 import { createSite, getSite } from '@/db/queries/sites';
 import { getServiceProfile } from '@/db/queries/service-profiles';
 import { getClimateProfile } from '@/db/queries/climate-profiles';
@@ -94,9 +95,11 @@ export async function saveStudyIn(
 
   // The map altitude is read before anything is written, so a site it cannot fill is refused cleanly.
   const altitude = 'id' in input.site ? null : resolveSiteAltitude(input.site.latDeg, input.site.lonDeg, input.site.altitudeM);
-  await assertWithinPlan(await lockCompanyRow(companyId, t), 'studiesPerMonth');
+  const lock = await lockCompanyRow(companyId, t);
+  await assertWithinPlan(lock, 'studiesPerMonth');
   if (!('id' in input.customer)) {
-    customer = await createCustomer(companyId, { name: input.customer.name, email: null, phone: null, notes: null }, t);
+    // The Customers form's rule: a name the company already has is refused unless ticked as another customer.
+    customer = await addCustomer(lock, { name: input.customer.name, email: null, phone: null, notes: null, sameNameOk: input.customer.sameNameOk }, 'newCustomerName');
   }
   if (!('id' in input.site) && altitude) {
     const { name, latDeg, lonDeg } = input.site;

@@ -1,8 +1,8 @@
 import type { TradeoffScenario } from '@/server/engine/tradeoff-types';
 import type { RainClimateInput } from '@/server/engine/rain-climate-source';
 import type { TradeoffScenarioInput } from '@/server/validation/tradeoff-scenario';
-import { rainInputOf } from './build-scenario';
-import { mapsAtmosphere, mapsClimateSnapshot, type MapsClimateData } from './maps-climate';
+import { siteMaps } from '@/server/climate-maps';
+import { mapsRainInput } from './maps-climate';
 
 /** One scenario field the request left out and the ITU-R maps at the site filled in. */
 export interface MapFilledField {
@@ -46,20 +46,21 @@ export function scenarioFromMaps(input: TradeoffScenarioInput): { scenario: Trad
   const filled: MapFilledField[] = [];
   const mapVersions = new Set<string>();
 
-  const climate = needsClimate || wantsAtmosphere ? mapsClimateSnapshot(latDeg, lonDeg) : null;
-  const data = climate ? (climate.data as MapsClimateData) : null;
+  // The climate maps are read with the atmosphere too: their versions are part of what the answer names.
+  const maps = needsClimate || wantsAtmosphere ? siteMaps({ latDeg, lonDeg, stationHeightKm: input.site.altitudeKm, atmosphere: wantsAtmosphere }) : null;
+  const data = maps?.climate ?? null;
   if (data) for (const v of data.mapVersions) mapVersions.add(v);
 
   let altitudeKm = input.site.altitudeKm;
   if (altitudeKm === undefined) {
     // Rounded to 1 m like a site's stored altitude, so the API and a study of the same site agree.
-    altitudeKm = Math.round(data!.topographicHeightKm * 1000) / 1000;
+    altitudeKm = maps!.stationHeightKm;
     filled.push({ field: 'site.altitudeKm', source: 'ITU-R P.1511-1 topographic height', value: altitudeKm });
   }
 
   let rain: RainClimateInput;
   if (givenRain === undefined) {
-    rain = rainInputOf(climate!);
+    rain = mapsRainInput(data!);
     filled.push({ field: 'rain', source: 'ITU-R P.837-7 Annex 1 from the P.837-7 monthly rainfall and P.1510-1 monthly temperature maps', value: null });
     filled.push({ field: 'rain.zeroIsothermHeightKm', source: 'ITU-R P.839-4', value: data!.isothermHeightKm });
   } else if (!hasRainHeight(givenRain)) {
@@ -71,7 +72,7 @@ export function scenarioFromMaps(input: TradeoffScenarioInput): { scenario: Trad
 
   const scenario: TradeoffScenario = { ...(rest as Omit<TradeoffScenario, 'rain' | 'site'>), site: { latDeg, lonDeg, altitudeKm }, rain };
   if (wantsAtmosphere) {
-    scenario.atmosphere = mapsAtmosphere(latDeg, lonDeg, altitudeKm);
+    scenario.atmosphere = maps!.atmosphere!;
     filled.push({ field: 'atmosphere', source: ATMOSPHERE_SOURCE, value: null });
     for (const r of ['ITU-R P.836-6', 'ITU-R P.840-8']) mapVersions.add(r);
   }

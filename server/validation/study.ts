@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { parseCoordinate } from './coordinates';
-import { idField, idListField, numberIn, optionalText } from './fields';
+import { checkboxField, idField, idListField, numberIn, optionalText } from './fields';
 import { SITE_ALTITUDE_M } from './site';
 import { listQuerySchema } from './paging';
 
@@ -47,6 +47,8 @@ export const newStudySchema = z
     customerMode: z.enum(['existing', 'new']).default('existing'),
     customerId: optionalIdField('customer'),
     newCustomerName: optionalText('Customer name', 160),
+    /** "A different customer with the same name as one we have" (the Customers form's tick box). */
+    sameNameOk: checkboxField(),
     siteMode: z.enum(['existing', 'new']).default('existing'),
     siteId: optionalIdField('site'),
     siteName: optionalText('Site name', 160),
@@ -99,7 +101,7 @@ export const newStudySchema = z
   )
   .transform((v) => {
     const newSite = v.siteMode === 'new' || v.customerMode === 'new';
-    const customer: { id: number } | { name: string } = v.customerMode === 'new' ? { name: v.newCustomerName as string } : { id: v.customerId as number };
+    const customer: { id: number } | { name: string; sameNameOk: boolean } = v.customerMode === 'new' ? { name: v.newCustomerName as string, sameNameOk: v.sameNameOk } : { id: v.customerId as number };
     const site: { id: number } | { name: string; latDeg: number; lonDeg: number; altitudeM: number | undefined } = newSite
       ? {
           name: v.siteName as string,

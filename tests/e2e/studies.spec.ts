@@ -1,6 +1,7 @@
 import { test, expect } from '@playwright/test';
 import { seriousViolations } from './support/axe';
 import { signIn } from './support/sign-in';
+import { fillNewCustomerStudy } from './support/new-study-form';
 import { DEMO_USERS } from '../../db/demo/accounts';
 import { DEMO_SERVICES, DEMO_CLIMATES } from '../../db/demo/studies';
 
@@ -70,6 +71,33 @@ test('an installer builds a study from the form and reads the trade-off', async 
   await page.getByRole('searchbox').fill(`Wrenfold Tearoom ${id}`);
   await expect(page.getByRole('table', { name: 'Studies' }).getByRole('link', { name: new RegExp(`Wrenfold Tearoom ${id}`) })).toBeVisible();
   expect(await seriousViolations(page)).toEqual([]);
+});
+
+test('the form’s new customer is refused when the company has one of that name, and the tick box adds a different one', async ({ page }, info) => {
+  test.setTimeout(150_000);
+  const name = `Quarry Lane Kennels ${stamp()}`;
+  await signIn(page, installer.email);
+  const fillStudy = async (customer: string) => {
+    await fillNewCustomerStudy(page, { customer, site: 'Kennel roof', latitude: '51.2', longitude: '-1.9', altitudeM: '120', service: DEMO_SERVICES[0].name });
+    await page.getByRole('button', { name: 'Compute study' }).click();
+  };
+  await fillStudy(name);
+  await page.waitForURL(/\/studies\/\d+$/);
+
+  // The same name again, typed in another case and spacing: refused, the existing customer named.
+  await fillStudy(`  ${name.toUpperCase()} `);
+  const notice = page.getByText('This customer may already exist');
+  await expect(notice).toBeVisible();
+  await expect(page.getByText(`${name} is already one of your customers`).first()).toBeVisible();
+  expect(page.url()).toMatch(/\/studies\/new$/);
+  expect(await seriousViolations(page)).toEqual([]);
+  await page.setViewportSize({ width: 1280, height: 900 });
+  await page.screenshot({ path: info.outputPath('study-form-duplicate-customer-1280.png'), fullPage: true });
+
+  await page.getByRole('checkbox', { name: 'A different customer with the same name' }).check();
+  await page.getByRole('button', { name: 'Compute study' }).click();
+  await page.waitForURL(/\/studies\/\d+$/);
+  await expect(page.getByRole('heading', { level: 1 })).toContainText(name.toUpperCase().trim());
 });
 
 test('sales reads studies but has no form, and the pages pass axe', async ({ page }) => {

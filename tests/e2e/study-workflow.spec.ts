@@ -1,6 +1,7 @@
 import { test, expect, type Page } from '@playwright/test';
 import { seriousViolations } from './support/axe';
 import { signIn } from './support/sign-in';
+import { fillNewCustomerStudy } from './support/new-study-form';
 import { DEMO_USERS } from '../../db/demo/accounts';
 import { DEMO_SERVICES } from '../../db/demo/studies';
 
@@ -21,14 +22,7 @@ const WIDTHS = [
 
 /** A new customer and site typed in, three dishes, the given services; returns on the study page. */
 async function newStudy(page: Page, customer: string, compareWithKa: boolean) {
-  await page.goto('/studies/new');
-  await page.getByRole('radio', { name: 'New customer' }).check();
-  await page.getByLabel('Customer name').fill(customer);
-  await page.getByLabel('Site name').fill('Mill loft gable');
-  await page.getByLabel('Latitude').fill('50.8712');
-  await page.getByLabel('Longitude').fill('-1.2405');
-  const value = await page.locator('select[name=serviceProfileId] option', { hasText: tv.name }).first().getAttribute('value');
-  await page.getByLabel('Satellite service').selectOption(value!);
+  await fillNewCustomerStudy(page, { customer, site: 'Mill loft gable', latitude: '50.8712', longitude: '-1.2405', service: tv.name });
   if (compareWithKa) await page.getByRole('checkbox', { name: new RegExp(ka.name) }).check();
   for (const name of ['Quill 75', 'Quill 100', 'Quill 150', 'Quill 180']) await page.getByRole('checkbox', { name: new RegExp(`^${name}\\b`) }).uncheck();
   await page.getByLabel('Target availability (%)').fill('99.9');

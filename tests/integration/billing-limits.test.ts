@@ -73,8 +73,10 @@ async function studyInputsFor(companyId: number) {
   const dishes = await Promise.all(
     [0.6, 0.8].map((d) => createDish(companyId, { name: `Test dish ${d} m ${rand()}`, diameterM: d, efficiency: 0.65, hardwarePrice: '100.00', labourPrice: '50.00', mountNotes: null, active: true })),
   );
+  // Every study of a company here types in the same invented customer: ticked as a different customer
+  // with the same name each time, so only the plan limit refuses (the name rule: customer-duplicates.test.ts).
   return newStudySchema.parse({
-    customerMode: 'new', newCustomerName: `Test Customer ${rand()}`, siteName: 'Test roof', latDeg: '48.1', lonDeg: '11.5', altitudeM: '500',
+    customerMode: 'new', newCustomerName: `Test Customer ${rand()}`, sameNameOk: 'on', siteName: 'Test roof', latDeg: '48.1', lonDeg: '11.5', altitudeM: '500',
     serviceProfileId: String(service.id), climateProfileId: String(climate.id), dishIds: dishes.map((d) => String(d.id)), targetAvailabilityPercent: '99.7',
   });
 }
