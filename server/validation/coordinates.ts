@@ -34,20 +34,21 @@ function round6(x: number): number {
 
 export function parseCoordinate(text: string, axis: CoordinateAxis): CoordinateParse {
   const word = AXIS_WORD[axis];
-  let s = String(text ?? '').trim().toUpperCase();
+  // Kept as typed (not upper-cased) so a message quotes the person's own text back to them.
+  let s = String(text ?? '').trim();
   if (s === '') return { ok: false, error: `${word} is required.` };
   s = s.replace(/,/g, '.');
 
-  // One hemisphere letter, at the start or the end.
+  // One hemisphere letter, at the start or the end, in either case.
   let hemisphere: string | null = null;
-  const lead = /^([NSEW])(?![A-Z])\s*/.exec(s);
-  const trail = /\s*(?<![A-Z])([NSEW])$/.exec(s);
+  const lead = /^([NSEW])(?![A-Z])\s*/i.exec(s);
+  const trail = /\s*(?<![A-Z])([NSEW])$/i.exec(s);
   if (lead && trail && lead.index !== trail.index) return { ok: false, error: `${word}: give the hemisphere once.` };
   if (lead) {
-    hemisphere = lead[1];
+    hemisphere = lead[1].toUpperCase();
     s = s.slice(lead[0].length);
   } else if (trail) {
-    hemisphere = trail[1];
+    hemisphere = trail[1].toUpperCase();
     s = s.slice(0, trail.index);
   }
   if (hemisphere) {
