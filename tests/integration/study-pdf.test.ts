@@ -73,6 +73,10 @@ describe('GET /studies/[id]/pdf', () => {
     for (let n = 1; n <= pages; n++) expect(text).toContain(`Page ${n} of ${pages}`);
     expect(text.split('predictions are statistics, not guarantees').length - 1).toBe(pages);
     expect(text).toContain('ITU-R P.839-4');
+    // Coordinates with hemisphere letters, and the largest dish (120 cm) gets its wind-load caution.
+    expect(text).toContain('Coordinates 47.12346° N, 2.65432° E');
+    expect(text).toContain('Wind load. A 120 cm reflector catches a lot of wind');
+    expect(text).toContain('Work at height');
     // Pointing: true and magnetic azimuth, and the model named.
     const p = studyPointing(study.inputs.site, t, new Date(study.result.computedAt));
     expect(text).toContain(`Azimuth (true) ${t.azimuthDeg.toFixed(1)}°`);
