@@ -67,6 +67,17 @@ test('cancelling asks first, and the summary of a cancelled campaign speaks only
   await page.setViewportSize({ width: 390, height: 844 });
   await signIn(page, 'installer@quillfeather.example');
   await page.goto('/campaigns');
+  // Starting without a file or a service marks the box and moves the focus there; the target typed stays.
+  await page.getByLabel('Target availability (%)').fill('99.95');
+  await page.getByRole('button', { name: 'Start the campaign' }).click();
+  await expect(page.getByLabel('Sites file (CSV)')).toBeFocused();
+  await expect(page.getByLabel('Sites file (CSV)')).toHaveAttribute('aria-invalid', 'true');
+  await expect(page.getByRole('alert')).toHaveText('Choose a CSV file of customer sites.');
+  await page.getByLabel('Sites file (CSV)').setInputFiles({ name: 'to-cancel.csv', mimeType: 'text/csv', buffer: Buffer.from('site_ref,latitude,longitude,current_dish_cm\n') });
+  await page.getByRole('button', { name: 'Start the campaign' }).click();
+  await expect(page.getByLabel('Service')).toBeFocused();
+  await expect(page.getByLabel('Service')).toHaveAttribute('aria-invalid', 'true');
+  await expect(page.getByLabel('Target availability (%)')).toHaveValue('99.95');
   await page.getByLabel('Sites file (CSV)').setInputFiles({ name: 'to-cancel.csv', mimeType: 'text/csv', buffer: Buffer.from(lines.join('\n') + '\n') });
   await page.getByLabel('Service').selectOption({ index: 1 });
   await page.getByRole('button', { name: 'Start the campaign' }).click();
