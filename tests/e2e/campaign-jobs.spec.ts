@@ -72,7 +72,7 @@ test('cancelling asks first, and the summary of a cancelled campaign speaks only
   await page.getByRole('button', { name: 'Start the campaign' }).click();
   await expect(page.getByLabel('Sites file (CSV)')).toBeFocused();
   await expect(page.getByLabel('Sites file (CSV)')).toHaveAttribute('aria-invalid', 'true');
-  await expect(page.getByRole('alert')).toHaveText('Choose a CSV file of customer sites.');
+  await expect(page.getByLabel('Sites file (CSV)')).toHaveAccessibleDescription('Choose a CSV file of customer sites.');
   await page.getByLabel('Sites file (CSV)').setInputFiles({ name: 'to-cancel.csv', mimeType: 'text/csv', buffer: Buffer.from('site_ref,latitude,longitude,current_dish_cm\n') });
   await page.getByRole('button', { name: 'Start the campaign' }).click();
   await expect(page.getByLabel('Service')).toBeFocused();
