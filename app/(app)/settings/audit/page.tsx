@@ -48,7 +48,8 @@ export default async function AuditPage({ searchParams }: { searchParams: Promis
       </Card>
       {!getEnv().TRUST_PROXY && (
         <p className="mt-3 text-xs text-stone-600">
-          Addresses are those of the connection that reached FadeLedger. Without a trusted proxy in front (TRUST_PROXY), a client can name another address, so treat them as indications.
+          Addresses are those of the connection that reached FadeLedger. This server is not set up behind a trusted proxy (its TRUST_PROXY setting), so a client
+          could give a false address: treat them as indications.
         </p>
       )}
       {events.length === PAGE && last && (
