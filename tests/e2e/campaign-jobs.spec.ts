@@ -90,7 +90,9 @@ test('cancelling asks first, and the summary of a cancelled campaign speaks only
   // A first press only asks; "Keep" leaves it running.
   await page.getByRole('button', { name: 'Cancel the campaign' }).click();
   await expect(page.getByText('Stop computing the remaining sites? This cannot be undone.')).toBeVisible();
+  await expect(page.getByRole('button', { name: 'Stop the campaign' })).toBeFocused();
   await page.getByRole('button', { name: 'Keep' }).click();
+  await expect(page.getByRole('button', { name: 'Cancel the campaign' })).toBeFocused();
   await expect(page.getByTestId('campaign-status')).not.toHaveText('cancelled');
   await page.getByRole('button', { name: 'Cancel the campaign' }).click();
   await page.getByRole('button', { name: 'Stop the campaign' }).click();
