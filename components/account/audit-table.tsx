@@ -32,7 +32,7 @@ export function AuditTable({ events, caption, empty }: { events: AuditEntry[]; c
                 {AUDIT_LABELS[e.action] ?? e.action}
                 {e.targetLabel && <span className="font-medium"> {e.targetLabel}</span>}
                 {extra && <span className="text-stone-600"> ({extra})</span>}
-                <span className="mt-1 block font-mono text-xs text-stone-600 lg:hidden">{e.ip ?? 'address not recorded'}</span>
+                <span className="mt-1 block text-xs text-stone-600 lg:hidden">{e.ip ? <>from <span className="font-mono">{e.ip}</span></> : 'address not recorded'}</span>
               </Td>
               <Td className="hidden lg:table-cell text-xs text-stone-600">
                 {describeDevice(e.userAgent)}

@@ -33,8 +33,10 @@ export function NavLinks({ items, orientation = 'horizontal' }: { items: Item[];
 export function SettingsTabs({ items }: { items: Item[] }) {
   const pathname = usePathname() ?? '';
   return (
+    // The tabs wrap rather than scroll: on a phone a scrolled row hid "Audit log" and "Your security",
+    // the current tab among them, with nothing to say more were there.
     <nav aria-label="Settings" className="mb-6 border-b border-stone-200">
-      <ul className="-mb-px flex gap-4 overflow-x-auto">
+      <ul className="-mb-px flex flex-wrap gap-x-4 gap-y-1">
         {items.map((item) => {
           const active = isActive(pathname, item.href);
           return (

@@ -5,7 +5,7 @@ import { useActionState } from 'react';
 import useSWR from 'swr';
 import { useRouter } from 'next/navigation';
 import { fetchJson } from '@/components/study/fetch-json';
-import { SubmitButton } from '@/components/ui/submit-button';
+import { ConfirmSubmit } from '@/components/team/confirm-submit';
 import { FormStatus } from '@/components/ui/form-status';
 import { cancelUpgradeCampaign } from '@/server/actions/campaigns';
 import type { CampaignProgress } from '@/server/campaigns/campaign-progress';
@@ -48,11 +48,10 @@ export function CampaignProgressPanel({ initial }: { initial: CampaignProgress }
             {running ? 'Download finished rows (CSV)' : 'Download all results (CSV)'}
           </a>
           {running && (
+            // Asks once more: a cancel cannot be undone, and on a phone the button sits under a thumb.
             <form action={cancel}>
               <input type="hidden" name="campaignId" value={p.id} />
-              <SubmitButton variant="secondary" pendingLabel="Cancelling…">
-                Cancel the campaign
-              </SubmitButton>
+              <ConfirmSubmit label="Cancel the campaign" question="Stop computing the remaining sites? This cannot be undone." confirmLabel="Stop the campaign" />
             </form>
           )}
         </div>
@@ -88,7 +87,7 @@ export function CampaignProgressPanel({ initial }: { initial: CampaignProgress }
             ['to upgrade', p.counts.upgrade],
             ['already meet the target', p.counts.alreadyMeetsTarget],
             ['no dish meets the target', p.counts.noneMeetsTarget],
-            ['problems', p.problemsCount],
+            ['lines with problems', p.problemsCount],
           ] as const
         ).map(([label, value]) => (
           <div key={label} className="rounded border border-stone-200 px-3 py-2">
@@ -99,7 +98,7 @@ export function CampaignProgressPanel({ initial }: { initial: CampaignProgress }
       </dl>
       {p.problems.length > 0 && (
         <div>
-          <h3 className="text-sm font-semibold text-stone-900">Rows not computed{running ? ' so far' : ''}</h3>
+          <h3 className="text-sm font-semibold text-stone-900">Lines left out: problems in the file{running ? ' so far' : ''}</h3>
           <ul className="mt-1 max-h-48 list-disc space-y-0.5 overflow-auto rounded border border-red-200 bg-red-50 py-2 pl-8 pr-3 text-sm text-red-800">
             {p.problems.map((x, i) => (
               <li key={i}>{x.message}</li>

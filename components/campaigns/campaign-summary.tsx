@@ -37,7 +37,7 @@ export function CampaignSummaryView({ summary, upgradeCount, partial }: { summar
       <div>
         <h3 className="text-sm font-semibold text-stone-900">Recommended dish mix</h3>
         {summary.dishMix.length === 0 ? (
-          <p className="mt-1 text-sm text-stone-600">No site needs an upgrade.</p>
+          <p className="mt-1 text-sm text-stone-600">{partial ? 'No site computed before the cancel needs an upgrade.' : 'No site needs an upgrade.'}</p>
         ) : (
           <Table caption="Recommended dishes, sites and prices">
             <THead>
@@ -68,7 +68,9 @@ export function CampaignSummaryView({ summary, upgradeCount, partial }: { summar
       <div>
         <h3 className="text-sm font-semibold text-stone-900">Sites where no catalogue dish meets the target</h3>
         {summary.noneMeets.length === 0 ? (
-          <p className="mt-1 text-sm text-stone-600">None: every site meets the target today or with a catalogue dish.</p>
+          <p className="mt-1 text-sm text-stone-600">
+            {partial ? 'None among the sites computed before the cancel.' : 'None: every site meets the target today or with a catalogue dish.'}
+          </p>
         ) : (
           <>
             <p className="mt-1 text-xs text-stone-600">

@@ -8,7 +8,13 @@ import { EACH_SITE_CLIMATE, EACH_SITE_CLIMATE_LABEL } from '@/server/validation/
 
 export type CampaignChoices = { services: { value: string; label: string }[]; climates: { value: string; label: string }[] };
 
-type Sending = { state: 'idle' } | { state: 'sending'; percent: number | null } | { state: 'error'; message: string };
+type Field = 'file' | 'service' | 'target';
+type Sending = { state: 'idle' } | { state: 'sending'; percent: number | null } | { state: 'error'; message: string; field?: Field };
+
+const FIELD_IDS: Record<Field, string> = { file: 'campaign-file', service: 'campaign-service', target: 'campaign-target' };
+// The upload route's field names → the box to mark and focus.
+const FIELD_OF: Record<string, Field> = { filename: 'file', serviceProfileId: 'service', targetAvailabilityPercent: 'target' };
+const ERROR_ID = 'campaign-upload-error';
 
 /**
  * Upload a CSV of existing customer sites (up to a million) and start the campaign. The file is
@@ -21,16 +27,24 @@ export function CampaignUploadForm({ choices, siteLimit }: { choices: CampaignCh
   const [sending, setSending] = useState<Sending>({ state: 'idle' });
   const formRef = useRef<HTMLFormElement>(null);
 
+  // A problem marks its box and moves the focus there (keyboard and screen-reader users land on it); nothing typed is lost.
+  function fail(message: string, field?: Field) {
+    setSending({ state: 'error', message, field });
+    if (field) document.getElementById(FIELD_IDS[field])?.focus();
+  }
+  const invalid = (field: Field) => (sending.state === 'error' && sending.field === field ? { 'aria-invalid': true as const } : {});
+  const describedBy = (field: Field, hint?: string) => [hint, sending.state === 'error' && sending.field === field ? ERROR_ID : null].filter(Boolean).join(' ') || undefined;
+
   function submit(e: FormEvent<HTMLFormElement>) {
     e.preventDefault();
     const form = new FormData(e.currentTarget);
     const file = form.get('file');
     if (!(file instanceof File) || file.size === 0) {
-      setSending({ state: 'error', message: 'Choose a CSV file of customer sites.' });
+      fail('Choose a CSV file of customer sites.', 'file');
       return;
     }
     if (!form.get('serviceProfileId')) {
-      setSending({ state: 'error', message: 'Choose the service every site is computed with.' });
+      fail('Choose the service every site is computed with.', 'service');
       return;
     }
     const params = new URLSearchParams({
@@ -43,7 +57,7 @@ export function CampaignUploadForm({ choices, siteLimit }: { choices: CampaignCh
     xhr.open('POST', `/api/campaign-uploads?${params}`);
     xhr.setRequestHeader('Content-Type', 'text/csv');
     xhr.upload.onprogress = (p) => setSending({ state: 'sending', percent: p.lengthComputable ? Math.floor((100 * p.loaded) / p.total) : null });
-    xhr.onerror = () => setSending({ state: 'error', message: 'The file could not be sent (the connection dropped). Nothing was queued; try again.' });
+    xhr.onerror = () => fail('The file could not be sent (the connection dropped). Nothing was queued; try again.');
     xhr.onload = () => {
       let body: { id?: number; error?: { message?: string; fieldErrors?: Record<string, string[]> } } = {};
       try {
@@ -56,7 +70,8 @@ export function CampaignUploadForm({ choices, siteLimit }: { choices: CampaignCh
         return;
       }
       const fields = body.error?.fieldErrors ? Object.values(body.error.fieldErrors).flat().join(' ') : '';
-      setSending({ state: 'error', message: `${body.error?.message ?? `The server answered ${xhr.status}.`}${fields ? ` ${fields}` : ''}` });
+      const first = Object.keys(body.error?.fieldErrors ?? {}).map((k) => FIELD_OF[k]).find(Boolean);
+      fail(`${body.error?.message ?? `The server answered ${xhr.status}.`}${fields ? ` ${fields}` : ''}`, first);
     };
     setSending({ state: 'sending', percent: 0 });
     xhr.send(file);
@@ -78,14 +93,14 @@ export function CampaignUploadForm({ choices, siteLimit }: { choices: CampaignCh
         <label className="block text-sm font-medium text-stone-800" htmlFor="campaign-file">
           Sites file (CSV)
         </label>
-        <input id="campaign-file" name="file" type="file" accept=".csv,text/csv,text/plain" className={`${INPUT_CLASSES} mt-1 file:mr-3 file:rounded file:border-0 file:bg-ledger-50 file:px-2 file:py-1 file:text-ledger-800`} />
+        <input id="campaign-file" name="file" type="file" accept=".csv,text/csv,text/plain" {...invalid('file')} aria-describedby={describedBy('file')} className={`${INPUT_CLASSES} mt-1 file:mr-3 file:rounded file:border-0 file:bg-ledger-50 file:px-2 file:py-1 file:text-ledger-800`} />
       </div>
       <div className="grid gap-4 sm:grid-cols-3">
         <div>
           <label className="block text-sm font-medium text-stone-800" htmlFor="campaign-service">
             Service
           </label>
-          <select id="campaign-service" name="serviceProfileId" className={`${INPUT_CLASSES} mt-1`} defaultValue="">
+          <select id="campaign-service" name="serviceProfileId" className={`${INPUT_CLASSES} mt-1`} defaultValue="" {...invalid('service')} aria-describedby={describedBy('service')}>
             <option value="">Choose a service</option>
             {choices.services.map((s) => (
               <option key={s.value} value={s.value}>
@@ -113,7 +128,7 @@ export function CampaignUploadForm({ choices, siteLimit }: { choices: CampaignCh
           <label className="block text-sm font-medium text-stone-800" htmlFor="campaign-target">
             Target availability (%)
           </label>
-          <input id="campaign-target" name="targetAvailabilityPercent" inputMode="decimal" defaultValue="99.9" className={`${INPUT_CLASSES} mt-1`} aria-describedby="campaign-target-hint" />
+          <input id="campaign-target" name="targetAvailabilityPercent" inputMode="decimal" defaultValue="99.9" className={`${INPUT_CLASSES} mt-1`} {...invalid('target')} aria-describedby={describedBy('target', 'campaign-target-hint')} />
           <p id="campaign-target-hint" className="mt-1 text-xs text-stone-600">
             Of an average year, 90–99.999 %.
           </p>
@@ -128,7 +143,7 @@ export function CampaignUploadForm({ choices, siteLimit }: { choices: CampaignCh
         </p>
       </div>
       {sending.state === 'error' && (
-        <p role="alert" className="rounded border border-red-200 bg-red-50 px-3 py-2 text-sm text-red-800">
+        <p id={ERROR_ID} role="alert" className="rounded border border-red-200 bg-red-50 px-3 py-2 text-sm text-red-800">
           {sending.message}
         </p>
       )}

@@ -8,7 +8,7 @@ import { removeWebhookEndpoint, sendTestWebhook } from '@/server/actions/webhook
 /** "Send test event": queued and attempted at once; the outcome shows in the status line and the log. */
 export function SendTestForm({ endpointId, description }: { endpointId: number; description: string }) {
   return (
-    <ActionForm action={sendTestWebhook} className="flex flex-col gap-1" statusClassName="max-w-md text-xs">
+    <ActionForm action={sendTestWebhook} className="flex flex-col items-start gap-1" statusClassName="max-w-md text-xs">
       <input type="hidden" name="id" value={endpointId} />
       <SubmitButton size="sm" variant="quiet" pendingLabel="Sending…" aria-label={`Send a test event to ${description}`}>
         Send test event

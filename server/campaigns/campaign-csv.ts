@@ -57,6 +57,16 @@ function numberCell(row: { line: number; values: Record<string, string> }, colum
 }
 
 /**
+ * "Line 19, latitude: "ninety" is not a number." — parseCoordinate's message already names the axis
+ * ("Latitude: …", "Latitude must be…"), so the column is not said twice; its other messages
+ * ("Minutes must be below 60.") get the column in front.
+ */
+function coordinateProblem(line: number, column: 'latitude' | 'longitude', error: string): string {
+  const axis = column === 'latitude' ? 'Latitude' : 'Longitude';
+  return error.startsWith(axis) ? `Line ${line}, ${column}${error.slice(axis.length)}` : `Line ${line}, ${column}: ${error}`;
+}
+
+/**
  * A campaign CSV (`site_ref, latitude, longitude, current_dish_cm`, optional `altitude_m`) → the
  * sites to compute and a problem per bad cell, by line. A bad row is left out; the others go on.
  */
@@ -75,7 +85,7 @@ export function parseCampaignCsv(text: string): CampaignCsv {
     else if (siteRef.length > 120) own.push({ line: row.line, column: 'site_ref', message: `Line ${row.line}, site_ref: at most 120 characters.` });
     const coords = (['latitude', 'longitude'] as const).map((column) => {
       const r = parseCoordinate(row.values[column], column === 'latitude' ? 'lat' : 'lon');
-      if (!r.ok) own.push({ line: row.line, column, message: `Line ${row.line}, ${column}: ${r.error}` });
+      if (!r.ok) own.push({ line: row.line, column, message: coordinateProblem(row.line, column, r.error) });
       return r.ok ? r.value : null;
     });
     // A blank altitude is "not known": the site's P.1511-1 height is used (campaign-compute.ts).

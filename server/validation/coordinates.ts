@@ -45,25 +45,26 @@ function withinLimit(value: number, axis: CoordinateAxis): CoordinateParse {
 
 export function parseCoordinate(text: string, axis: CoordinateAxis): CoordinateParse {
   const word = AXIS_WORD[axis];
-  let s = String(text ?? '').trim();
+  // Kept as typed (not upper-cased) so a message quotes the person's own text back to them.
+  const s0 = String(text ?? '').trim();
   // The general reading below gives the same answer for these; skipping its string work matters
   // when a million-site file is read (server/campaigns/stage-campaign-file.ts).
-  const plain = PLAIN_DECIMAL.exec(s);
+  const plain = PLAIN_DECIMAL.exec(s0);
   if (plain) return withinLimit((plain[1] === '-' ? -1 : 1) * Number(plain[2]), axis);
-  s = s.toUpperCase();
+  let s = s0;
   if (s === '') return { ok: false, error: `${word} is required.` };
   s = s.replace(/,/g, '.');
 
-  // One hemisphere letter, at the start or the end.
+  // One hemisphere letter, at the start or the end, in either case.
   let hemisphere: string | null = null;
-  const lead = /^([NSEW])(?![A-Z])\s*/.exec(s);
-  const trail = /\s*(?<![A-Z])([NSEW])$/.exec(s);
+  const lead = /^([NSEW])(?![A-Z])\s*/i.exec(s);
+  const trail = /\s*(?<![A-Z])([NSEW])$/i.exec(s);
   if (lead && trail && lead.index !== trail.index) return { ok: false, error: `${word}: give the hemisphere once.` };
   if (lead) {
-    hemisphere = lead[1];
+    hemisphere = lead[1].toUpperCase();
     s = s.slice(lead[0].length);
   } else if (trail) {
-    hemisphere = trail[1];
+    hemisphere = trail[1].toUpperCase();
     s = s.slice(0, trail.index);
   }
   if (hemisphere) {

@@ -58,3 +58,54 @@ test('upload a campaign, watch it reach 100 % and download the result file', asy
   await expect(page.getByRole('link', { name: 'spring-upgrades.csv' }).first()).toBeVisible();
   await page.screenshot({ path: info.outputPath('campaigns-390.png'), fullPage: true });
 });
+
+test('cancelling asks first, and the summary of a cancelled campaign speaks only of the sites computed', async ({ page }) => {
+  test.setTimeout(240_000);
+  // Big enough that the worker is still busy when the cancel is confirmed, with one bad line.
+  const lines = ['site_ref,latitude,longitude,current_dish_cm', 'E2E-C-BAD,ninety,2.1,60'];
+  for (let i = 0; i < 60_000; i++) lines.push(`E2E-C-${i},${(44 + (i % 60) / 10).toFixed(2)},${(-2 + (i % 45) / 10).toFixed(2)},${[45, 60, 80][i % 3]}`);
+  await page.setViewportSize({ width: 390, height: 844 });
+  await signIn(page, 'installer@quillfeather.example');
+  await page.goto('/campaigns');
+  // Starting without a file or a service marks the box and moves the focus there; the target typed stays.
+  await page.getByLabel('Target availability (%)').fill('99.95');
+  await page.getByRole('button', { name: 'Start the campaign' }).click();
+  await expect(page.getByLabel('Sites file (CSV)')).toBeFocused();
+  await expect(page.getByLabel('Sites file (CSV)')).toHaveAttribute('aria-invalid', 'true');
+  await expect(page.getByLabel('Sites file (CSV)')).toHaveAccessibleDescription('Choose a CSV file of customer sites.');
+  await page.getByLabel('Sites file (CSV)').setInputFiles({ name: 'to-cancel.csv', mimeType: 'text/csv', buffer: Buffer.from('site_ref,latitude,longitude,current_dish_cm\n') });
+  await page.getByRole('button', { name: 'Start the campaign' }).click();
+  await expect(page.getByLabel('Service')).toBeFocused();
+  await expect(page.getByLabel('Service')).toHaveAttribute('aria-invalid', 'true');
+  await expect(page.getByLabel('Target availability (%)')).toHaveValue('99.95');
+  await page.getByLabel('Sites file (CSV)').setInputFiles({ name: 'to-cancel.csv', mimeType: 'text/csv', buffer: Buffer.from(lines.join('\n') + '\n') });
+  await page.getByLabel('Service').selectOption({ index: 1 });
+  await page.getByRole('button', { name: 'Start the campaign' }).click();
+  await page.waitForURL(/\/campaigns\/\d+$/, { timeout: 60_000 });
+
+  // The bad line is named once by its axis, quoted as typed.
+  await expect(page.getByRole('heading', { name: /^Lines left out: problems in the file/ })).toBeVisible();
+  await expect(page.getByText('Line 2, latitude: "ninety" is not a number.')).toBeVisible();
+
+  // A first press only asks; "Keep" leaves it running.
+  await page.getByRole('button', { name: 'Cancel the campaign' }).click();
+  await expect(page.getByText('Stop computing the remaining sites? This cannot be undone.')).toBeVisible();
+  await expect(page.getByRole('button', { name: 'Stop the campaign' })).toBeFocused();
+  await page.getByRole('button', { name: 'Keep' }).click();
+  await expect(page.getByRole('button', { name: 'Cancel the campaign' })).toBeFocused();
+  await expect(page.getByTestId('campaign-status')).not.toHaveText('cancelled');
+  await page.getByRole('button', { name: 'Cancel the campaign' }).click();
+  await page.getByRole('button', { name: 'Stop the campaign' }).click();
+  await expect(page.getByTestId('campaign-status')).toHaveText('cancelled', { timeout: 30_000 });
+  await page.reload();
+
+  // Either nothing was computed yet (and nothing is summarised), or the summary says "before the cancel".
+  const nothing = page.getByText('Nothing to summarise');
+  const partial = page.getByRole('heading', { name: 'Summary of the sites computed before the campaign was cancelled' });
+  await expect(nothing.or(partial)).toBeVisible();
+  await expect(page.getByText('None: every site meets the target today or with a catalogue dish.')).toHaveCount(0);
+  await expect(page.getByText('No site needs an upgrade.')).toHaveCount(0);
+  await expect(page.getByText(/work at height/i).first()).toBeVisible();
+  expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
+  expect(await seriousViolations(page)).toEqual([]);
+});

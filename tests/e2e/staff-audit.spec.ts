@@ -99,6 +99,31 @@ test('admin filters the audit log and downloads it as CSV', async ({ page }) => 
   await expect(page.getByText('No events match this filter.')).toBeVisible();
 });
 
+test('on a phone the audit log keeps every settings tab in view and says which filter field is wrong', async ({ page }) => {
+  await page.setViewportSize({ width: 390, height: 844 });
+  await signIn(page, adminEmail, PASSWORD);
+  await page.goto('/settings/audit');
+  // The settings tabs wrap: every one, the current "Audit log" among them, lies inside the 390 px page.
+  const tabs = page.getByRole('navigation', { name: 'Settings' }).getByRole('link');
+  expect(await tabs.count()).toBeGreaterThanOrEqual(6);
+  for (const tab of await tabs.all()) {
+    const box = (await tab.boundingBox())!;
+    expect(box.x, await tab.innerText()).toBeGreaterThanOrEqual(0);
+    expect(box.x + box.width, await tab.innerText()).toBeLessThanOrEqual(390);
+  }
+  await expect(page.getByRole('link', { name: 'Audit log' })).toHaveAttribute('aria-current', 'page');
+  // On a phone the address reads "from …", not a bare number under the event.
+  await expect(page.getByRole('table', { name: 'Audit log' }).getByText(/^from /).first()).toBeVisible();
+  expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
+
+  // A date the filter cannot read names its field, and the empty table does not claim "no events yet".
+  await page.goto('/settings/audit?from=2026-13-45');
+  await expect(page.getByText('From: That is not a date.')).toBeVisible();
+  await expect(page.getByText('Correct the filter above to see events.')).toBeVisible();
+  await expect(page.getByText('No events yet.')).toHaveCount(0);
+  expect(await seriousViolations(page)).toEqual([]);
+});
+
 test('a salesperson opening /quotes/new or /campaigns sees the role message with status 403', async ({ page }) => {
   await signIn(page, 'sales@quillfeather.example');
   for (const path of ['/quotes/new', '/campaigns']) {

@@ -53,6 +53,15 @@ test('an admin registers an endpoint, sends a test event and sees it in the deli
     expect(JSON.parse(got[0].body)).toMatchObject({ type: 'webhook.test' });
     expect(await seriousViolations(page)).toEqual([]);
 
+    // On a phone the log fits the screen (no sideways scroll hiding the last error): attempts and
+    // the HTTP status ride under the status.
+    await page.setViewportSize({ width: 390, height: 844 });
+    await page.reload();
+    const phoneRow = log.getByRole('row').filter({ hasText: 'webhook.test' });
+    await expect(phoneRow.getByText('1 attempt, HTTP 204', { exact: false })).toBeVisible();
+    expect(await log.evaluate((t) => t.parentElement!.scrollWidth - t.parentElement!.clientWidth)).toBeLessThanOrEqual(1);
+    await page.setViewportSize({ width: 1280, height: 900 });
+
     // Leave the demo as it was.
     await page.getByRole('button', { name: `Remove the webhook endpoint ${description}` }).click();
     await page.getByRole('button', { name: 'Remove', exact: true }).click();

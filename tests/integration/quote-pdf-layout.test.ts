@@ -58,6 +58,8 @@ describe('the quote PDF as printed', () => {
       const file = path.join(dir, `quote-${k}.pdf`);
       writeFileSync(file, pdf);
       const pages = pagesOf(file, company.name);
+      // The running footer prints on every page (react-pdf dropped it while it was anchored with `bottom`).
+      pages.forEach((_, i) => expect(run('pdftotext', ['-f', String(i + 1), '-l', String(i + 1), file, '-']), `footer of page ${i + 1}, ${k} lines`).toContain(`Page ${i + 1} of ${pages.length}`));
       pages.forEach((lines, i) => endings.push(`${k} notes lines, page ${i + 1}/${pages.length}: ${lines.at(-1) ?? ''}`));
       const all = pages.flat();
       for (const h of ['The options we compared', 'Price of the quoted option', 'Your contact', 'Please read']) expect(all.filter((l) => l === h), `${h} with ${k} lines`).toHaveLength(1);

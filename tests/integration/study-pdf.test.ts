@@ -41,6 +41,13 @@ function pdfToText(pdf: Buffer): string {
   return execFileSync('pdftotext', [file, '-'], { encoding: 'utf8' });
 }
 
+function pdfInfo(pdf: Buffer): string {
+  const dir = mkdtempSync(path.join(tmpdir(), 'study-pdf-'));
+  const file = path.join(dir, 'record.pdf');
+  writeFileSync(file, pdf);
+  return execFileSync('pdfinfo', [file], { encoding: 'utf8' });
+}
+
 describe('GET /studies/[id]/pdf', () => {
   it('gives the company its study as a PDF with inputs, sources, pointing, every dish and the cautions', async () => {
     asUser(await signInAs(installer));
@@ -59,7 +66,17 @@ describe('GET /studies/[id]/pdf', () => {
     expect(text).toContain(home.name);
     for (const heading of ['Inputs', 'Pointing', 'Climate and its sources', 'Dish by dish', 'Outage against dish size', 'Cautions']) expect(text).toContain(heading);
     expect(text).toContain('Predictions are statistics, not guarantees');
+    // The running footer on every page: page numbers and the statistics caution (react-pdf dropped it
+    // while it was anchored with `bottom`; server/pdf-footer.ts).
+    const pages = Number(/Pages:\s+(\d+)/.exec(pdfInfo(pdf))![1]);
+    expect(pages).toBeGreaterThan(0);
+    for (let n = 1; n <= pages; n++) expect(text).toContain(`Page ${n} of ${pages}`);
+    expect(text.split('predictions are statistics, not guarantees').length - 1).toBe(pages);
     expect(text).toContain('ITU-R P.839-4');
+    // Coordinates with hemisphere letters, and the largest dish (120 cm) gets its wind-load caution.
+    expect(text).toContain('Coordinates 47.12346° N, 2.65432° E');
+    expect(text).toContain('Wind load. A 120 cm reflector catches a lot of wind');
+    expect(text).toContain('Work at height');
     // Pointing: true and magnetic azimuth, and the model named.
     const p = studyPointing(study.inputs.site, t, new Date(study.result.computedAt));
     expect(text).toContain(`Azimuth (true) ${t.azimuthDeg.toFixed(1)}°`);

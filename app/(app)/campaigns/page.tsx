@@ -3,6 +3,7 @@ import Link from 'next/link';
 import { PageHeader } from '@/components/ui/page-header';
 import { Card, CardBody } from '@/components/ui/card';
 import { Notice } from '@/components/ui/notice';
+import { DishChangeCaution } from '@/components/campaigns/dish-change-caution';
 import { CampaignUploadForm } from '@/components/campaigns/campaign-upload-form';
 import { CampaignList } from '@/components/campaigns/campaign-list';
 import { orbitalSlot } from '@/components/study/format';
@@ -58,10 +59,7 @@ export default async function CampaignsPage() {
           P.618 §2.5 (gases P.676, clouds P.840, rain, scintillation); a climate profile chosen above replaces the rain climate of every site. Local measured rain data
           beats a global model. A campaign keeps the service, climate and dish catalogue it was started with, so later catalogue changes never alter its results.
         </Notice>
-        <Notice tone="caution" title="Before you change a dish">
-          Larger reflectors need a stronger mount and catch more wind. Mounting, grounding and lightning protection follow the manufacturer&apos;s instructions and
-          local building and electrical codes; the work belongs to qualified, licensed installers.
-        </Notice>
+        <DishChangeCaution />
       </div>
     </>
   );

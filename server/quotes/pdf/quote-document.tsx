@@ -9,6 +9,7 @@ import { diameterLabel } from '@/server/study-option';
 import { winAnsi as w } from './win-ansi';
 import { contactSentence, type SellerContact } from '../seller-contact';
 import { INK, MUTED, RULE, TEAL, TINT } from '@/server/pdf-palette';
+import { footerTopPt } from '@/server/pdf-footer';
 
 export interface QuotePdfData {
   companyName: string;
@@ -43,7 +44,8 @@ const s = StyleSheet.create({
   totalRow: { flexDirection: 'row', justifyContent: 'space-between', paddingVertical: 4, marginTop: 2 },
   bold: { fontFamily: 'Helvetica-Bold' },
   caution: { marginBottom: 5 },
-  footer: { position: 'absolute', bottom: 24, left: 44, right: 44, flexDirection: 'row', justifyContent: 'space-between', fontSize: 7.5, color: MUTED, borderTopWidth: 1, borderTopColor: RULE, paddingTop: 5 },
+  // 7.5 pt text at the page's 1.35 line height, 5 pt above it: about 16 pt tall, 24 pt above the page's edge.
+  footer: { position: 'absolute', top: footerTopPt(24, 16), left: 44, right: 44, flexDirection: 'row', justifyContent: 'space-between', fontSize: 7.5, color: MUTED, borderTopWidth: 1, borderTopColor: RULE, paddingTop: 5 },
 });
 
 const dateWords = (iso: string) => new Date(iso.length === 10 ? `${iso}T00:00:00Z` : iso).toLocaleDateString('en-GB', { day: 'numeric', month: 'long', year: 'numeric', timeZone: 'UTC' });

@@ -6,6 +6,7 @@ import { winAnsi as w } from '@/server/quotes/pdf/win-ansi';
 import { PdfOutageChart } from './outage-chart';
 import { climateLines, inputLines, pointingLines, recordCautions, type Line } from './study-record-words';
 import { INK, MUTED, RULE, TEAL, TINT } from '@/server/pdf-palette';
+import { footerTopPt } from '@/server/pdf-footer';
 
 /** One service of the study: its inputs and its computed result (a study holds one today). */
 export interface StudyRecordSection {
@@ -48,7 +49,8 @@ const s = StyleSheet.create({
   num: { textAlign: 'right', paddingRight: 4 },
   box: { backgroundColor: TINT, padding: 7, borderRadius: 3, marginTop: 4 },
   caution: { marginBottom: 4 },
-  footer: { position: 'absolute', bottom: 22, left: 40, right: 40, flexDirection: 'row', justifyContent: 'space-between', fontSize: 7, color: MUTED, borderTopWidth: 0.5, borderTopColor: RULE, paddingTop: 4 },
+  // 7 pt text at the page's 1.3 line height, 4 pt above it: about 14 pt tall, 22 pt above the page's edge.
+  footer: { position: 'absolute', top: footerTopPt(22, 14), left: 40, right: 40, flexDirection: 'row', justifyContent: 'space-between', fontSize: 7, color: MUTED, borderTopWidth: 0.5, borderTopColor: RULE, paddingTop: 4 },
 });
 
 // Column widths of the per-dish table, in order.

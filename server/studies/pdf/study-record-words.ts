@@ -14,13 +14,17 @@ const slot = (lon: number) => (lon === 0 ? '0.0°' : `${fixed(Math.abs(lon), 1)}
 const POLARIZATION: Record<string, string> = { circular: 'circular', 'linear-vertical': 'linear vertical', 'linear-horizontal': 'linear horizontal' };
 const dateWords = (d: Date) => d.toLocaleDateString('en-GB', { day: 'numeric', month: 'long', year: 'numeric', timeZone: 'UTC' });
 
+/** From this diameter on, the record names the wind load of the largest dish compared (as the study page does from 1.2 m). */
+const WIND_LOAD_CAUTION_CM = 120;
+
 export type Line = [term: string, value: string, note?: string];
 
 export function inputLines(inputs: StudyInputsSnapshot): Line[] {
   const s = inputs.service;
   const lines: Line[] = [
     ['Customer · site', `${inputs.site.customerName} · ${inputs.site.name}`],
-    ['Coordinates', `${fixed(inputs.site.latDeg, 5)}, ${fixed(inputs.site.lonDeg, 5)}`, `altitude ${fixed(inputs.site.altitudeM, 0)} m${inputs.site.altitudeSource === 'itu-r-p1511-1' ? ' (ITU-R P.1511-1 map)' : inputs.site.altitudeSource === 'user' ? ' (entered)' : ''}`],
+    // With the hemisphere letters: on paper "49.10300, -22.41600" leaves which is which, and the sign, to memory.
+    ['Coordinates', `${fixed(Math.abs(inputs.site.latDeg), 5)}° ${inputs.site.latDeg < 0 ? 'S' : 'N'}, ${fixed(Math.abs(inputs.site.lonDeg), 5)}° ${inputs.site.lonDeg < 0 ? 'W' : 'E'}`, `altitude ${fixed(inputs.site.altitudeM, 0)} m${inputs.site.altitudeSource === 'itu-r-p1511-1' ? ' (ITU-R P.1511-1 map)' : inputs.site.altitudeSource === 'user' ? ' (entered)' : ''}`],
     ['Service', `${s.name} on ${s.satelliteName} at ${slot(s.satelliteLongitudeDeg)}`],
     ['Downlink', `${fixed(s.downlinkFrequencyGHz, 3)} GHz, ${POLARIZATION[s.polarization] ?? s.polarization}, EIRP ${fixed(s.eirpDbw, 1)} dBW, ${fixed(s.symbolRateMsps, 1)} Msps`],
     ['Required Es/N0', `${s.modcod ? `${s.modcod}: ` : ''}${fixed(s.requiredEsN0Db, 2)} dB + ${fixed(s.implementationMarginDb, 1)} dB implementation margin`],
@@ -83,7 +87,13 @@ export function recordCautions(inputs: StudyInputsSnapshot, result: StudyResultS
   const look = lowElevationCaution(t.elevationDeg);
   if (look) list.push({ title: look.title, body: look.text });
   for (const w of t.warnings) if (w.optionIndex === undefined) list.push({ title: w.code === 'low-elevation' ? 'Low elevation' : 'Note on these figures', body: w.message });
-  const [statistics, ...rest] = quoteCautions({ transmits: inputs.service.uplink !== null });
-  list.push(statistics, ...rest);
+  const [statistics, installation, ...rest] = quoteCautions({ transmits: inputs.service.uplink !== null });
+  list.push(statistics, installation);
+  // The same threshold and words as the study page's caution (components/study/cautions.tsx).
+  const largestCm = Math.round(Math.max(...inputs.dishes.map((d) => d.diameterM)) * 100);
+  if (largestCm >= WIND_LOAD_CAUTION_CM) {
+    list.push({ title: 'Wind load', body: `A ${largestCm} cm reflector catches a lot of wind: check the mount, the wall or roof it is fixed to, and the wind-load figures for the site before choosing it.` });
+  }
+  list.push(...rest);
   return list;
 }

@@ -31,6 +31,12 @@ describe('parseCampaignCsv', () => {
     expect(r.problems).toEqual([{ line: 2, siteRef: 'A', column: 'latitude', message: 'Line 2, latitude: Minutes must be below 60.' }]);
   });
 
+  it('says the axis once and quotes a bad coordinate as it was typed', () => {
+    const r = parseCampaignCsv(`${HEADER}\nA,ninety,2.5,100,60\nB,95.0,2.5,100,60\nC,47.25,2.5 w,100,60\n`);
+    expect(r.rows.map((x) => [x.siteRef, x.lonDeg])).toEqual([['C', -2.5]]);
+    expect(r.problems.map((p) => p.message)).toEqual(['Line 2, latitude: "ninety" is not a number.', 'Line 3, latitude must be between -90 and 90 degrees.']);
+  });
+
   it('refuses a missing column, naming it, with no rows', () => {
     const r = parseCampaignCsv('site_ref,latitude,longitude,altitude_m\nA,47.25,2.5,100\n');
     expect(r.rows).toEqual([]);

@@ -5,6 +5,7 @@ import { notFound } from 'next/navigation';
 import { PageHeader } from '@/components/ui/page-header';
 import { Card, CardBody } from '@/components/ui/card';
 import { Notice } from '@/components/ui/notice';
+import { DishChangeCaution } from '@/components/campaigns/dish-change-caution';
 import { CampaignProgressPanel } from '@/components/campaigns/campaign-progress';
 import { CampaignSummaryView } from '@/components/campaigns/campaign-summary';
 import { fixed } from '@/components/study/format';
@@ -49,7 +50,14 @@ export default async function CampaignPage({ params }: { params: Promise<{ id: s
             <CampaignProgressPanel initial={progress} />
           </CardBody>
         </Card>
-        {summary && (
+        {summary && campaign.sitesDone === 0 && (
+          <Notice tone="info" title="Nothing to summarise">
+            {campaign.status === 'cancelled'
+              ? 'The campaign was cancelled before any site was computed. Upload the file again to start a new campaign.'
+              : 'No line of the file could be computed: see the lines left out above, correct the file and upload it again.'}
+          </Notice>
+        )}
+        {summary && campaign.sitesDone > 0 && (
           <Card>
             <CardBody>
               <CampaignSummaryView summary={summary} upgradeCount={campaign.upgradeCount} partial={campaign.status === 'cancelled'} />
@@ -61,10 +69,7 @@ export default async function CampaignPage({ params }: { params: Promise<{ id: s
           any one year. A current dish size that is not in the catalogue is computed at 65 % aperture efficiency (a usual figure for consumer dishes; common practice, no
           source) and says so in the result file.
         </Notice>
-        <Notice tone="caution" title="Before you change a dish">
-          Larger reflectors need a stronger mount and catch more wind. Mounting, grounding and lightning protection follow the manufacturer&apos;s instructions and local
-          building and electrical codes; the work belongs to qualified, licensed installers.
-        </Notice>
+        <DishChangeCaution />
       </div>
     </>
   );

@@ -13,6 +13,8 @@ export const metadata: Metadata = { title: 'Audit log' };
 
 const PAGE = 100;
 
+const FIELD_WORDS: Record<string, string> = { kind: 'Kind', actor: 'Who', from: 'From', to: 'To', before: 'Older events' };
+
 type Search = Record<string, string | string[] | undefined>;
 const one = (v: string | string[] | undefined) => (typeof v === 'string' ? v : undefined);
 
@@ -27,7 +29,8 @@ export default async function AuditPage({ searchParams }: { searchParams: Promis
   const last = events.at(-1);
   const query = new URLSearchParams(Object.entries({ kind: filter.kind, actor: filter.actor, from: filter.from, to: filter.to }).filter((e): e is [string, string] => Boolean(e[1])));
   const filtered = query.size > 0;
-  const problems = parsed.success ? [] : parsed.error.issues.map((i) => i.message);
+  // Each problem names its field: "That is not a date." alone does not say which of the two dates.
+  const problems = parsed.success ? [] : parsed.error.issues.map((i) => `${FIELD_WORDS[String(i.path[0])] ?? 'Filter'}: ${i.message}`);
   return (
     <>
       <PageHeader
@@ -41,11 +44,12 @@ export default async function AuditPage({ searchParams }: { searchParams: Promis
         </Notice>
       )}
       <Card>
-        <AuditTable events={events} caption={filtered ? 'Audit log, filtered' : 'Audit log'} empty={filtered ? 'No events match this filter.' : 'No events yet.'} />
+        <AuditTable events={events} caption={filtered ? 'Audit log, filtered' : 'Audit log'} empty={problems.length > 0 ? 'Correct the filter above to see events.' : filtered ? 'No events match this filter.' : 'No events yet.'} />
       </Card>
       {!getEnv().TRUST_PROXY && (
         <p className="mt-3 text-xs text-stone-600">
-          Addresses are those of the connection that reached FadeLedger. Without a trusted proxy in front (TRUST_PROXY), a client can name another address, so treat them as indications.
+          Addresses are those of the connection that reached FadeLedger. This server is not set up behind a trusted proxy (its TRUST_PROXY setting), so a client
+          could give a false address: treat them as indications.
         </p>
       )}
       {events.length === PAGE && last && (

@@ -110,6 +110,7 @@ export default async function WebhooksPage() {
 
 const STATUS_WORDS: Record<WebhookDeliveryRow['status'], string> = { pending: 'Waiting to retry', delivered: 'Delivered', failed: 'Gave up' };
 
+/** Below md the log is three columns (event, status with its attempts and times, last error): the error is what an admin came for. */
 function DeliveryLog({ description, rows }: { description: string; rows: WebhookDeliveryRow[] }) {
   return (
     <Table caption={`Recent deliveries to ${description}`}>
@@ -117,28 +118,39 @@ function DeliveryLog({ description, rows }: { description: string; rows: Webhook
         <tr>
           <Th>Event</Th>
           <Th>Status</Th>
-          <Th numeric>Attempts</Th>
-          <Th numeric>Answer</Th>
-          <Th>Last attempt</Th>
-          <Th>Next attempt</Th>
+          <Th numeric className="hidden md:table-cell">Attempts</Th>
+          <Th numeric className="hidden md:table-cell">HTTP status</Th>
+          <Th className="hidden md:table-cell">Last attempt</Th>
+          <Th className="hidden md:table-cell">Next attempt</Th>
           <Th>Last error</Th>
         </tr>
       </THead>
       <TBody>
         {rows.length === 0 && <EmptyRow colSpan={7}>Nothing sent yet.</EmptyRow>}
-        {rows.map((d) => (
-          <tr key={d.id}>
-            <Td>
-              <code className="text-xs">{d.eventType}</code>
-            </Td>
-            <Td>{d.status === 'pending' && d.attemptCount === 0 ? 'Queued' : STATUS_WORDS[d.status]}</Td>
-            <Td numeric>{d.attemptCount}</Td>
-            <Td numeric>{d.lastResponseCode ?? '—'}</Td>
-            <Td>{d.lastAttemptAt ? formatWhen(d.lastAttemptAt) : '—'}</Td>
-            <Td>{d.status === 'pending' && d.nextAttemptAt ? formatWhen(d.nextAttemptAt) : '—'}</Td>
-            <Td className="max-w-xs break-words text-xs">{d.lastError ?? ''}</Td>
-          </tr>
-        ))}
+        {rows.map((d) => {
+          const next = d.status === 'pending' && d.nextAttemptAt ? formatWhen(d.nextAttemptAt) : null;
+          return (
+            <tr key={d.id}>
+              <Td>
+                <code className="whitespace-nowrap text-xs">{d.eventType}</code>
+              </Td>
+              <Td>
+                {d.status === 'pending' && d.attemptCount === 0 ? 'Queued' : STATUS_WORDS[d.status]}
+                <span className="block text-xs text-stone-600 md:hidden">
+                  {d.attemptCount} {d.attemptCount === 1 ? 'attempt' : 'attempts'}
+                  {d.lastResponseCode ? `, HTTP ${d.lastResponseCode}` : ''}
+                  {d.lastAttemptAt ? `, last ${formatWhen(d.lastAttemptAt)}` : ''}
+                  {next ? `, next ${next}` : ''}
+                </span>
+              </Td>
+              <Td numeric className="hidden md:table-cell">{d.attemptCount}</Td>
+              <Td numeric className="hidden md:table-cell">{d.lastResponseCode ?? '—'}</Td>
+              <Td className="hidden md:table-cell">{d.lastAttemptAt ? formatWhen(d.lastAttemptAt) : '—'}</Td>
+              <Td className="hidden md:table-cell">{next ?? '—'}</Td>
+              <Td className="max-w-xs break-words text-xs">{d.lastError ?? ''}</Td>
+            </tr>
+          );
+        })}
       </TBody>
     </Table>
   );
