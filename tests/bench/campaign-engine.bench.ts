@@ -23,7 +23,7 @@ const rows = Array.from({ length: 10_000 }, (_, i) => {
 // The scenarios are built first (maps read), so the timing is the trade-off alone.
 const priced = rows.map((r) => {
   const site = campaignSiteClimate(r, null);
-  return buildScenario({ site: { id: null, name: r.siteRef, customerId: null, customerName: '', latDeg: r.latDeg, lonDeg: r.lonDeg, altitudeM: site.altitudeM }, service, climate: site.rainClimate, dishes, targetAvailabilityPercent: 99.9, atmosphere: site.atmosphere, fallbackIsothermKm: site.mapsIsothermKm }).scenario;
+  return buildScenario({ site: { id: null, name: r.siteRef, customerId: null, customerName: '', latDeg: r.latDeg, lonDeg: r.lonDeg, altitudeM: site.altitudeM }, service, rain: site.rain, dishes, targetAvailabilityPercent: 99.9, atmosphere: site.atmosphere }).scenario;
 });
 const scenarios = priced.map((s) => ({ ...s, dishes: s.dishes.map((d) => ({ diameterM: d.diameterM, efficiency: d.efficiency })) }));
 const best = (f: () => void) => {
