@@ -12,7 +12,7 @@ import { parseMoneyUsd } from './money';
 import { NEVER_WORKS, outageFigures, type OutageFigures } from './outage-figures';
 import { combinedFadeExceedance } from './p618-combined-fade';
 import { MAX_FREQUENCY_GHZ_P618_14, MIN_FREQUENCY_GHZ_P618_14, prepareRainPathUnchecked, type RainExceedance } from './p618-rain-path';
-import { MIN_ELEVATION_DEG_ATMOSPHERE, prepareAtmosphericPath, totalAttenuationCurve, type AtmosphericPath, type TotalAttenuationCurve } from './p618-total-attenuation';
+import { MIN_ELEVATION_DEG_ATMOSPHERE, prepareAtmosphericPath, rainOnHeldScan, totalAttenuationCurve, type AtmosphericPath, type TotalAttenuationCurve } from './p618-total-attenuation';
 import { checkSiteAtmosphere, type SiteAtmosphere } from './site-atmosphere';
 import { scintillationSigmaUnchecked } from './p618-scintillation';
 import { resolveRainHeight } from './p839-rain-height';
@@ -198,6 +198,9 @@ export function dishTradeoff(scenario: TradeoffScenario): TradeoffResult {
     }
   }
 
+  // Rain on the below-1 % scan grid, once per path for all the dishes (rainOnHeldScan).
+  let downScan: readonly number[] | undefined;
+  let upScan: readonly number[] | undefined;
   const tSys0 = temps.lnb + temps.ant;
   const tSysDb = 10 * Math.log10(tSys0);
   const thresholdDown = reqDown + implDown;
@@ -215,7 +218,7 @@ export function dishTradeoff(scenario: TradeoffScenario): TradeoffResult {
     const lb = linkBudgetUnchecked(eirpDown, fslDown + otherDown + lp, gt, rsDown, thresholdDown);
     const aStar = fadeThresholdUnchecked(lb.marginDb, temps.lnb, temps.ant, temps.medium);
     const downCurve: FadeCurve = atmDown && atmosphere
-      ? totalAttenuationCurve({ rainPath: downPath, atmosphericPath: atmDown, scintillationSigmaDb: scintillationSigmaUnchecked(fDown, look.elevationDeg, diam[i], eff[i], atmosphere.nWetMedian) })
+      ? totalAttenuationCurve({ rainPath: downPath, atmosphericPath: atmDown, scintillationSigmaDb: scintillationSigmaUnchecked(fDown, look.elevationDeg, diam[i], eff[i], atmosphere.nWetMedian), rainOnHeldScan: (downScan ??= rainOnHeldScan(downPath)) })
       : downPath;
     const figures = aStar === null ? NEVER_WORKS : exceedanceFigures(downCurve, aStar);
     const componentsAtOutage = aStar !== null && downCurve.componentsAt ? downCurve.componentsAt(figures.outagePercent) : null;
@@ -229,7 +232,7 @@ export function dishTradeoff(scenario: TradeoffScenario): TradeoffResult {
     let twoWay: TwoWayOutage | null = null;
     if (up && upPath) {
       const upCurve: FadeCurve = atmUp && atmosphere
-        ? totalAttenuationCurve({ rainPath: upPath, atmosphericPath: atmUp, scintillationSigmaDb: scintillationSigmaUnchecked(up.frequencyGHz, look.elevationDeg, diam[i], eff[i], atmosphere.nWetMedian) })
+        ? totalAttenuationCurve({ rainPath: upPath, atmosphericPath: atmUp, scintillationSigmaDb: scintillationSigmaUnchecked(up.frequencyGHz, look.elevationDeg, diam[i], eff[i], atmosphere.nWetMedian), rainOnHeldScan: (upScan ??= rainOnHeldScan(upPath)) })
         : upPath;
       uplink = uplinkOption(up, i, diam[i], eff[i], fslUp, pointingErr, upCurve);
       if (!uplink.closes) {
@@ -249,7 +252,7 @@ export function dishTradeoff(scenario: TradeoffScenario): TradeoffResult {
     if (nWet !== null) {
       const sigma = scintillationSigmaUnchecked(fDown, look.elevationDeg, diam[i], eff[i], nWet);
       const f2 = aStar === null ? NEVER_WORKS : (() => {
-        const ex = combinedFadeExceedance({ rainPath: downPath, scintillationSigmaDb: sigma, attenuationDb: aStar });
+        const ex = combinedFadeExceedance({ rainPath: downPath, scintillationSigmaDb: sigma, attenuationDb: aStar, rainOnHeldScan: (downScan ??= rainOnHeldScan(downPath)) });
         return outageFigures(ex.pPercent, ex.bound);
       })();
       scint = { ...f2, sigmaDb: sigma };

@@ -15,6 +15,6 @@ import type { RainExceedance, RainPath } from './p618-rain-path';
  * combinedFadeExceedance({ rainPath, scintillationSigmaDb: 0.0873106, attenuationDb: 6.798072267 })
  * // => { pPercent: 0.010103…, bound: 'none' } (rain alone: 0.01 %)
  */
-export function combinedFadeExceedance(o: { rainPath: RainPath; scintillationSigmaDb: number; attenuationDb: number }): RainExceedance {
-  return totalAttenuationCurve({ rainPath: o.rainPath, atmosphericPath: null, scintillationSigmaDb: o.scintillationSigmaDb }).exceedanceOf(o.attenuationDb);
+export function combinedFadeExceedance(o: { rainPath: RainPath; scintillationSigmaDb: number; attenuationDb: number; rainOnHeldScan?: readonly number[] }): RainExceedance {
+  return totalAttenuationCurve({ rainPath: o.rainPath, atmosphericPath: null, scintillationSigmaDb: o.scintillationSigmaDb, rainOnHeldScan: o.rainOnHeldScan }).exceedanceOf(o.attenuationDb);
 }

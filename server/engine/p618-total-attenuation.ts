@@ -96,24 +96,21 @@ export function prepareAtmosphericPath(o: { frequencyGHz: number; elevationDeg: 
 }
 
 /**
- * The part of the below-1 % scan that no dish changes: A_R on the grid of sampleCurve, per rain
- * path, and a(p) of §2.4.1 step 8 on the same grid. Every dish of a site scans the same grid with
- * the same rain path, so a campaign site's 8 dishes work out rain once instead of 8 times; the
- * values are the very numbers the per-dish scan computed (bit-identical figures).
+ * The part of the below-1 % scan that no dish changes: A_R on the grid of sampleCurve for one rain
+ * path. Every dish of a site scans the same grid on the same rain path, so dishTradeoff works this
+ * out once per path and hands it to each dish's curve (a campaign site's 8 dishes work out rain
+ * once instead of 8 times); the values are the very numbers the per-dish scan computed, so the
+ * figures are bit-identical. Handed over explicitly rather than cached in a module-level table:
+ * such a table kept every site's paths alive through young-generation collections.
  */
-const heldGridRain = new WeakMap<RainPath, readonly number[]>();
-let heldGridScintillation: readonly number[] | null = null;
-function rainOnHeldGrid(rainPath: RainPath): readonly number[] {
-  let rain = heldGridRain.get(rainPath);
-  if (!rain) {
-    const xs = scanGrid(LN_P_MIN, LN_P_HELD);
-    const values: number[] = [];
-    for (let i = 0; i < xs.length; i++) values.push(Math.exp(rainPath.lnAttenuationAt(xs[i])));
-    rain = values;
-    heldGridRain.set(rainPath, rain);
-  }
-  return rain;
+export function rainOnHeldScan(rainPath: RainPath): readonly number[] {
+  const xs = scanGrid(LN_P_MIN, LN_P_HELD);
+  const values: number[] = [];
+  for (let i = 0; i < xs.length; i++) values.push(Math.exp(rainPath.lnAttenuationAt(xs[i])));
+  return values;
 }
+/** a(p) of §2.4.1 step 8 on the same grid: the same for every path. */
+let heldGridScintillation: readonly number[] | null = null;
 function scintillationOnHeldGrid(): readonly number[] {
   if (!heldGridScintillation) heldGridScintillation = scanGrid(LN_P_MIN, LN_P_HELD).map(scintillationTimeFactorLn);
   return heldGridScintillation;
@@ -142,7 +139,13 @@ export interface TotalAttenuationCurve {
  * @example
  * totalAttenuationCurve({ rainPath, atmosphericPath, scintillationSigmaDb: 0.0873 }).componentsAt(0.01).totalDb // => 7.5073 at site V8, 14.25 GHz
  */
-export function totalAttenuationCurve(o: { rainPath: RainPath; atmosphericPath: AtmosphericPath | null; scintillationSigmaDb: number }): TotalAttenuationCurve {
+export function totalAttenuationCurve(o: {
+  rainPath: RainPath;
+  atmosphericPath: AtmosphericPath | null;
+  scintillationSigmaDb: number;
+  /** rainOnHeldScan(rainPath), when the caller shares it between dishes; else worked out here. */
+  rainOnHeldScan?: readonly number[];
+}): TotalAttenuationCurve {
   const atm = o.atmosphericPath;
   const gasHeld = atm ? atm.gasAt(HELD_BELOW_P_PERCENT_P618_14) : 0;
   const cloudHeld = atm ? atm.cloudAt(HELD_BELOW_P_PERCENT_P618_14) : 0;
@@ -174,7 +177,7 @@ export function totalAttenuationCurve(o: { rainPath: RainPath; atmosphericPath: 
   // On the grid p < 1 % except at its top point, where p = 1 and gasAt(1)/cloudAt(1) are the held values.
   const sampledBelowHeld = (): SampledCurve => {
     if (curve) return curve;
-    const rain = rainOnHeldGrid(o.rainPath);
+    const rain = o.rainOnHeldScan ?? rainOnHeldScan(o.rainPath);
     const scint = scintillationOnHeldGrid();
     const lnTotalOnGrid = (i: number): number => {
       const rc = rain[i] + cloudHeld;

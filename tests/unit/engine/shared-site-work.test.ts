@@ -1,6 +1,7 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { checkSiteAtmosphere, EngineInputError, prepareAtmosphericPath, totalAttenuationCurve } from '@/server/engine';
+import { rainOnHeldScan } from '@/server/engine/p618-total-attenuation';
 import { sampleCurve, scanGrid } from '@/server/engine/math/largest-crossing';
 import { prepareRainPathUnchecked } from '@/server/engine/p618-rain-path';
 import type { SiteAtmosphere } from '@/server/engine/site-atmosphere';
@@ -45,15 +46,16 @@ describe('work shared by the dishes of one site', () => {
     );
   });
 
-  it("a dish's P.618 §2.5 total curve on a rain path other dishes used first equals the same dish on a path of its own", () => {
+  it("a dish's P.618 §2.5 total curve with the rain scan shared between dishes equals the same dish working out its own", () => {
     const dishSigmas = fc.array(fc.double({ min: 0, max: 0.6, noNaN: true }), { minLength: 2, maxLength: 8 });
     fc.assert(
       fc.property(pathArb, dishSigmas, fc.double({ min: 0.05, max: 40, noNaN: true }), (path, sigmas, thresholdDb) => {
         const atm = atmosphere();
         const shared = prepareRainPathUnchecked(path);
+        const scan = rainOnHeldScan(shared);
         const atmPath = prepareAtmosphericPath({ frequencyGHz: path.frequencyGHz, elevationDeg: path.elevationDeg, stationHeightKm: path.stationHeightKm, atmosphere: atm });
         for (const sigma of sigmas) {
-          const onShared = totalAttenuationCurve({ rainPath: shared, atmosphericPath: atmPath, scintillationSigmaDb: sigma });
+          const onShared = totalAttenuationCurve({ rainPath: shared, atmosphericPath: atmPath, scintillationSigmaDb: sigma, rainOnHeldScan: scan });
           const own = totalAttenuationCurve({
             rainPath: prepareRainPathUnchecked(path),
             atmosphericPath: prepareAtmosphericPath({ frequencyGHz: path.frequencyGHz, elevationDeg: path.elevationDeg, stationHeightKm: path.stationHeightKm, atmosphere: atm }),
