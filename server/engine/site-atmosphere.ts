@@ -38,33 +38,33 @@ export interface AtmosphereAtP {
  * Bad input: EngineInputError naming `${prefix}…` (e.g. `atmosphere.levels[3].pPercent`).
  */
 export function checkSiteAtmosphere(raw: unknown, prefix = 'atmosphere.'): SiteAtmosphere {
-  return validAtmosphereCopy(raw) ?? checkSiteAtmosphereNaming(raw, prefix);
+  return isValidAtmosphere(raw) ? raw : checkSiteAtmosphereNaming(raw, prefix);
 }
 
 const within = (v: unknown, min: number, max: number): v is number => typeof v === 'number' && Number.isFinite(v) && v >= min && v <= max;
 
 /**
- * The same checks as checkSiteAtmosphereNaming without building a field name per value: a
- * campaign validates one atmosphere per site, and the names (up to 160 strings) were most of that
- * cost. Null on any failure, so the naming check runs and throws the exact error.
+ * The same checks as checkSiteAtmosphereNaming without building a field name per value or copying
+ * the levels: a campaign checks one atmosphere per site, and the names and copies (up to 160
+ * strings, 40 objects) cost more than the site's physics. The engine only reads the atmosphere
+ * during the call, so a valid one is used as given; on any failure the naming check runs and
+ * throws the exact error.
  */
-function validAtmosphereCopy(raw: unknown): SiteAtmosphere | null {
-  if (raw === null || typeof raw !== 'object') return null;
+function isValidAtmosphere(raw: unknown): raw is SiteAtmosphere {
+  if (raw === null || typeof raw !== 'object') return false;
   const a = raw as Record<string, unknown>;
-  const raws = a.levels;
-  if (!within(a.surfaceTemperatureK, 180, 330) || !within(a.nWetMedian, 0, 200) || !Array.isArray(raws) || raws.length < 2 || raws.length > 40) return null;
-  const levels: AtmosphereLevel[] = new Array(raws.length);
+  const levels = a.levels;
+  if (!within(a.surfaceTemperatureK, 180, 330) || !within(a.nWetMedian, 0, 200) || !Array.isArray(levels) || levels.length < 2 || levels.length > 40) return false;
   let last = 0;
-  for (let i = 0; i < raws.length; i++) {
-    const r = raws[i] as Record<string, unknown> | null;
-    if (r === null || typeof r !== 'object') return null;
-    const { pPercent, surfaceVapourDensityGM3, waterVapourContentKgM2, reducedCloudLiquidKgM2 } = r;
-    if (!within(pPercent, 0.001, 100) || pPercent <= last || !within(surfaceVapourDensityGM3, 0, 60) || !within(waterVapourContentKgM2, 0, 100) || !within(reducedCloudLiquidKgM2, 0, 20)) return null;
-    last = pPercent;
-    levels[i] = { pPercent, surfaceVapourDensityGM3, waterVapourContentKgM2, reducedCloudLiquidKgM2 };
+  for (let i = 0; i < levels.length; i++) {
+    const r = levels[i] as Record<string, unknown> | null;
+    if (r === null || typeof r !== 'object') return false;
+    const p = r.pPercent;
+    if (!within(p, 0.001, 100) || p <= last || (i === 0 && p > 1)) return false;
+    if (!within(r.surfaceVapourDensityGM3, 0, 60) || !within(r.waterVapourContentKgM2, 0, 100) || !within(r.reducedCloudLiquidKgM2, 0, 20)) return false;
+    last = p;
   }
-  if (levels[0].pPercent > 1) return null;
-  return { surfaceTemperatureK: a.surfaceTemperatureK, nWetMedian: a.nWetMedian, levels };
+  return true;
 }
 
 /** The checks with every field named, for the error message; also the reference for the fast copy above. */
