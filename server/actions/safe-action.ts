@@ -12,7 +12,8 @@ import { isDatabaseUnavailable } from '@/db/unavailable';
  * and the non-secret values typed so the form can be refilled — never a password or token.
  */
 export type ActionState<T = unknown> =
-  | { ok: true; data?: T; message?: string }
+  /** `tone: 'warning'`: done, but the message says something went less well (shown in amber, not the success colour). */
+  | { ok: true; data?: T; message?: string; tone?: 'warning' }
   | { ok: false; error: string; code?: string; fieldErrors?: Record<string, string[]>; values?: Record<string, string> };
 
 export type ActionInput = FormData | Record<string, unknown>;
@@ -20,7 +21,7 @@ export type ActionInput = FormData | Record<string, unknown>;
 /** A wrapped action: `(previousState, formData | plainObject) => ActionState`. */
 export type SafeAction<T> = (prev: ActionState<T> | null, input: ActionInput) => Promise<ActionState<T>>;
 
-export type ActionResult<T> = { data?: T; message?: string } | void;
+export type ActionResult<T> = { data?: T; message?: string; tone?: 'warning' } | void;
 
 /**
  * Field names that may hold a secret: passwords under any name (current, confirm, repeat, pwd…),

@@ -24,7 +24,6 @@ export const removeWebhookEndpoint = safeAction({ schema: webhookIdSchema, permi
 export const sendTestWebhook = safeAction({ schema: webhookIdSchema, permission: 'webhook.manage' }, async (input, ctx) => {
   const { description, run } = await sendTest(ctx, input.id);
   revalidatePath(WEBHOOKS_PAGE);
-  return {
-    message: run.delivered > 0 ? `Test event delivered to “${description}”.` : `Test event queued for “${description}”; the first attempt did not succeed — see the delivery log. It will be retried.`,
-  };
+  if (run.delivered > 0) return { message: `Test event delivered to “${description}”.` };
+  return { message: `Test event queued for “${description}”; the first attempt did not succeed — see the delivery log. It will be retried.`, tone: 'warning' };
 });

@@ -55,7 +55,7 @@ let world: StudyWorld;
 let other: TestCompany;
 let otherAdmin: TestUser;
 
-const main = receiver((req) => (req.url === '/flaky' ? { status: 500 } : req.url === '/redirect' ? { status: 302, headers: { Location: `${stolenBase}/stolen` } } : { status: 200 }));
+const main = receiver((req) => (req.url?.startsWith('/flaky') ? { status: 500 } : req.url === '/redirect' ? { status: 302, headers: { Location: `${stolenBase}/stolen` } } : { status: 200 }));
 const elsewhere = receiver(() => ({ status: 200 }));
 let base: string;
 let stolenBase: string;
@@ -281,5 +281,16 @@ describe('send test event', () => {
     expect(got).toHaveLength(1);
     expect(JSON.parse(got[0].body).type).toBe('webhook.test');
     expect(verifySignature(secret, got[0].headers['fadeledger-signature'] as string, got[0].body)).toBe(true);
+    expect(res.state).not.toHaveProperty('tone');
+  });
+
+  it('says a first attempt that failed as a warning, not as success', async () => {
+    // The other company: the first has used its endpoint allowance in the tests above.
+    const { id } = await register(otherAdmin, '/flaky-test-event');
+    asUser(await signInAs(otherAdmin));
+    const res = await callAction(webhookActions.sendTestWebhook, { id: String(id) });
+    expect(res.state).toMatchObject({ ok: true, tone: 'warning', message: expect.stringMatching(/did not succeed/) });
+    // Its pending retry goes with it, so no later run of this file meets it.
+    expect((await callAction(webhookActions.removeWebhookEndpoint, { id: String(id) })).state?.ok).toBe(true);
   });
 });
