@@ -2,7 +2,7 @@ import Link from 'next/link';
 import type { CampaignRow } from '@/db/queries/campaigns';
 import { Card, CardBody } from '@/components/ui/card';
 import { Table, TBody, THead, Td, Th } from '@/components/ui/table';
-import { CAMPAIGN_STATUS_WORDS, receivingWords } from './campaign-status';
+import { CAMPAIGN_STATUS_WORDS, receivingWords } from '@/server/campaigns/campaign-status-words';
 
 const day = (d: Date) => d.toISOString().slice(0, 16).replace('T', ' ') + ' UTC';
 

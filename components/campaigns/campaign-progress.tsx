@@ -9,7 +9,7 @@ import { ConfirmSubmit } from '@/components/team/confirm-submit';
 import { FormStatus } from '@/components/ui/form-status';
 import { cancelUpgradeCampaign } from '@/server/actions/campaigns';
 import type { CampaignProgress } from '@/server/campaigns/campaign-progress';
-import { CAMPAIGN_STATUS_WORDS, durationWords } from './campaign-status';
+import { CAMPAIGN_STATUS_WORDS, durationWords } from '@/server/campaigns/campaign-status-words';
 
 const n = (x: number) => x.toLocaleString('en-US');
 const finished = (s: CampaignProgress['status']) => s === 'done' || s === 'cancelled' || s === 'failed';

@@ -1,5 +1,5 @@
 import type { CampaignRow, CampaignStatus } from '@/db/queries/campaigns';
-import { receivingWords } from '@/components/campaigns/campaign-status';
+import { receivingWords } from './campaign-status-words';
 
 /** Problems listed on the campaign page while it runs and after (the result file has them all). */
 export const CAMPAIGN_LISTED_PROBLEMS = 100;

@@ -1,7 +1,7 @@
 import 'server-only';
 import { deleteStagedRows, findGivenUpWithStagedRows, findStaleUploads, giveUpUpload } from '@/db/queries/campaign-stale-uploads';
 import { getEnv } from '@/server/env';
-import { durationWords } from '@/components/campaigns/campaign-status';
+import { durationWords } from './campaign-status-words';
 
 export interface SweepOutcome {
   /** Campaigns this sweep marked failed. */

@@ -1,5 +1,8 @@
 import type { CampaignStatus } from '@/db/queries/campaigns';
 
+// Pure words (no server-only imports): the campaign list and page show them, and the stale-upload
+// sweep writes its message with them.
+
 /** How a campaign's status reads on the list and its page. */
 export const CAMPAIGN_STATUS_WORDS: Record<CampaignStatus, string> = {
   receiving: 'receiving the file',
